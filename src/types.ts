@@ -1,0 +1,190 @@
+/**
+ * Core types shared by every pipeline stage (see DESIGN.md, "Core types").
+ *
+ * Conventions, fixed once for the whole code base:
+ * - angles in degrees, θ from +z in [0, 180], φ in [0, 360);
+ * - values in dB (dBm for eirp/eis, dBi for gain); linear views are derived, never stored;
+ * - solid angles in steradians; every fraction of the sphere is relative to 4π.
+ */
+
+/** What the pattern values are. eirp/gain: larger is better; eis: smaller is better. */
+export type Quantity = 'eirp' | 'eis' | 'gain';
+
+/** Unit of the stored values: dBm for eirp and eis, dBi for gain. */
+export type ValueUnit = 'dBm' | 'dBi';
+
+export type GridKind = 'regular' | 'scattered';
+
+/** A direction on the unit sphere, θ ∈ [0, 180], φ ∈ [0, 360). */
+export interface Direction {
+  thetaDeg: number;
+  phiDeg: number;
+}
+
+/** Structure of a regular (θ-row × φ-column) grid, kept for bilinear resampling and neighbours. */
+export interface RegularLayout {
+  /** Distinct θ rows, ascending (poles included when measured). */
+  thetaRowsDeg: Float64Array;
+  /** Distinct φ columns in [0, 360), ascending. */
+  phiColsDeg: Float64Array;
+  /**
+   * Grid point index of (row r, column c): rowStart[r] + c for ordinary rows; a pole row
+   * (θ = 0 or 180) holds one merged point, so rowLength[r] = 1 there.
+   */
+  rowStart: Int32Array;
+  rowLength: Int32Array;
+  /** True when the φ columns cover the whole circle (the φ seam wraps). */
+  phiWraps: boolean;
+}
+
+/** The sampled sphere shared by every beam of one measurement. Point order is canonical (θ, then φ). */
+export interface SphereGrid {
+  kind: GridKind;
+  thetaDeg: Float64Array;
+  phiDeg: Float64Array;
+  /** Solid angle each point stands for, sr. */
+  weightSr: Float64Array;
+  /** Σ weightSr (compensated sum): 4π for a full sphere. */
+  solidAngleSr: number;
+  /** Present when kind === 'regular'. */
+  regular: RegularLayout | null;
+}
+
+/** One beam of the codebook on the measurement's grid. */
+export interface BeamPattern {
+  id: string;
+  /** dB values, one per grid point (same order as the grid). */
+  values: Float64Array;
+}
+
+export interface SourceFile {
+  /** Path relative to the analyzed input. */
+  path: string;
+  sha256: string;
+}
+
+/** Catalogue of warning codes; each has its text and remedy in src/warnings.ts. */
+export type WarningCode =
+  | 'duplicate-merged'
+  | 'duplicate-differs'
+  | 'beam-resampled'
+  | 'partial-sphere'
+  | 'missing-points'
+  | 'column-ignored'
+  | 'unit-converted'
+  | 'quantity-assumed'
+  | 'frequency-missing'
+  | 'calibration-applied'
+  | 'trp-partial-sphere'
+  | 'few-points'
+  | 'beam-never-best'
+  | 'identity-from-path'
+  | 'angle-convention'
+  | 'scattered-grid';
+
+export interface Warning {
+  code: WarningCode;
+  message: string;
+  file?: string;
+  line?: number;
+}
+
+/** An input problem: a value, never an exception. `line` is the 1-based physical line. */
+export interface InputError {
+  file: string;
+  line?: number;
+  column?: number;
+  columnName?: string;
+  message: string;
+}
+
+/** One unit at one frequency, normalized: the only thing downstream stages see. */
+export interface Measurement {
+  unit: string;
+  frequencyHz: number | null;
+  quantity: Quantity;
+  valueUnit: ValueUnit;
+  grid: SphereGrid;
+  beams: BeamPattern[];
+  sources: SourceFile[];
+  warnings: Warning[];
+  metadata: Record<string, string>;
+}
+
+/** Total scan pattern: per grid point the best beam's value and that beam's index. */
+export interface TotalScanPattern {
+  values: Float64Array;
+  bestBeam: Int32Array;
+}
+
+export interface PeakValue extends Direction {
+  value: number;
+}
+
+/** value is null when the level is not evaluable (it falls in the unmeasured part of 4π). */
+export interface PercentileValue {
+  levelPct: number;
+  value: number | null;
+}
+
+export interface CoveragePoint {
+  /** Absolute threshold in the value's unit. */
+  threshold: number;
+  /** Fraction of 4π at or better than the threshold. */
+  efficiency: number;
+}
+
+export interface RelativeCoveragePoint extends CoveragePoint {
+  /** Threshold expressed as dB below the TSP peak (positive number). */
+  dbBelowPeak: number;
+}
+
+export interface BeamMetrics {
+  id: string;
+  peak: PeakValue;
+  /** null unless the grid covers the full sphere. For eirp: dBm; gain: dBi (efficiency-weighted mean gain); eis: null. */
+  trpDbm: number | null;
+  /** Fraction of 4π where this beam is the best one. */
+  bestShare: number;
+}
+
+export interface CoverageMetrics {
+  peak: PeakValue;
+  percentiles: PercentileValue[];
+  coverage: CoveragePoint[];
+  relativeCoverage: RelativeCoveragePoint[];
+  /** The whole coverage-efficiency curve, thresholds ascending. */
+  curve: CoveragePoint[];
+  solidAngleSr: number;
+  beams: BeamMetrics[];
+}
+
+export type CheckKind =
+  | 'min-peak'
+  | 'percentile'
+  | 'min-coverage'
+  | 'min-beam-peak'
+  | 'max-trp'
+  | 'max-peak';
+
+export type CheckStatus = 'pass' | 'fail' | 'not-evaluable';
+
+/** One judged check. margin > 0 means better than the (tolerance-relaxed) limit. */
+export interface CheckResult {
+  name: string;
+  kind: CheckKind;
+  value: number | null;
+  limit: number;
+  toleranceDb: number;
+  /** The limit relaxed by the test tolerance, as used for the verdict. */
+  effectiveLimit: number;
+  margin: number | null;
+  pass: boolean | null;
+  status: CheckStatus;
+  /** Why a check is not evaluable, or where its limit comes from. */
+  note?: string;
+  source?: string;
+}
+
+/** pass: every check evaluated and passed; fail: any failed; none: no limits, or some not evaluable. */
+export type Verdict = 'pass' | 'fail' | 'none';
