@@ -188,3 +188,98 @@ export interface CheckResult {
 
 /** pass: every check evaluated and passed; fail: any failed; none: no limits, or some not evaluable. */
 export type Verdict = 'pass' | 'fail' | 'none';
+
+/** Grid facts reported with every unit (data quality section of the report). */
+export interface GridSummary {
+  kind: GridKind;
+  points: number;
+  thetaRangeDeg: [number, number];
+  phiRangeDeg: [number, number];
+  /** Step when uniform, else null (non-uniform or scattered). */
+  thetaStepDeg: number | null;
+  phiStepDeg: number | null;
+  fullSphere: boolean;
+  duplicatesMerged: number;
+  beamsResampled: number;
+}
+
+/** Coverage holes, beam removal, subset, reference and frequency trend (issue 9). */
+export interface CoverageHole extends Direction {
+  solidAngleSr: number;
+  worst: number;
+  nearestBeam: string;
+}
+
+export interface BeamRemoval {
+  percentileLossDb: number | null;
+  coverageLoss: number | null;
+}
+
+export interface BeamSubset {
+  levelPct: number;
+  toleranceDb: number;
+  beams: string[];
+  curve: { count: number; value: number | null }[];
+}
+
+/** One entry of results.json `units` (CONTRACT.md fields first, extras after). */
+export interface UnitResult {
+  unit: string;
+  frequencyHz: number | null;
+  quantity: Quantity;
+  valueUnit: ValueUnit;
+  solidAngleSr: number;
+  beams: (BeamMetrics & { removal?: BeamRemoval; neverBest?: boolean })[];
+  tsp: {
+    peak: PeakValue;
+    percentiles: PercentileValue[];
+    coverage: CoveragePoint[];
+    relativeCoverage: RelativeCoveragePoint[];
+    curve: CoveragePoint[];
+  };
+  checks: CheckResult[];
+  verdict: Verdict;
+  worstCheck: { name: string; margin: number } | null;
+  warnings: string[];
+  grid: GridSummary;
+  sources: SourceFile[];
+  limitSet: { name: string; source: string } | null;
+  holes?: CoverageHole[];
+  subset?: BeamSubset | null;
+  reference?: { unit: string; deltas: Record<string, number | null> } | null;
+  frequencyTrend?: ({ frequencyHz: number } & Record<string, number | null>)[] | null;
+}
+
+/** Per frequency and metric across the units of a build. */
+export interface BuildMetricStats {
+  frequencyHz: number | null;
+  metric: string;
+  count: number;
+  mean: number | null;
+  std: number | null;
+  min: number | null;
+  max: number | null;
+  /** Share of units whose check on this metric passes; null when the metric has no limit. */
+  yield: number | null;
+  lowerLimit: number | null;
+  upperLimit: number | null;
+  cpk: number | null;
+}
+
+export interface BuildSummary {
+  units: number;
+  passed: number;
+  failed: number;
+  notJudged: number;
+  stats: BuildMetricStats[];
+}
+
+export interface ResultsFile {
+  schemaVersion: 1;
+  tool: { name: 'spherecov'; version: string };
+  generatedAt: string;
+  settings: Record<string, unknown>;
+  units: UnitResult[];
+  build: BuildSummary | null;
+  errors: InputError[];
+}
