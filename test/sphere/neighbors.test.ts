@@ -1,0 +1,95 @@
+import { describe, expect, it } from 'vitest';
+import { gridNeighbors } from '../../src/sphere/neighbors.js';
+import type { SphereGrid } from '../../src/types.js';
+import { angleDeg, fullGrid, regularGrid, steps, unit } from '../analysis/fixtures.js';
+
+function neighboursOf(adj: ReturnType<typeof gridNeighbors>, i: number): number[] {
+  return Array.from(adj.neighbors.subarray(adj.offsets[i], adj.offsets[i + 1]));
+}
+
+function isSymmetric(adj: ReturnType<typeof gridNeighbors>, n: number): boolean {
+  for (let i = 0; i < n; i++) for (const j of neighboursOf(adj, i)) if (!neighboursOf(adj, j).includes(i) || j === i) return false;
+  return true;
+}
+
+function indexOf(grid: SphereGrid, thetaDeg: number, phiDeg: number): number {
+  for (let i = 0; i < grid.thetaDeg.length; i++) if (grid.thetaDeg[i] === thetaDeg && grid.phiDeg[i] === phiDeg) return i;
+  throw new Error(`no point at ${thetaDeg}, ${phiDeg}`);
+}
+
+describe('gridNeighbors, regular grids (4-connectivity)', () => {
+  const grid = fullGrid(15); // 11 ordinary rows × 24 columns + 2 poles
+  const adj = gridNeighbors(grid);
+  const n = grid.thetaDeg.length;
+
+  it('is symmetric, without self-loops, and each interior point has 4 neighbours', () => {
+    expect(isSymmetric(adj, n)).toBe(true);
+    expect(neighboursOf(adj, indexOf(grid, 90, 45)).length).toBe(4);
+  });
+
+  it('joins each pole to the whole adjacent ring', () => {
+    const north = indexOf(grid, 0, 0);
+    const ring = neighboursOf(adj, north).map((j) => grid.thetaDeg[j]);
+    expect(ring.length).toBe(24);
+    expect(ring.every((t) => t === 15)).toBe(true);
+    expect(neighboursOf(adj, indexOf(grid, 180, 0)).every((j) => grid.thetaDeg[j] === 165)).toBe(true);
+  });
+
+  it('wraps the φ seam: φ = 345 touches φ = 0 in the same row', () => {
+    expect(neighboursOf(adj, indexOf(grid, 60, 345))).toContain(indexOf(grid, 60, 0));
+    expect(neighboursOf(adj, indexOf(grid, 60, 0))).toContain(indexOf(grid, 60, 345));
+  });
+
+  it('does not wrap a partial φ range', () => {
+    const g = regularGrid(steps(30, 150, 10), steps(0, 90, 10), false);
+    const a = gridNeighbors(g);
+    expect(neighboursOf(a, indexOf(g, 60, 90))).not.toContain(indexOf(g, 60, 0));
+    expect(isSymmetric(a, g.thetaDeg.length)).toBe(true);
+  });
+
+  it('joins opposite points across the pole when the first row reaches it (cell-centred grid)', () => {
+    const g = regularGrid(steps(5, 175, 10), steps(5, 355, 10));
+    const a = gridNeighbors(g);
+    expect(neighboursOf(a, indexOf(g, 5, 15))).toContain(indexOf(g, 5, 195));
+    expect(neighboursOf(a, indexOf(g, 175, 95))).toContain(indexOf(g, 175, 275));
+    expect(isSymmetric(a, g.thetaDeg.length)).toBe(true);
+  });
+
+  it('every neighbour is within one grid step (great circle) except pole ring joins', () => {
+    for (let i = 0; i < n; i++) {
+      for (const j of neighboursOf(adj, i)) {
+        const d = angleDeg(unit(grid.thetaDeg[i], grid.phiDeg[i]), unit(grid.thetaDeg[j], grid.phiDeg[j]));
+        expect(d).toBeLessThanOrEqual(15 + 1e-9);
+      }
+    }
+  });
+});
+
+describe('gridNeighbors, scattered grids (spherical Delaunay)', () => {
+  it('gives a symmetric graph whose edges join nearby points, across the φ seam too', () => {
+    // Fibonacci sphere: a constant-density scattered grid (golden-angle spiral).
+    const count = 400;
+    const theta = new Float64Array(count), phi = new Float64Array(count);
+    for (let k = 0; k < count; k++) {
+      theta[k] = (Math.acos(1 - (2 * (k + 0.5)) / count) * 180) / Math.PI;
+      phi[k] = (((k * 137.50776405003785) % 360) + 360) % 360;
+    }
+    const grid: SphereGrid = {
+      kind: 'scattered', thetaDeg: theta, phiDeg: phi,
+      weightSr: new Float64Array(count).fill((4 * Math.PI) / count), solidAngleSr: 4 * Math.PI, regular: null,
+    };
+    const adj = gridNeighbors(grid);
+    expect(isSymmetric(adj, count)).toBe(true);
+    // Euler: a triangulation of the sphere has 3n − 6 edges, so the mean degree is 6 − 12/n.
+    expect(adj.neighbors.length / count).toBeCloseTo(6 - 12 / count, 6);
+    // Mean spacing is about sqrt(4π/n) rad ≈ 10°; Delaunay edges stay within a few spacings.
+    let seam = false;
+    for (let i = 0; i < count; i++) {
+      for (const j of neighboursOf(adj, i)) {
+        expect(angleDeg(unit(theta[i], phi[i]), unit(theta[j], phi[j]))).toBeLessThan(25);
+        if (Math.abs(phi[i] - phi[j]) > 300) seam = true;
+      }
+    }
+    expect(seam).toBe(true);
+  });
+});
