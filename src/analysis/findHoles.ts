@@ -1,0 +1,114 @@
+import { gridNeighbors, type GridAdjacency } from '../sphere/neighbors.js';
+import type { CoverageHole, Quantity, SphereGrid, TotalScanPattern } from '../types.js';
+
+const RAD = Math.PI / 180;
+
+/**
+ * Coverage holes: the connected regions of the measured sphere where the total scan pattern is
+ * worse than the coverage threshold (eirp/gain: value < t; eis: value > t; a missing value, NaN,
+ * counts as worse). Connectivity is the grid's neighbour graph (`gridNeighbors`: φ seam and poles
+ * included; 4-connectivity on regular grids). The unmeasured part of 4π has no points and is
+ * not reported as a hole.
+ *
+ * Per hole:
+ * - solidAngleSr = Σ wᵢ over its points (Neumaier sum);
+ * - centre = normalize(Σ wᵢ·uᵢ), uᵢ the unit vector of point i, back to θ = acos z,
+ *   φ = atan2(y, x) in [0, 360) (φ = 0 at a pole); when the weighted mean vector vanishes
+ *   (a hole that is a whole symmetric ring) the worst point's direction is used;
+ * - worst = lowest value (eis: highest);
+ * - nearestBeam = the beam with the best solid-angle-weighted mean dB value over the hole
+ *   (eis: lowest), ties to the earlier beam. This names the beam that comes closest to filling
+ *   the whole region, not only its worst point.
+ * Holes are listed largest first (ties: worse worst value first, then lower first index).
+ *
+ * Units: threshold in the values' unit (dBm/dBi); solid angles in sr; angles in degrees.
+ * Cost: O(n + edges) for the search (typed-array BFS queue) plus O(hole points × beams).
+ * @throws Error when beams and beamIds differ in length.
+ * @example findHoles(grid, tsp, beams, ['0', '1'], 10, 'eirp')[0].solidAngleSr
+ */
+export function findHoles(
+  grid: SphereGrid,
+  tsp: TotalScanPattern,
+  beams: Float64Array[],
+  beamIds: string[],
+  threshold: number,
+  quantity: Quantity,
+  adjacency: GridAdjacency = gridNeighbors(grid),
+): CoverageHole[] {
+  if (beams.length !== beamIds.length) throw new Error(`findHoles: ${beams.length} beams but ${beamIds.length} ids`);
+  const n = grid.thetaDeg.length;
+  const values = tsp.values;
+  const lowerIsBetter = quantity === 'eis';
+  const inHole = new Uint8Array(n);
+  for (let i = 0; i < n; i++) {
+    const v = values[i];
+    inHole[i] = Number.isNaN(v) || (lowerIsBetter ? v > threshold : v < threshold) ? 1 : 0;
+  }
+  const { offsets, neighbors } = adjacency;
+  const seen = new Uint8Array(n);
+  const queue = new Int32Array(n);
+  const found: (CoverageHole & { first: number })[] = [];
+  for (let seed = 0; seed < n; seed++) {
+    if (!inHole[seed] || seen[seed]) continue;
+    let head = 0, tail = 0;
+    queue[tail++] = seed;
+    seen[seed] = 1;
+    while (head < tail) {
+      const i = queue[head++];
+      for (let k = offsets[i]; k < offsets[i + 1]; k++) {
+        const j = neighbors[k];
+        if (inHole[j] && !seen[j]) { seen[j] = 1; queue[tail++] = j; }
+      }
+    }
+    found.push({ ...describeHole(grid, values, beams, beamIds, queue.subarray(0, tail), lowerIsBetter), first: seed });
+  }
+  found.sort((a, b) => b.solidAngleSr - a.solidAngleSr || worseFirst(a.worst, b.worst, lowerIsBetter) || a.first - b.first);
+  return found.map(({ first: _first, ...hole }) => hole);
+}
+
+function worseFirst(a: number, b: number, lowerIsBetter: boolean): number {
+  if (Number.isNaN(a) || Number.isNaN(b)) return Number.isNaN(a) ? (Number.isNaN(b) ? 0 : -1) : 1;
+  return lowerIsBetter ? b - a : a - b;
+}
+
+function describeHole(
+  grid: SphereGrid, values: Float64Array, beams: Float64Array[], beamIds: string[], points: Int32Array, lowerIsBetter: boolean,
+): CoverageHole {
+  let area = 0, areaC = 0, x = 0, y = 0, z = 0;
+  let worstAt = points[0];
+  for (const i of points) {
+    const w = grid.weightSr[i];
+    const t = area + w; // Neumaier compensated sum of the solid angle
+    areaC += Math.abs(area) >= Math.abs(w) ? area - t + w : w - t + area;
+    area = t;
+    const th = grid.thetaDeg[i] * RAD, ph = grid.phiDeg[i] * RAD;
+    x += w * Math.sin(th) * Math.cos(ph);
+    y += w * Math.sin(th) * Math.sin(ph);
+    z += w * Math.cos(th);
+    if (worseFirst(values[i], values[worstAt], lowerIsBetter) < 0) worstAt = i;
+  }
+  const norm = Math.hypot(x, y, z);
+  let thetaDeg = grid.thetaDeg[worstAt], phiDeg = grid.phiDeg[worstAt];
+  if (norm > 1e-12 * (area + areaC)) {
+    thetaDeg = Math.acos(Math.min(1, Math.max(-1, z / norm))) / RAD;
+    phiDeg = thetaDeg < 1e-9 || thetaDeg > 180 - 1e-9 ? 0 : ((Math.atan2(y, x) / RAD) % 360 + 360) % 360;
+  }
+  return { solidAngleSr: area + areaC, thetaDeg, phiDeg, worst: values[worstAt], nearestBeam: nearestBeam(grid, beams, beamIds, points, lowerIsBetter) };
+}
+
+function nearestBeam(grid: SphereGrid, beams: Float64Array[], beamIds: string[], points: Int32Array, lowerIsBetter: boolean): string {
+  let best = -1, bestMean = NaN;
+  for (let b = 0; b < beams.length; b++) {
+    let s = 0, wSum = 0;
+    for (const i of points) {
+      const v = beams[b][i];
+      if (Number.isNaN(v)) continue;
+      s += grid.weightSr[i] * v;
+      wSum += grid.weightSr[i];
+    }
+    if (wSum === 0) continue;
+    const mean = s / wSum;
+    if (best < 0 || (lowerIsBetter ? mean < bestMean : mean > bestMean)) { best = b; bestMean = mean; }
+  }
+  return best < 0 ? '' : beamIds[best];
+}
