@@ -1,0 +1,37 @@
+import { createRng } from './prng.js';
+import type { SimulatedBeam } from './types.js';
+
+/**
+ * Seeded chamber measurement noise on simulated beams: each polarization component gets the
+ * receiver's noise floor added in linear power, then a log-normal ripple of σ dB.
+ * Formula: P'_c = (P_c + P_floor) · 10^(σ z / 10), z ~ N(0, 1) per sample and component;
+ * EIRP' = P'_θ + P'_φ (power sum of the components, DESIGN.md polarization rule).      Eq. (N1)
+ * Units: sigmaDb in dB, noiseFloorDbm in dBm (per component); output dBm.
+ * Boundary rule: sigmaDb = 0 and noiseFloorDbm = −Infinity return the values unchanged
+ * (copies); draws are taken in beam, then point, then θ-before-φ order, so the same seed and
+ * inputs give the same output.
+ * Cost: O(beams · points).
+ * @example
+ * applyMeasurementNoise(beams, { sigmaDb: 0.2, noiseFloorDbm: -25, seed: 11 });
+ */
+export function applyMeasurementNoise(
+  beams: SimulatedBeam[],
+  opts: { sigmaDb: number; noiseFloorDbm: number; seed: number },
+): SimulatedBeam[] {
+  const rng = createRng(opts.seed);
+  const floorMw = 10 ** (opts.noiseFloorDbm / 10);
+  return beams.map((b) => {
+    const n = b.eirpDbm.length;
+    const eirpThetaDbm = new Float64Array(n);
+    const eirpPhiDbm = new Float64Array(n);
+    const eirpDbm = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const pt = (10 ** (b.eirpThetaDbm[i] / 10) + floorMw) * 10 ** ((opts.sigmaDb * rng.normal()) / 10);
+      const pf = (10 ** (b.eirpPhiDbm[i] / 10) + floorMw) * 10 ** ((opts.sigmaDb * rng.normal()) / 10);
+      eirpThetaDbm[i] = 10 * Math.log10(pt);
+      eirpPhiDbm[i] = 10 * Math.log10(pf);
+      eirpDbm[i] = 10 * Math.log10(pt + pf); // Eq. (N1)
+    }
+    return { id: b.id, eirpDbm, eirpThetaDbm, eirpPhiDbm };
+  });
+}
