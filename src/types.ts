@@ -184,6 +184,16 @@ export interface CheckResult {
   /** Why a check is not evaluable, or where its limit comes from. */
   note?: string;
   source?: string;
+  /** 'lower': the value must be at or above the limit; 'upper': at or below (set by src/limits). */
+  bound?: 'lower' | 'upper';
+  /** Unit of value, limit and margin: dB (dBm/dBi) for most checks, 'fraction' of 4π for min-coverage. */
+  marginUnit?: 'dB' | 'fraction';
+  /** percentile checks: the CDF level judged. */
+  levelPct?: number;
+  /** min-coverage checks: the threshold actually used (the written one relaxed by the tolerance). */
+  threshold?: number;
+  /** min-beam-peak checks: the beam that set the value (the worst one judged). */
+  beam?: string;
 }
 
 /** pass: every check evaluated and passed; fail: any failed; none: no limits, or some not evaluable. */

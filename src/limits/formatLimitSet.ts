@@ -1,0 +1,56 @@
+import type { LimitCheck, LimitSet } from './limitSet.js';
+import { checkBound, quantityUnit } from './checkSense.js';
+
+/** The rule of one check in words, e.g. "value at the 50 % CDF level ≥ 11.5 dBm". */
+export function describeCheck(c: LimitCheck, ls: Pick<LimitSet, 'quantity'>): string {
+  const u = quantityUnit(ls.quantity);
+  const op = checkBound(c.kind, ls.quantity) === 'lower' ? '≥' : '≤';
+  const tol = c.toleranceDb > 0 ? ` (test tolerance ${c.toleranceDb} dB)` : '';
+  switch (c.kind) {
+    case 'min-peak': return `best value over the sphere (TSP peak) ${op} ${c.limit} ${u}${tol}`;
+    case 'max-peak': return `maximum over the sphere (TSP peak) ≤ ${c.limit} ${u}${tol}`;
+    case 'max-trp': return `TRP of every beam ≤ ${c.limit} dBm (full sphere only)${tol}`;
+    case 'percentile': return `TSP value at the ${c.levelPct} % CDF level ${op} ${c.limit} ${u}${tol}`;
+    case 'min-beam-peak':
+      return `peak of ${c.beams ? `beams ${c.beams.join(', ')}` : 'every beam'} ${op} ${c.limit} ${u}${tol}`;
+    case 'min-coverage': {
+      const cmp = ls.quantity === 'eis' ? '≤' : '≥';
+      const relax = c.toleranceDb > 0
+        ? ` (threshold relaxed by the ${c.toleranceDb} dB test tolerance to ${ls.quantity === 'eis' ? c.threshold + c.toleranceDb : c.threshold - c.toleranceDb} ${u})`
+        : '';
+      return `share of 4π with TSP ${cmp} ${c.threshold} ${u} ≥ ${(c.minEfficiency * 100).toFixed(1)} %${relax}`;
+    }
+  }
+}
+
+/**
+ * Human-readable listing of a limit set (for `spherecov limits <name>`): header facts, one
+ * numbered line per check with its rule and source, and the caution that limits copied from a
+ * standard must be verified and that results are engineering data, not conformance.
+ *
+ * Cost O(checks).
+ * @example formatLimitSet(loadLimitSet('3gpp-fr2-pc3-n257').limitSet!).split('\n')[0] // '3gpp-fr2-pc3-n257'
+ */
+export function formatLimitSet(ls: LimitSet): string {
+  const lines: string[] = [ls.name];
+  if (ls.description) lines.push(`  ${ls.description}`);
+  lines.push(`  quantity: ${ls.quantity} (${quantityUnit(ls.quantity)})`);
+  if (ls.band || ls.frequencyRangeMHz) {
+    const range = ls.frequencyRangeMHz ? ` ${ls.frequencyRangeMHz[0]}–${ls.frequencyRangeMHz[1]} MHz` : '';
+    lines.push(`  band: ${ls.band ?? ''}${range}`.replace('band: ', ls.band ? 'band: ' : 'frequency range:'));
+  }
+  lines.push(`  source: ${ls.source}`);
+  if (ls.file) lines.push(`  file: ${ls.file}`);
+  lines.push('', `checks (${ls.checks.length}):`);
+  ls.checks.forEach((c, i) => {
+    lines.push(`  ${i + 1}. ${c.name} [${c.kind}]`, `     ${describeCheck(c, ls)}`);
+    if (c.source) lines.push(`     source: ${c.source}`);
+  });
+  if (ls.checks.length === 0) lines.push('  (none: every unit gets verdict "none")');
+  lines.push('',
+    'Test tolerance is 0 dB unless the limit set states one; set your own agreed values.',
+    'Limits copied from a standard must be verified against the current release.',
+    'Results are engineering data, not a regulatory conformance or RF-exposure assessment;',
+    'defer to accredited labs and local rules.');
+  return lines.join('\n') + '\n';
+}

@@ -1,0 +1,39 @@
+import type { CheckResult, CoverageMetrics, Quantity, Verdict } from '../types.js';
+import type { LimitSet } from './limitSet.js';
+import { evaluateCheck } from './evaluateCheck.js';
+
+export interface JudgeResult {
+  checks: CheckResult[];
+  verdict: Verdict;
+  worstCheck: { name: string; margin: number } | null;
+}
+
+/**
+ * Judge a unit's metrics against a limit set.
+ *
+ * Verdict rule: 'fail' if any check fails (even when others are not evaluable — one failure is
+ * enough to know); 'pass' only if there is at least one check and every check was evaluated and
+ * passed; otherwise 'none' (no checks, or some not evaluable and none failed: a pass cannot be
+ * claimed for what was not judged).
+ *
+ * worstCheck: among evaluated checks, failed ones first, then the smallest margin. Margins of
+ * min-coverage checks are fractions of 4π, the others dB; they are compared as plain numbers,
+ * so read worstCheck as a pointer and the checks list for the full story.
+ *
+ * Cost O(checks × metrics).
+ * @example judge(metrics, { ...ls, checks: [] }, { quantity: 'eirp', fullSphere: true }).verdict // 'none'
+ */
+export function judge(metrics: CoverageMetrics, ls: LimitSet,
+  ctx: { quantity: Quantity; fullSphere: boolean }): JudgeResult {
+  const checks = ls.checks.map((c) => evaluateCheck(c, metrics, ctx.quantity, ctx.fullSphere, ls.quantity));
+  const anyFail = checks.some((c) => c.status === 'fail');
+  const allPass = checks.length > 0 && checks.every((c) => c.status === 'pass');
+  const verdict: Verdict = anyFail ? 'fail' : allPass ? 'pass' : 'none';
+  let worst: CheckResult | null = null;
+  for (const c of checks) {
+    if (c.margin === null) continue;
+    if (!worst || (c.pass === false && worst.pass === true)
+      || (c.pass === worst.pass && c.margin < (worst.margin as number))) worst = c;
+  }
+  return { checks, verdict, worstCheck: worst ? { name: worst.name, margin: worst.margin as number } : null };
+}

@@ -1,0 +1,83 @@
+import type { CheckKind, Quantity } from '../types.js';
+
+/**
+ * The data model of a limit set (the file format is described in formatLimitSet.ts and the
+ * project README): a named list of checks for one quantity.
+ *
+ * Direction convention, fixed once: "better" is larger for eirp/gain and smaller for eis.
+ * - `min-peak`, `percentile`, `min-beam-peak`: the value must be at least as good as the limit
+ *   (eirp/gain: value ≥ limit; eis: value ≤ limit, so min-peak on eis means the best, i.e.
+ *   lowest, EIS ≤ REFSENS).
+ * - `min-coverage`: coverage efficiency at the threshold ≥ minEfficiency (any quantity).
+ * - `max-peak`, `max-trp`: eirp/gain only (max-trp eirp only): value ≤ limit.
+ */
+interface CheckCommon {
+  /** Unique within the set; a default is generated from the kind when omitted. */
+  name: string;
+  /** Test tolerance in dB, ≥ 0. Relaxes the limit (or the threshold for min-coverage). Default 0. */
+  toleranceDb: number;
+  /** Where the limit comes from (standard, clause, table; or the programme's document). */
+  source?: string;
+}
+
+export interface PeakCheck extends CheckCommon {
+  kind: 'min-peak' | 'max-peak' | 'max-trp';
+  /** dBm (eirp/eis) or dBi (gain). */
+  limit: number;
+}
+
+export interface PercentileCheck extends CheckCommon {
+  kind: 'percentile';
+  /** CDF level in percent, 0..100 (levelPct p: p % of 4π at or below the value). */
+  levelPct: number;
+  limit: number;
+}
+
+export interface CoverageCheck extends CheckCommon {
+  kind: 'min-coverage';
+  /** Absolute threshold in the value's unit. */
+  threshold: number;
+  /** Required fraction of 4π at or better than the threshold, 0..1. */
+  minEfficiency: number;
+}
+
+export interface BeamPeakCheck extends CheckCommon {
+  kind: 'min-beam-peak';
+  limit: number;
+  /** Beam ids to judge; all beams when omitted. */
+  beams?: string[];
+}
+
+export type LimitCheck = PeakCheck | PercentileCheck | CoverageCheck | BeamPeakCheck;
+
+/** A check before its name is settled (Omit distributed over the union). */
+export type CheckDraft = LimitCheck extends infer C ? (C extends LimitCheck ? Omit<C, 'name'> : never) : never;
+
+export interface LimitSet {
+  name: string;
+  description: string;
+  source: string;
+  quantity: Quantity;
+  /** Operating band name, e.g. 'n257' (informative). */
+  band?: string;
+  /** Frequency range the set applies to, MHz [low, high] (informative; see frequencyInRange). */
+  frequencyRangeMHz?: [number, number];
+  checks: LimitCheck[];
+  /** File the set was read from (absolute path), when loaded from disk. */
+  file?: string;
+}
+
+/** One shipped profile, as listed by `spherecov limits`. */
+export interface ProfileInfo {
+  name: string;
+  description: string;
+  quantity: Quantity;
+  band?: string;
+  checks: number;
+  source: string;
+  file: string;
+}
+
+export const CHECK_KINDS: readonly CheckKind[] = [
+  'min-peak', 'percentile', 'min-coverage', 'min-beam-peak', 'max-trp', 'max-peak',
+];

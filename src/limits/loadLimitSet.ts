@@ -1,0 +1,56 @@
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { basename, extname, join, resolve } from 'node:path';
+import type { InputError } from '../types.js';
+import type { LimitSet } from './limitSet.js';
+import { parseLimitSetText } from './parseLimitSet.js';
+import { limitTemplatesDir } from './templatesDir.js';
+import { listProfiles } from './listProfiles.js';
+
+const EXTENSIONS = ['.yaml', '.yml', '.json'];
+
+/**
+ * Load a limit set by shipped profile name (`3gpp-fr2-pc3-n257`) or by path to a YAML/JSON file.
+ * A value that names an existing file, contains a path separator or ends in .yaml/.yml/.json is
+ * a path (relative to the working directory); anything else is a profile name.
+ *
+ * Cost: one file read. Never throws: problems come back as InputError values.
+ * @example loadLimitSet('3gpp-fr2-pc3-n257').limitSet?.quantity // 'eirp'
+ */
+export function loadLimitSet(nameOrPath: string): { limitSet: LimitSet | null; errors: InputError[] } {
+  const looksLikePath = /[\\/]/.test(nameOrPath) || EXTENSIONS.includes(extname(nameOrPath).toLowerCase());
+  const asPath = resolve(nameOrPath);
+  let file: string;
+  let shown: string;
+  if (looksLikePath || (existsSync(asPath) && statSync(asPath).isFile())) {
+    file = asPath;
+    shown = nameOrPath;
+  } else {
+    file = join(limitTemplatesDir(), `${nameOrPath}.yaml`);
+    shown = `templates/limits/${nameOrPath}.yaml`;
+    if (!existsSync(file)) return { limitSet: null, errors: [unknownProfile(nameOrPath)] };
+  }
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (e) {
+    const why = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
+    return { limitSet: null, errors: [{ file: shown, message: `limits: cannot read the limit set (${why})` }] };
+  }
+  const out = parseLimitSetText(text, shown);
+  if (out.limitSet) out.limitSet.file = file;
+  return out;
+}
+
+function unknownProfile(name: string): InputError {
+  const names = listProfiles().map((p) => p.name);
+  // Suggest profiles sharing the longest prefix with what was typed (typo help, not fuzzy magic).
+  let best = 0;
+  for (const n of names) { let k = 0; while (k < n.length && n[k] === name[k]) k++; best = Math.max(best, k); }
+  const near = best >= 4 ? names.filter((n) => n.startsWith(name.slice(0, best))).slice(0, 6) : [];
+  return {
+    file: name,
+    columnName: 'limits',
+    message: `limits: found '${basename(name)}', expected a limit-set file (.yaml/.json) or a shipped profile name`
+      + (near.length ? ` such as ${near.join(', ')}` : '') + ' (`spherecov limits` lists them)',
+  };
+}

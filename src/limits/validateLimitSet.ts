@@ -1,0 +1,159 @@
+import type { CheckKind, InputError, Quantity } from '../types.js';
+import { CHECK_KINDS, type CheckDraft, type LimitCheck, type LimitSet } from './limitSet.js';
+import { defaultCheckName, kindAllowed } from './checkSense.js';
+
+/** Key path inside a parsed file, e.g. ['checks', 2, 'limit']. */
+export type KeyPath = (string | number)[];
+/** Maps a key path to its position in the source text (1-based), when known. */
+export type Locate = (path: KeyPath) => { line: number; column: number } | undefined;
+
+const QUANTITIES: readonly Quantity[] = ['eirp', 'eis', 'gain'];
+const TOP_KEYS = ['name', 'description', 'source', 'quantity', 'band', 'frequencyRangeMHz', 'checks'];
+const COMMON_KEYS = ['kind', 'name', 'toleranceDb', 'source'];
+const KIND_KEYS: Record<CheckKind, string[]> = {
+  'min-peak': ['limit'], 'max-peak': ['limit'], 'max-trp': ['limit'],
+  percentile: ['levelPct', 'limit'],
+  'min-coverage': ['threshold', 'minEfficiency'],
+  'min-beam-peak': ['limit', 'beams'],
+};
+
+/** 'checks[2].limit' from ['checks', 2, 'limit']. */
+export function formatKeyPath(path: KeyPath): string {
+  return path.map((k, i) => (typeof k === 'number' ? `[${k}]` : i === 0 ? k : `.${k}`)).join('');
+}
+
+function describeFound(v: unknown): string {
+  if (v === undefined) return 'nothing';
+  if (v === null) return "'null'";
+  if (Array.isArray(v)) return 'a list';
+  if (typeof v === 'object') return 'a mapping';
+  return `'${String(v)}'`;
+}
+
+/**
+ * Our own small schema checker for limit sets (parsed YAML/JSON → LimitSet). Strict: unknown
+ * keys are errors, because a misspelt `toleranceDb` silently ignored would change a verdict.
+ * Every error names the file and the key path, in the project's grammar:
+ * `<file>:<line>:<col>: checks[2].limit: found 'abc', expected a number`.
+ *
+ * Cost O(keys). Never throws on bad input; returns errors instead.
+ * @example validateLimitSet({ name: 'x', quantity: 'eirp', checks: [] }, 'x.yaml').errors // []
+ */
+export function validateLimitSet(raw: unknown, file: string, locate: Locate = () => undefined):
+  { limitSet: LimitSet | null; errors: InputError[] } {
+  const errors: InputError[] = [];
+  const fail = (path: KeyPath, found: unknown, expected: string): void => {
+    const key = formatKeyPath(path);
+    const at = locate(path);
+    errors.push({
+      file, ...(at ? { line: at.line, column: at.column } : {}), columnName: key,
+      message: `${key || '(top level)'}: found ${describeFound(found)}, expected ${expected}`,
+    });
+  };
+  if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
+    fail([], raw, 'a mapping with name, quantity and checks');
+    return { limitSet: null, errors };
+  }
+  const top = raw as Record<string, unknown>;
+  for (const k of Object.keys(top)) if (!TOP_KEYS.includes(k)) fail([k], 'an unknown key', `one of ${TOP_KEYS.join(', ')}`);
+  const name = str(top, ['name'], true, fail);
+  const description = str(top, ['description'], false, fail) ?? '';
+  const source = str(top, ['source'], false, fail) ?? 'no source given';
+  const band = str(top, ['band'], false, fail);
+  const quantity = top.quantity as Quantity;
+  if (!QUANTITIES.includes(quantity)) fail(['quantity'], top.quantity, 'one of eirp, eis, gain');
+  let frequencyRangeMHz: [number, number] | undefined;
+  if (top.frequencyRangeMHz !== undefined) {
+    const r = top.frequencyRangeMHz;
+    if (Array.isArray(r) && r.length === 2 && r.every(isNum) && r[0] < r[1]) frequencyRangeMHz = [r[0], r[1]];
+    else fail(['frequencyRangeMHz'], r, 'a list [low, high] of two numbers in MHz, low < high');
+  }
+  const checks: LimitCheck[] = [];
+  if (!Array.isArray(top.checks)) fail(['checks'], top.checks, 'a list of checks');
+  else {
+    const q = QUANTITIES.includes(quantity) ? quantity : 'eirp';
+    checks.push(...validateChecks(top.checks, ['checks'], q, fail));
+  }
+  if (errors.length > 0 || name === undefined) return { limitSet: null, errors };
+  const ls: LimitSet = { name, description, source, quantity, checks };
+  if (band !== undefined) ls.band = band;
+  if (frequencyRangeMHz) ls.frequencyRangeMHz = frequencyRangeMHz;
+  return { limitSet: ls, errors };
+}
+
+type Fail = (path: KeyPath, found: unknown, expected: string) => void;
+
+function isNum(v: unknown): v is number {
+  return typeof v === 'number' && Number.isFinite(v);
+}
+
+function str(o: Record<string, unknown>, path: KeyPath, required: boolean, fail: Fail): string | undefined {
+  const v = o[path[path.length - 1] as string];
+  if (v === undefined && !required) return undefined;
+  if (typeof v === 'string' && v.trim() !== '') return v;
+  fail(path, v, 'a non-empty text');
+  return undefined;
+}
+
+function num(o: Record<string, unknown>, path: KeyPath, fail: Fail, lo = -Infinity, hi = Infinity, what = 'a number'): number {
+  const v = o[path[path.length - 1] as string];
+  if (isNum(v) && v >= lo && v <= hi) return v;
+  fail(path, v, what);
+  return NaN;
+}
+
+/**
+ * Validate a list of raw checks (also used for a job file's extra programme checks). Names
+ * default from the kind; duplicates are errors. Returns the valid checks; errors go to `fail`.
+ */
+export function validateChecks(rawChecks: unknown[], base: KeyPath, quantity: Quantity, fail: Fail): LimitCheck[] {
+  const out: LimitCheck[] = [];
+  const seen = new Map<string, number>();
+  rawChecks.forEach((rc, i) => {
+    const p = [...base, i];
+    if (rc === null || typeof rc !== 'object' || Array.isArray(rc)) return fail(p, rc, 'a check mapping with a kind');
+    const c = rc as Record<string, unknown>;
+    const kind = c.kind as CheckKind;
+    if (!CHECK_KINDS.includes(kind)) return fail([...p, 'kind'], c.kind, `one of ${CHECK_KINDS.join(', ')}`);
+    if (!kindAllowed(kind, quantity)) {
+      const ok = CHECK_KINDS.filter((k) => kindAllowed(k, quantity)).join(', ');
+      return fail([...p, 'kind'], kind, `a check kind that applies to ${quantity} (${ok})`);
+    }
+    const allowed = [...COMMON_KEYS, ...KIND_KEYS[kind]];
+    for (const k of Object.keys(c)) if (!allowed.includes(k)) fail([...p, k], 'an unknown key', `one of ${allowed.join(', ')} for kind ${kind}`);
+    const before = out.length;
+    const toleranceDb = c.toleranceDb === undefined ? 0
+      : num(c, [...p, 'toleranceDb'], fail, 0, 30, 'a test tolerance in dB between 0 and 30');
+    const common = { toleranceDb, ...(c.source !== undefined ? { source: str(c, [...p, 'source'], true, fail) } : {}) };
+    let check: CheckDraft;
+    if (kind === 'percentile') {
+      check = { kind, ...common, levelPct: num(c, [...p, 'levelPct'], fail, 0, 100, 'a CDF level in percent between 0 and 100'),
+        limit: num(c, [...p, 'limit'], fail) };
+    } else if (kind === 'min-coverage') {
+      check = { kind, ...common, threshold: num(c, [...p, 'threshold'], fail),
+        minEfficiency: num(c, [...p, 'minEfficiency'], fail, 0, 1, 'a fraction of the sphere between 0 and 1 (0.5 = 50 %)') };
+    } else if (kind === 'min-beam-peak') {
+      const bc: CheckDraft & { kind: 'min-beam-peak' } = { kind, ...common, limit: num(c, [...p, 'limit'], fail) };
+      if (c.beams !== undefined) {
+        const b = c.beams;
+        if (Array.isArray(b) && b.length > 0 && b.every((x) => typeof x === 'string' || isNum(x))) bc.beams = b.map(String);
+        else fail([...p, 'beams'], b, 'a non-empty list of beam ids');
+      }
+      check = bc;
+    } else {
+      check = { kind, ...common, limit: num(c, [...p, 'limit'], fail) };
+    }
+    const name = c.name === undefined ? defaultCheckName(check, quantity) : str(c, [...p, 'name'], true, fail);
+    if (name === undefined) return;
+    const prev = seen.get(name);
+    if (prev !== undefined) return fail([...p, 'name'], name, `a name not already used by ${formatKeyPath([...base, prev])} (give one of them a name:)`);
+    seen.set(name, i);
+    if (hasNaN(check)) return;
+    if (out.length === before) out.push({ ...check, name } as LimitCheck);
+  });
+  return out;
+}
+
+function hasNaN(c: object): boolean {
+  return Object.values(c).some((v) => typeof v === 'number' && Number.isNaN(v));
+}
