@@ -1,0 +1,111 @@
+/**
+ * Discovery: the export files under the input, in a deterministic order.
+ */
+import { readdir, realpath, stat } from 'node:fs/promises';
+import path from 'node:path';
+
+const EXPORT_EXT = new Set(['.csv', '.tsv', '.txt']);
+const JOB_FILES = new Set(['spherecov.yaml', 'spherecov.yml', 'spherecov.json']);
+
+export interface Discovery {
+  /** Absolute input root (the folder, or the folder holding the one input file). */
+  root: string;
+  /** Absolute paths of the export files, sorted by their path relative to root (code-point order). */
+  files: string[];
+  /** Symbolic links skipped because they point outside the input folder (relative paths). */
+  skippedLinks: string[];
+}
+
+/** Code-point comparison: the same order on every platform and locale. */
+export function byCodePoint(a: string, b: string): number {
+  return a < b ? -1 : a > b ? 1 : 0;
+}
+
+function inside(root: string, p: string): boolean {
+  const rel = path.relative(root, p);
+  return rel === '' || (!rel.startsWith('..') && !path.isAbsolute(rel));
+}
+
+/**
+ * Find the export files: `.csv`, `.tsv`, `.txt` (any case), recursively; the job file
+ * (`spherecov.yaml|yml|json`) and hidden entries (a leading dot) are not exports. Symbolic links
+ * are followed only when their target lies inside the input folder (a link out of it could make
+ * a run read, and report on, unrelated data); each real folder is visited once (link cycles).
+ * `exclude` holds absolute folders not to enter (the output folder under `--force`).
+ * @throws Error when the input does not exist.
+ */
+export async function discoverInputs(input: string, exclude: string[] = []): Promise<Discovery> {
+  const abs = path.resolve(input);
+  const st = await stat(abs);
+  if (st.isFile()) return { root: path.dirname(abs), files: [abs], skippedLinks: [] };
+  const realRoot = await realpath(abs);
+  const realExclude = await Promise.all(exclude.map((e) => realpath(e).catch(() => path.resolve(e))));
+  const files: string[] = [];
+  const skippedLinks: string[] = [];
+  const seenDirs = new Set<string>();
+
+  async function walk(dirAbs: string, dirReal: string): Promise<void> {
+    if (seenDirs.has(dirReal) || realExclude.some((e) => inside(e, dirReal))) return;
+    seenDirs.add(dirReal);
+    const entries = await readdir(dirAbs, { withFileTypes: true });
+    entries.sort((a, b) => byCodePoint(a.name, b.name));
+    for (const ent of entries) {
+      if (ent.name.startsWith('.')) continue;
+      const p = path.join(dirAbs, ent.name);
+      let isDir = ent.isDirectory();
+      let isFile = ent.isFile();
+      let real = path.join(dirReal, ent.name);
+      if (ent.isSymbolicLink()) {
+        try {
+          real = await realpath(p);
+        } catch {
+          skippedLinks.push(path.relative(abs, p));
+          continue;
+        }
+        if (!inside(realRoot, real)) {
+          skippedLinks.push(path.relative(abs, p));
+          continue;
+        }
+        const t = await stat(real);
+        isDir = t.isDirectory();
+        isFile = t.isFile();
+      }
+      if (isDir) await walk(p, real);
+      else if (isFile && EXPORT_EXT.has(path.extname(ent.name).toLowerCase()) && !JOB_FILES.has(ent.name.toLowerCase())) {
+        files.push(p);
+      }
+    }
+  }
+
+  await walk(abs, realRoot);
+  files.sort((a, b) => byCodePoint(toPosix(path.relative(abs, a)), toPosix(path.relative(abs, b))));
+  return { root: abs, files, skippedLinks };
+}
+
+export function toPosix(p: string): string {
+  return p.split(path.sep).join('/');
+}
+
+/** File stem without the extension. */
+function stem(rel: string): string {
+  const base = path.posix.basename(rel);
+  const ext = path.posix.extname(base);
+  return ext ? base.slice(0, -ext.length) : base;
+}
+
+/**
+ * Group files into work items by where they sit: the first subfolder below the input, else the
+ * file stem with beam and frequency tokens removed (CONTRACT.md identity rules, path part).
+ * This only splits the work across workers; the readers decide the real unit identity, and the
+ * batch merges groups that turn out to share a unit.
+ */
+export function groupKey(relPosix: string): string {
+  const parts = relPosix.split('/');
+  if (parts.length > 1) return parts[0];
+  const s = stem(relPosix)
+    .replace(/(^|[_\-\s.])(beam[_-]?\d+|b\d+)(?=$|[_\-\s.])/gi, '$1')
+    .replace(/(^|[_\-\s.])\d+(\.\d+)?\s*ghz(?=$|[_\-\s.])/gi, '$1')
+    .replace(/[_\-\s.]+/g, '_')
+    .replace(/^_+|_+$/g, '');
+  return s === '' ? stem(relPosix) : s;
+}

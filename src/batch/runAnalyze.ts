@@ -1,0 +1,283 @@
+/**
+ * `spherecov analyze`: discover → group → analyze units in parallel → write outputs.
+ */
+import os from 'node:os';
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import type { InputError, ResultsFile, UnitResult, Warning } from '../types.js';
+import type { JobSpec } from '../io/types.js';
+import type { LimitSet } from '../limits/limitSet.js';
+import { loadJobFile, findJobFile } from '../io/jobFile.js';
+import { loadLimitSet } from '../limits/loadLimitSet.js';
+import { metricNeeds } from '../limits/metricNeeds.js';
+import { buildStatistics } from '../limits/buildStatistics.js';
+import { renderBuildPdf } from '../report/renderBuildPdf.js';
+import { loadReportSettings, ReportSettingsError } from '../report/settings.js';
+import { unitKey, type MapThumbnail, type ReportSettings } from '../report/reportTypes.js';
+import type { CdfCurve } from '../report/cdfCurve.js';
+import { DEFAULT_PERCENTILES_PCT, type AnalyzeOptions, type BatchIo } from './options.js';
+import { InterruptedError, RunError } from './errors.js';
+import { discoverInputs, groupKey, toPosix, byCodePoint } from './discover.js';
+import { OutputWriter, outputDirProblem } from './outputDir.js';
+import { acquireLock, LockBusyError } from './lock.js';
+import { TaskPool } from './pool.js';
+import type { TaskInput, TaskOutput, UnitOutput } from './unitTask.js';
+import { warningText } from './unitTask.js';
+import { Progress } from './progress.js';
+import { summaryCsv, buildStatsCsv } from './summaryCsv.js';
+import { frequencyToken, uniqueStems } from './sanitize.js';
+import { exitCode } from './exitCode.js';
+import { TOOL_VERSION } from './version.js';
+import { crossUnitExtras } from './crossUnit.js';
+
+const silentIo: BatchIo = { stdout: () => undefined, stderr: () => undefined, stderrIsTTY: false };
+
+/** Sorted, de-duplicated union of number lists. */
+export function unionSorted(...lists: (number[] | undefined)[]): number[] {
+  const s = new Set<number>();
+  for (const l of lists) for (const x of l ?? []) s.add(x);
+  return [...s].sort((a, b) => a - b);
+}
+
+/** Deterministic output order: unit (code point), then frequency ascending, no frequency first. */
+export function compareUnits(a: UnitResult, b: UnitResult): number {
+  const u = byCodePoint(a.unit, b.unit);
+  if (u !== 0) return u;
+  if (a.frequencyHz === b.frequencyHz) return 0;
+  if (a.frequencyHz === null) return -1;
+  if (b.frequencyHz === null) return 1;
+  return a.frequencyHz - b.frequencyHz;
+}
+
+function formatError(e: InputError): string {
+  const where = [e.file, e.line, e.column].filter((x) => x !== undefined && x !== '').join(':');
+  return where ? `${where}: ${e.message}` : e.message;
+}
+
+function loadJob(opts: AnalyzeOptions, inputDir: string): JobSpec | null {
+  const file = opts.jobFile ?? findJobFile(inputDir);
+  if (!file) return null;
+  if (opts.jobFile && !existsSync(opts.jobFile)) throw new RunError(`--job: '${opts.jobFile}' does not exist`);
+  const { job, errors } = loadJobFile(file);
+  if (errors.length > 0 || !job) {
+    throw new RunError(`the job file could not be used:\n  ${errors.map(formatError).join('\n  ')}`);
+  }
+  return job;
+}
+
+function loadLimits(name: string | undefined): LimitSet | null {
+  if (!name) return null;
+  const { limitSet, errors } = loadLimitSet(name);
+  if (!limitSet) throw new RunError(`--limits: ${errors.map(formatError).join('; ')}`);
+  return limitSet;
+}
+
+/** Union-find over group keys that produced the same (unit, frequency): those groups are one unit's files. */
+function collidingGroups(outputs: TaskOutput[]): string[][] {
+  const owner = new Map<string, string>();
+  const parent = new Map<string, string>();
+  const find = (k: string): string => {
+    let r = k;
+    while (parent.get(r) !== r) r = parent.get(r) as string;
+    return r;
+  };
+  for (const o of outputs) parent.set(o.key, o.key);
+  for (const o of outputs) {
+    for (const u of o.units) {
+      const id = JSON.stringify([u.result.unit, u.result.frequencyHz]);
+      const prev = owner.get(id);
+      if (prev === undefined) owner.set(id, o.key);
+      else parent.set(find(o.key), find(prev));
+    }
+  }
+  const comps = new Map<string, string[]>();
+  for (const o of outputs) {
+    const r = find(o.key);
+    comps.set(r, [...(comps.get(r) ?? []), o.key]);
+  }
+  return [...comps.values()].filter((c) => c.length > 1);
+}
+
+/**
+ * Analyze a build folder (or one file) and write results.json, summary.csv, build-stats.csv and
+ * the PDFs into `opts.outDir`.
+ * @throws RunError when the run cannot start (missing input, bad limit set or job file, unsafe
+ *   or busy output folder); InterruptedError on SIGINT.
+ */
+export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: ResultsFile; exitCode: 0 | 1 | 2 }> {
+  const io = opts.io ?? silentIo;
+  const input = path.resolve(opts.input);
+  if (!existsSync(input)) throw new RunError(`the input '${opts.input}' does not exist; give a folder of exports or one file`);
+  const outDir = path.resolve(opts.outDir);
+  const problem = await outputDirProblem(input, outDir, opts.force === true);
+  if (problem) throw new RunError(problem);
+
+  const discovery = await discoverInputs(input, [outDir]);
+  const job = loadJob(opts, discovery.root);
+  const limitSet = loadLimits(opts.limits ?? job?.limits);
+  const needs = limitSet ? metricNeeds(limitSet) : { percentilesPct: [], thresholds: [] };
+  const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
+  const thresholds = unionSorted(opts.thresholds ?? job?.coverageThresholds, needs.thresholds);
+  const relativeDb = unionSorted(opts.relativeDb);
+  const reference = opts.reference ?? job?.reference;
+  const generatedAt = opts.creationDate ?? new Date().toISOString();
+  const pdf = opts.pdf !== false;
+  const pageSize = opts.pageSize ?? 'a4';
+  const jobs = opts.jobs ?? os.availableParallelism();
+  let report: ReportSettings | null = null;
+  if (pdf) {
+    try {
+      report = loadReportSettings({
+        ...((job?.report ?? {}) as Record<string, unknown>),
+        pageSize: pageSize === 'letter' ? 'Letter' : 'A4',
+        creationDate: generatedAt,
+      });
+    } catch (e) {
+      if (e instanceof ReportSettingsError) throw new RunError(e.message);
+      throw e;
+    }
+  }
+  if (discovery.files.length === 0) {
+    throw new RunError(`no export files (.csv, .tsv, .txt) found in '${opts.input}'`);
+  }
+
+  const groups = new Map<string, string[]>();
+  for (const f of discovery.files) {
+    const k = groupKey(toPosix(path.relative(discovery.root, f)));
+    groups.set(k, [...(groups.get(k) ?? []), f]);
+  }
+  const makeTask = (key: string, files: string[]): TaskInput => ({
+    key, files, inputRoot: discovery.root, job, quantityOverride: opts.quantity, percentilesPct, thresholds, relativeDb,
+    limitSet, report, generatedAt, toolVersion: TOOL_VERSION,
+  });
+  const tasks = [...groups.keys()].sort(byCodePoint).map((k) => makeTask(k, groups.get(k) as string[]));
+
+  let writer: OutputWriter;
+  let release: () => void;
+  try {
+    writer = await OutputWriter.open(outDir, `${process.pid}-${Date.now().toString(36)}`);
+    release = acquireLock(outDir);
+  } catch (e) {
+    if (e instanceof LockBusyError) throw new RunError(e.message);
+    throw new RunError(`cannot write to the output folder '${opts.outDir}': ${(e as Error).message}`);
+  }
+
+  const progress = new Progress(tasks.length, io.stderrIsTTY && !opts.quiet ? io.stderr : null);
+  const pool = new TaskPool();
+  let interrupted = false;
+  let stage = 'analyzing';
+  const onSigint = () => {
+    interrupted = true;
+    void pool.terminate();
+  };
+  process.on('SIGINT', onSigint);
+  try {
+    const outputs = await pool.run(tasks, jobs, {
+      aborted: () => interrupted,
+      onStart: (t) => progress.start(t.key),
+      onDone: () => progress.finish(),
+    });
+    if (interrupted) throw new InterruptedError('stop');
+    for (const comp of collidingGroups(outputs)) {
+      const files = comp.flatMap((k) => groups.get(k) as string[]).sort((a, b) => byCodePoint(toPosix(a), toPosix(b)));
+      const [merged] = await pool.run([makeTask(comp.join('+'), files)], 1);
+      for (let i = outputs.length - 1; i >= 0; i--) if (comp.includes(outputs[i].key)) outputs.splice(i, 1);
+      outputs.push(merged);
+    }
+    if (interrupted) throw new InterruptedError('stop');
+
+    const unitOutputs: UnitOutput[] = outputs.flatMap((o) => o.units).sort((a, b) => compareUnits(a.result, b.result));
+    const units = unitOutputs.map((u) => u.result);
+    const errors: InputError[] = outputs.flatMap((o) => o.errors);
+    errors.sort((a, b) => byCodePoint(a.file, b.file) || (a.line ?? 0) - (b.line ?? 0) || (a.column ?? 0) - (b.column ?? 0));
+    const looseWarnings: Warning[] = outputs.flatMap((o) => o.warnings);
+    crossUnitExtras(units, reference);
+    const build = units.length > 0 ? buildStatistics(units) : null;
+
+    const results: ResultsFile = {
+      schemaVersion: 1,
+      tool: { name: 'spherecov', version: TOOL_VERSION },
+      generatedAt,
+      settings: {
+        input: toPosix(path.basename(input)),
+        percentilesPct,
+        coverageThresholds: thresholds,
+        relativeDb,
+        limits: limitSet ? { name: limitSet.name, source: limitSet.source } : null,
+        quantityOverride: opts.quantity ?? null,
+        jobFile: job ? path.basename(job.source) : null,
+        reference: reference ?? null,
+        pdf,
+        pageSize,
+        skippedLinks: discovery.skippedLinks.map(toPosix),
+        warnings: looseWarnings.map(warningText),
+      },
+      units,
+      build,
+      errors,
+    };
+
+    stage = 'writing';
+    const write = async (name: string, data: string | Uint8Array): Promise<void> => {
+      if (interrupted) throw new InterruptedError('stop');
+      await writer.write(name, data);
+    };
+    // No results.json while files are being replaced: a run killed here cannot look finished.
+    await writer.discard('results.json');
+    if (pdf) {
+      const stems = uniqueStems(units.map((u) => (u.frequencyHz === null ? u.unit : `${u.unit}_${frequencyToken(u.frequencyHz)}`)));
+      for (let i = 0; i < unitOutputs.length; i++) {
+        const bytes = unitOutputs[i].pdf;
+        if (bytes) await write(`${stems[i]}.pdf`, bytes);
+      }
+      const thumbnails: Record<string, MapThumbnail> = {};
+      const cdfs: Record<string, CdfCurve> = {};
+      for (const u of unitOutputs) {
+        const k = unitKey(u.result.unit, u.result.frequencyHz);
+        if (u.thumbnail) thumbnails[k] = u.thumbnail;
+        if (u.cdf) cdfs[k] = u.cdf;
+      }
+      const summaryPdf = await renderBuildPdf(
+        {
+          units,
+          thumbnails,
+          cdfs,
+          build: build ?? buildStatistics([]),
+          generatedAt,
+          toolVersion: TOOL_VERSION,
+          limitSetName: limitSet?.name ?? null,
+        },
+        report as ReportSettings,
+      );
+      await write('summary.pdf', summaryPdf);
+    }
+    await write('summary.csv', summaryCsv(units));
+    await write('build-stats.csv', buildStatsCsv(build));
+    const json = JSON.stringify(results, null, 2) + '\n';
+    // results.json last: its presence (with this run's generatedAt) marks a finished run.
+    await write('results.json', json);
+    await writer.finish();
+
+    progress.clear();
+    for (const e of errors) io.stderr(`spherecov: ${formatError(e)}\n`);
+    if (io.stderrIsTTY && !opts.quiet) {
+      const failed = units.filter((u) => u.verdict === 'fail').length;
+      io.stderr(`${units.length} unit result(s), ${failed} failed, ${errors.length} input error(s); outputs in ${opts.outDir}\n`);
+    }
+    if (opts.json) io.stdout(json);
+    return { results, exitCode: exitCode(results) };
+  } catch (e) {
+    progress.clear();
+    if (interrupted) {
+      await writer.removeTemps();
+      const how = stage === 'analyzing'
+        ? `interrupted while analyzing: ${progress.count} of ${tasks.length} group(s) done; no outputs were written, the previous run's files are unchanged`
+        : `interrupted while writing: ${writer.files.length} file(s) replaced (${writer.files.join(', ')}); run again to complete`;
+      throw new InterruptedError(how);
+    }
+    throw e;
+  } finally {
+    process.off('SIGINT', onSigint);
+    release();
+  }
+}

@@ -1,0 +1,67 @@
+/**
+ * summary.csv (one row per unit and frequency) and build-stats.csv (per frequency and metric).
+ */
+import type { BuildSummary, UnitResult } from '../types.js';
+import { toCsv, type CsvCell } from './csv.js';
+
+/** Column label of a number: `-88` → `-88`, `12.5` → `12.5` (shortest round trip). */
+function num(x: number): string {
+  return String(x);
+}
+
+/** The beam that gives the TSP peak (the first beam whose peak equals it), else null. */
+function peakBeam(u: UnitResult): UnitResult['beams'][number] | null {
+  let best: UnitResult['beams'][number] | null = null;
+  for (const b of u.beams) {
+    const better = best === null || (u.quantity === 'eis' ? b.peak.value < best.peak.value : b.peak.value > best.peak.value);
+    if (better) best = b;
+  }
+  return best;
+}
+
+/**
+ * Rows of summary.csv. The percentile and coverage columns are the union over all units in
+ * first-seen order (every unit of one run normally has the same lists); a unit without a
+ * column leaves it empty. Text cells are neutralized against formula injection (csv.ts).
+ */
+export function summaryCsv(units: UnitResult[]): string {
+  const levels: number[] = [];
+  const thresholds: number[] = [];
+  const rel: number[] = [];
+  for (const u of units) {
+    for (const p of u.tsp.percentiles) if (!levels.includes(p.levelPct)) levels.push(p.levelPct);
+    for (const c of u.tsp.coverage) if (!thresholds.includes(c.threshold)) thresholds.push(c.threshold);
+    for (const c of u.tsp.relativeCoverage) if (!rel.includes(c.dbBelowPeak)) rel.push(c.dbBelowPeak);
+  }
+  const header = [
+    'unit', 'frequency_hz', 'quantity', 'value_unit', 'beams', 'points', 'measured_solid_angle_sr', 'measured_fraction',
+    'peak', 'peak_theta_deg', 'peak_phi_deg',
+    ...levels.map((l) => `p${num(l)}`),
+    ...thresholds.map((t) => `coverage_at_${num(t)}`),
+    ...rel.map((d) => `coverage_within_${num(d)}db_of_peak`),
+    'peak_beam', 'peak_beam_trp_dbm', 'verdict', 'checks_failed', 'checks_not_evaluable', 'worst_check', 'worst_margin',
+  ];
+  const rows: CsvCell[][] = units.map((u) => {
+    const pb = peakBeam(u);
+    return [
+      u.unit, u.frequencyHz, u.quantity, u.valueUnit, u.beams.length, u.grid.points, u.solidAngleSr, u.solidAngleSr / (4 * Math.PI),
+      u.tsp.peak.value, u.tsp.peak.thetaDeg, u.tsp.peak.phiDeg,
+      ...levels.map((l) => u.tsp.percentiles.find((p) => p.levelPct === l)?.value ?? null),
+      ...thresholds.map((t) => u.tsp.coverage.find((c) => c.threshold === t)?.efficiency ?? null),
+      ...rel.map((d) => u.tsp.relativeCoverage.find((c) => c.dbBelowPeak === d)?.efficiency ?? null),
+      pb?.id ?? null, pb?.trpDbm ?? null, u.verdict,
+      u.checks.filter((c) => c.status === 'fail').length, u.checks.filter((c) => c.status === 'not-evaluable').length,
+      u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null,
+    ];
+  });
+  return toCsv(header, rows);
+}
+
+/** build-stats.csv: one row per frequency and metric of the build summary. */
+export function buildStatsCsv(build: BuildSummary | null): string {
+  const header = ['frequency_hz', 'metric', 'count', 'mean', 'std', 'min', 'max', 'yield', 'lower_limit', 'upper_limit', 'cpk'];
+  const rows: CsvCell[][] = (build?.stats ?? []).map((s) => [
+    s.frequencyHz, s.metric, s.count, s.mean, s.std, s.min, s.max, s.yield, s.lowerLimit, s.upperLimit, s.cpk,
+  ]);
+  return toCsv(header, rows);
+}

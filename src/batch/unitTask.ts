@@ -1,0 +1,192 @@
+/**
+ * The work for one group of files, run in a worker thread (or in-process): read the files,
+ * assemble the measurements, compute and judge each one, run the per-unit analysis and render
+ * the unit PDFs. Input and output are plain data (structured-clone safe).
+ */
+import type { BeamRemoval, InputError, Measurement, Quantity, SourceFile, UnitResult, Warning } from '../types.js';
+import type { JobSpec, RawBeam } from '../io/types.js';
+import type { LimitSet } from '../limits/limitSet.js';
+import { readExportFile } from '../io/readExportFile.js';
+import { assembleMeasurements } from '../io/assembleMeasurements.js';
+import { computeMetrics } from '../coverage/computeMetrics.js';
+import { judge } from '../limits/judge.js';
+import { frequencyInRange } from '../limits/frequencyInRange.js';
+import { findHoles } from '../analysis/findHoles.js';
+import { beamRemoval } from '../analysis/beamRemoval.js';
+import { greedySubset } from '../analysis/greedySubset.js';
+import { renderUnitPdf } from '../report/renderUnitPdf.js';
+import { unitMapThumbnail } from '../report/unitMapThumbnail.js';
+import { cdfCurve, type CdfCurve } from '../report/cdfCurve.js';
+import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';
+import { gridSummary } from './gridSummary.js';
+
+export interface TaskInput {
+  /** Work-item key (folder or file-stem group). */
+  key: string;
+  /** Absolute paths of the files, in discovery order. */
+  files: string[];
+  inputRoot: string;
+  job: JobSpec | null;
+  quantityOverride?: Quantity;
+  percentilesPct: number[];
+  thresholds: number[];
+  relativeDb: number[];
+  limitSet: LimitSet | null;
+  /** Report settings for the unit PDFs; null with --no-pdf. */
+  report: ReportSettings | null;
+  generatedAt: string;
+  toolVersion: string;
+}
+
+export interface UnitOutput {
+  result: UnitResult;
+  thumbnail: MapThumbnail | null;
+  cdf: CdfCurve | null;
+  pdf: Uint8Array | null;
+}
+
+export interface TaskOutput {
+  key: string;
+  units: UnitOutput[];
+  errors: InputError[];
+  /** Warnings that belong to a file but no measurement (e.g. a file that failed). */
+  warnings: Warning[];
+}
+
+/** Warning as one line for results.json: `file:line: message` when the warning names a file. */
+export function warningText(w: Warning): string {
+  const where = w.file ? `${w.file}${w.line ? `:${w.line}` : ''}: ` : '';
+  return `${where}${w.message}`;
+}
+
+/** Threshold for the hole search: the first coverage check's threshold, else the first percentile check's limit, else the first requested threshold. */
+export function holeThreshold(ls: LimitSet | null, thresholds: number[]): number | null {
+  const cov = ls?.checks.find((c) => c.kind === 'min-coverage');
+  if (cov && cov.kind === 'min-coverage') return cov.threshold;
+  const pct = ls?.checks.find((c) => c.kind === 'percentile');
+  if (pct && pct.kind === 'percentile') return pct.limit;
+  return thresholds.length ? thresholds[0] : null;
+}
+
+/** Percentile level used for beam removal and subset: the first percentile check's, else 50 %. */
+function analysisLevel(ls: LimitSet | null): number {
+  const pct = ls?.checks.find((c) => c.kind === 'percentile');
+  return pct && pct.kind === 'percentile' ? pct.levelPct : 50;
+}
+
+/** Analyze one measurement (already assembled): metrics, verdict, analysis extras, PDF. */
+export async function analyzeMeasurement(m: Measurement, input: TaskInput): Promise<UnitOutput> {
+  const { tsp, metrics } = computeMetrics(m, {
+    percentilesPct: input.percentilesPct,
+    thresholds: input.thresholds,
+    relativeDb: input.relativeDb,
+  });
+  const grid = gridSummary(m);
+  const ls = input.limitSet;
+  const judged = ls
+    ? judge(metrics, ls, { quantity: m.quantity, fullSphere: grid.fullSphere })
+    : { checks: [], verdict: 'none' as const, worstCheck: null };
+  const warnings = m.warnings.map(warningText);
+  if (ls && frequencyInRange(ls, m.frequencyHz) === false) {
+    warnings.push(`limit set '${ls.name}' is for ${ls.frequencyRangeMHz?.join('–')} MHz but this measurement is at ${(m.frequencyHz as number) / 1e6} MHz`);
+  }
+  if (ls && ls.quantity !== m.quantity) {
+    warnings.push(`limit set '${ls.name}' is for ${ls.quantity} but the measurement is ${m.quantity}`);
+  }
+  const beamValues = m.beams.map((b) => b.values);
+  const beamIds = m.beams.map((b) => b.id);
+  const level = analysisLevel(ls);
+  const hT = holeThreshold(ls, input.thresholds);
+  const removal: BeamRemoval[] = beamValues.length > 1
+    ? beamRemoval(m.grid, beamValues, m.quantity, level, hT)
+    : beamValues.map(() => ({ percentileLossDb: null, coverageLoss: null }));
+  const result: UnitResult = {
+    unit: m.unit,
+    frequencyHz: m.frequencyHz,
+    quantity: m.quantity,
+    valueUnit: m.valueUnit,
+    solidAngleSr: metrics.solidAngleSr,
+    beams: metrics.beams.map((b, i) => ({ ...b, removal: removal[i], neverBest: b.bestShare === 0 })),
+    tsp: {
+      peak: metrics.peak,
+      percentiles: metrics.percentiles,
+      coverage: metrics.coverage,
+      relativeCoverage: metrics.relativeCoverage,
+      curve: metrics.curve,
+    },
+    checks: judged.checks,
+    verdict: judged.verdict,
+    worstCheck: judged.worstCheck,
+    warnings,
+    grid,
+    sources: m.sources,
+    limitSet: ls ? { name: ls.name, source: ls.source } : null,
+    holes: hT === null ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
+    subset: greedySubset(m.grid, beamValues, beamIds, m.quantity, level),
+  };
+  let pdf: Uint8Array | null = null;
+  if (input.report) {
+    const settings = input.report;
+    const buf = await renderUnitPdf(
+      { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion },
+      settings,
+    );
+    pdf = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength);
+  }
+  return { result, thumbnail: unitMapThumbnail(m, tsp), cdf: cdfCurve(tsp.values, m.grid.weightSr, m.quantity), pdf };
+}
+
+/**
+ * Read, assemble and analyze every measurement of one group of files.
+ * A file with errors fails its unit only: units named in its rows are not analyzed (a unit
+ * judged on the beams that happened to be readable would look worse or better than it is); a
+ * file that gave no rows at all fails the whole group (its unit is unknown, and the group is
+ * a unit folder or one file stem).
+ */
+export async function runTask(input: TaskInput): Promise<TaskOutput> {
+  const beams: RawBeam[] = [];
+  const sources: SourceFile[] = [];
+  const errors: InputError[] = [];
+  const fileWarnings = new Map<string, Warning[]>();
+  const failedUnits = new Set<string>();
+  let groupFailed = false;
+  const ctx = { inputRoot: input.inputRoot, job: input.job ?? undefined, quantityOverride: input.quantityOverride };
+  for (const f of input.files) {
+    const r = await readExportFile(f, ctx);
+    sources.push({ path: r.file, sha256: r.sha256 });
+    errors.push(...r.errors);
+    fileWarnings.set(r.file, r.warnings);
+    if (r.errors.length > 0) {
+      if (r.beams.length === 0) groupFailed = true;
+      for (const b of r.beams) failedUnits.add(b.unit);
+      continue;
+    }
+    beams.push(...r.beams);
+  }
+  const usable = groupFailed ? [] : beams.filter((b) => !failedUnits.has(b.unit));
+  const assembled = assembleMeasurements(usable, sources);
+  errors.push(...assembled.errors);
+  const units: UnitOutput[] = [];
+  for (const m of assembled.measurements) {
+    const own = new Set(usable.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz).map((b) => b.file));
+    const extra = [...own].sort().flatMap((f) => fileWarnings.get(f) ?? []);
+    const known = new Set(m.warnings.map(warningText));
+    const merged = { ...m, warnings: [...m.warnings, ...extra.filter((w) => !known.has(warningText(w)))] };
+    units.push(await analyzeMeasurement(merged, input));
+  }
+  const leftover = [...fileWarnings.entries()].filter(([f]) => !usable.some((b) => b.file === f)).flatMap(([, w]) => w);
+  return { key: input.key, units, errors, warnings: [...leftover, ...assembled.warnings] };
+}
+
+/**
+ * runTask that never rejects: an unexpected exception (a defect, not an input problem) fails
+ * this group only and is reported as an error entry, so the rest of the build is still written.
+ */
+export async function safeRunTask(input: TaskInput): Promise<TaskOutput> {
+  try {
+    return await runTask(input);
+  } catch (e) {
+    const message = e instanceof Error ? e.message : String(e);
+    return { key: input.key, units: [], errors: [{ file: input.key, message: `could not analyze this group (internal error: ${message})` }], warnings: [] };
+  }
+}

@@ -1,0 +1,118 @@
+/**
+ * Every command-line option, declared once as data. The same list drives commander (flags and
+ * parsing), `--help` and the README options table (`npm run docs:options`).
+ */
+
+export type CommandName = 'analyze' | 'inspect' | 'limits';
+
+export interface OptionSpec {
+  /** Long flag without dashes, e.g. `coverage-thresholds`. */
+  name: string;
+  /** Optional one-letter alias. */
+  short?: string;
+  /** Placeholder of the value; absent for a switch. */
+  value?: string;
+  /** Allowed values, when the value is one of a fixed set. */
+  choices?: string[];
+  description: string;
+  /** Default shown in help and the table (the batch applies it; commander keeps undefined). */
+  defaultText?: string;
+  commands: CommandName[];
+  /** A switch whose `--no-` form is the documented flag (`--no-pdf`). */
+  negated?: boolean;
+  /** Required option. */
+  required?: boolean;
+}
+
+export const OPTIONS: OptionSpec[] = [
+  { name: 'out', short: 'o', value: 'dir', required: true, commands: ['analyze'],
+    description: 'Folder for results.json, summary.csv, build-stats.csv and the PDFs (created if missing).' },
+  { name: 'percentiles', value: 'list', commands: ['analyze'],
+    description: 'CDF percentile levels in %, comma separated, added to those the limit set needs.',
+    defaultText: '0,5,10,20,50,60,80,85,90,95,100' },
+  { name: 'coverage-thresholds', value: 'list', commands: ['analyze'],
+    description: 'Absolute thresholds for coverage efficiency in the value\'s unit (dBm, dBi); may be negative.',
+    defaultText: 'those of the limit set' },
+  { name: 'relative-db', value: 'list', commands: ['analyze'],
+    description: 'Coverage-efficiency thresholds in dB below the total scan pattern peak.',
+    defaultText: 'none' },
+  { name: 'limits', short: 'l', value: 'file|profile', commands: ['analyze'],
+    description: 'Limit set: a YAML/JSON file or a shipped profile name (see `spherecov limits`).',
+    defaultText: 'none (verdict "none")' },
+  { name: 'quantity', value: 'name', choices: ['eirp', 'eis', 'gain'], commands: ['analyze', 'inspect'],
+    description: 'What the values are; overrides detection from headers and metadata.' },
+  { name: 'pdf', negated: true, commands: ['analyze'],
+    description: 'Skip the PDF reports (JSON and CSV only, for speed).' },
+  { name: 'jobs', short: 'j', value: 'n', commands: ['analyze'],
+    description: 'Units analyzed in parallel on worker threads.', defaultText: 'number of cores' },
+  { name: 'job', value: 'file', commands: ['analyze', 'inspect'],
+    description: 'Job file with column mapping and settings.', defaultText: 'spherecov.yaml|yml|json in the input folder' },
+  { name: 'reference', value: 'unit', commands: ['analyze'],
+    description: 'Unit to compare every other unit against (deltas in results.json).' },
+  { name: 'page-size', value: 'size', choices: ['a4', 'letter'], commands: ['analyze'],
+    description: 'Paper size of the PDF reports.', defaultText: 'a4' },
+  { name: 'creation-date', value: 'iso', commands: ['analyze'],
+    description: 'Fixed timestamp (ISO 8601) for results.json and PDFs, for reproducible outputs.',
+    defaultText: 'now' },
+  { name: 'json', commands: ['analyze', 'inspect'],
+    description: 'Also write the results (analyze) or the report (inspect) as JSON to stdout.' },
+  { name: 'quiet', short: 'q', commands: ['analyze'],
+    description: 'No progress line on stderr.' },
+  { name: 'force', commands: ['analyze'],
+    description: 'Allow an output folder inside the input folder.' },
+];
+
+/** Options of one command, in declaration order. */
+export function optionsFor(command: CommandName): OptionSpec[] {
+  return OPTIONS.filter((o) => o.commands.includes(command));
+}
+
+/** The flag text as the user types it, e.g. `-l, --limits <file|profile>` or `--no-pdf`. */
+export function flagText(o: OptionSpec): string {
+  const long = o.negated ? `--no-${o.name}` : `--${o.name}`;
+  const withValue = o.value ? `${long} <${o.value}>` : long;
+  return o.short ? `-${o.short}, ${withValue}` : withValue;
+}
+
+/** Markdown table of every option (README "Options" section). */
+export function renderOptionsTable(): string {
+  const esc = (s: string) => s.replace(/\|/g, '\\|');
+  const lines = ['| option | commands | what it does | default |', '|---|---|---|---|'];
+  for (const o of OPTIONS) {
+    const choices = o.choices ? ` One of ${o.choices.map((c) => `\`${c}\``).join(', ')}.` : '';
+    const req = o.required ? ' Required.' : '';
+    lines.push(
+      `| \`${esc(flagText(o))}\` | ${o.commands.join(', ')} | ${esc(o.description + choices + req)} | ${esc(o.defaultText ?? '')} |`,
+    );
+  }
+  return lines.join('\n') + '\n';
+}
+
+/**
+ * Join a value that starts with a dash to its option (`--coverage-thresholds -88,-85` becomes
+ * `--coverage-thresholds=-88,-85`) so a negative number is never mistaken for an option flag.
+ * Only tokens after a value-taking option, and only when they look like a number or a number list.
+ */
+export function joinNegativeValues(argv: string[]): string[] {
+  const byLong = new Map<string, OptionSpec>();
+  const byShort = new Map<string, OptionSpec>();
+  for (const o of OPTIONS) {
+    if (!o.value) continue;
+    byLong.set(`--${o.name}`, o);
+    if (o.short) byShort.set(`-${o.short}`, o);
+  }
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    if (a === '--') {
+      out.push(...argv.slice(i));
+      break;
+    }
+    const next = argv[i + 1];
+    if ((byLong.has(a) || byShort.has(a)) && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+      out.push(byLong.has(a) ? `${a}=${next}` : `${a}${next}`);
+      i++;
+    } else out.push(a);
+  }
+  return out;
+}

@@ -1,0 +1,57 @@
+/**
+ * Option value parsing: plain-words UsageError on bad values, never a stack trace.
+ */
+
+/** A problem with the command line; the CLI prints the message and exits with code 2. */
+export class UsageError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'UsageError';
+  }
+}
+
+/**
+ * Parse a comma-separated list of finite numbers (`-88,-85`, `10, 12.5`).
+ * @throws UsageError naming the option and the offending item.
+ */
+export function parseNumberList(text: string, option: string): number[] {
+  const items = text.split(',').map((s) => s.trim());
+  if (items.length === 0 || items.every((s) => s === '')) {
+    throw new UsageError(`--${option}: found '${text}', expected a comma-separated list of numbers`);
+  }
+  return items.map((s) => {
+    const v = s === '' ? NaN : Number(s);
+    if (!Number.isFinite(v)) {
+      throw new UsageError(`--${option}: found '${s}', expected a number (e.g. --${option} 10,12.5 or -88,-85)`);
+    }
+    return v;
+  });
+}
+
+/** Percentile levels: numbers in [0, 100]. */
+export function parsePercentiles(text: string): number[] {
+  const list = parseNumberList(text, 'percentiles');
+  for (const p of list) {
+    if (p < 0 || p > 100) throw new UsageError(`--percentiles: found '${p}', expected a level between 0 and 100 %`);
+  }
+  return list;
+}
+
+/** Worker count: a whole number ≥ 1. */
+export function parseJobs(text: string): number {
+  const n = Number(text);
+  if (!/^\s*\d+\s*$/.test(text) || !Number.isInteger(n) || n < 1) {
+    throw new UsageError(`--jobs: found '${text}', expected a whole number of at least 1`);
+  }
+  return n;
+}
+
+/** An ISO 8601 date or date-time, normalized to `toISOString()` form. */
+export function parseIsoDate(text: string): string {
+  const ok = /^\d{4}-\d{2}-\d{2}([T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:?\d{2})?)?$/.test(text.trim());
+  const t = Date.parse(text);
+  if (!ok || !Number.isFinite(t)) {
+    throw new UsageError(`--creation-date: found '${text}', expected an ISO 8601 date such as 2025-01-31T12:00:00Z`);
+  }
+  return new Date(t).toISOString();
+}
