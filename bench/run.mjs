@@ -1,0 +1,277 @@
+#!/usr/bin/env node
+// `npm run bench [-- --quick] [-- --peer] [-- --reps N]`: the speed and memory benchmark (issue 7).
+// Generates (and caches) its data, measures every stage as whole child processes (wall time and
+// peak RSS) in rotating order against the read-and-count floor, and prints one table. It is a
+// report: the exit code is 0 even when a target is missed (2 only for a usage error).
+import { spawnSync } from 'node:child_process';
+import { cpus } from 'node:os';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { parseArgs, USAGE, wants } from './lib/args.mjs';
+import { buildFolder, dataPlan, longExport, outDir, pickGenerator } from './lib/data.mjs';
+import { comparePeer, renderComparison } from './lib/compare.mjs';
+import { alternate, runMeasured } from './lib/proc.mjs';
+import { cliAvailable, findExport, repoDir } from './lib/resolve.mjs';
+import { median, pairedRatio } from './lib/stats.mjs';
+import { renderTable, row } from './lib/table.mjs';
+
+const bench = (f) => join(repoDir, 'bench', f);
+const PEER = '/work/shared/bench/peer.py';
+const MIB = 1024;
+const log = (s) => process.stderr.write(`[bench] ${s}\n`);
+
+let o;
+try {
+  o = parseArgs(process.argv.slice(2));
+} catch (e) {
+  process.stderr.write(`${e.message}\n`);
+  process.exit(2);
+}
+if (o.help) {
+  process.stdout.write(`${USAGE}\n`);
+  process.exit(0);
+}
+
+const rows = [];
+const raw = { options: o, startedAt: new Date().toISOString() };
+const runsDir = join(outDir, 'runs');
+mkdirSync(runsDir, { recursive: true });
+
+// ---- build (others' half-finished files may make tsc report errors; dist is used as it is) ----
+if (o.build) {
+  log('building (tsc -p tsconfig.json) …');
+  const r = spawnSync(process.execPath, [join(repoDir, 'node_modules/typescript/bin/tsc'), '-p', 'tsconfig.json'], { cwd: repoDir, encoding: 'utf8' });
+  if (r.status !== 0) {
+    const n = (r.stdout.match(/error TS/g) ?? []).length;
+    log(`build reported ${n} type error(s) (work in progress elsewhere?); using dist/ as emitted`);
+    raw.buildErrors = n;
+  }
+}
+
+// ---- what exists ----
+const have = {
+  cli: cliAvailable(),
+  read: !!(await findExport('readExportFile')).fn,
+  measure: !!(await findExport('computeMetrics')).fn,
+  pdf: !!(await findExport('renderUnitPdf')).fn,
+};
+raw.available = have;
+log(`available: ${Object.entries(have).map(([k, v]) => `${k} ${v ? 'yes' : 'no'}`).join(', ')}`);
+const NO_CLI = 'not available yet (dist/cli/main.js missing)';
+
+// ---- data ----
+const generator = pickGenerator();
+const plan = dataPlan(o.quick);
+const long = await longExport(plan.long, generator, log);
+const long4x = wants(o, 'growth') ? await longExport(plan.long4x, generator, log) : null;
+const build = wants(o, 'build') || wants(o, 'pdf') ? await buildFolder(plan.build, generator, log) : null;
+raw.data = { generator, long, long4x, build, plan };
+
+// ---- workloads ----
+const floorRun = (file) => runMeasured('node', [bench('floor.mjs'), file]);
+const stageRun = async (script, args) => {
+  const r = await runMeasured('node', [bench(script), ...args], { cwd: repoDir });
+  const line = r.stdout.trim().split('\n').reverse().find((l) => l.startsWith('{'));
+  return { ...r, result: line ? JSON.parse(line) : { error: r.stderr.trim().split('\n').slice(-3).join(' | ') || `exit ${r.code}` } };
+};
+const ANALYZE_ARGS = ['--percentiles', '0,10,50,90,100', '--coverage-thresholds', '10,20,25'];
+const cliRun = async (input, name, extra) => {
+  const out = join(runsDir, name);
+  rmSync(out, { recursive: true, force: true });
+  const r = await runMeasured('node', [join(repoDir, 'bin/spherecov.js'), 'analyze', input, '--out', out, ...ANALYZE_ARGS, ...extra], { cwd: repoDir });
+  const resultsPath = join(out, 'results.json');
+  const ok = (r.code === 0 || r.code === 1) && existsSync(resultsPath);
+  return { ...r, ok, out, resultsPath, why: ok ? '' : `exit ${r.code ?? r.signal}: ${r.stderr.trim().split('\n').slice(0, 2).join(' | ')}` };
+};
+const walls = (rs) => rs.map((r) => (r.ok === false ? NaN : r.wallS));
+const rssMiB = (rs) => median(rs.map((r) => (r.ok === false || r.maxRssKiB === null ? NaN : r.maxRssKiB / MIB)));
+const failure = (rs) => rs.find((r) => r.ok === false)?.why ?? '';
+const keep = (r) => (o.keep ? null : rmSync(r.out, { recursive: true, force: true }));
+
+log('warming the page cache (one untimed floor read per file) …');
+for (const f of [long, long4x].filter(Boolean)) await floorRun(f.path);
+
+const mb = long.bytes / 1e6;
+const sizeNote = `${long.rows.toLocaleString('en-US')} rows, ${mb.toFixed(1)} MB`;
+
+// ---- floor, reading, whole CLI on the long export (rotating order, paired) ----
+let cliOnLong = null;
+if (wants(o, 'floor') || wants(o, 'read') || wants(o, 'cli')) {
+  const w = { floor: () => floorRun(long.path) };
+  if (wants(o, 'read') && have.read) w.read = () => stageRun('stage-read.mjs', [long.path]);
+  if (wants(o, 'cli') && have.cli) w.cli = () => cliRun(long.path, 'long', ['--no-pdf']);
+  log(`floor${w.read ? ' / read' : ''}${w.cli ? ' / cli' : ''} on ${sizeNote}: ${o.reps} rep(s) …`);
+  const res = await alternate(o.reps, w);
+  raw.long = res;
+  const floorWall = median(walls(res.floor));
+  const floorCounted = JSON.parse(res.floor[0].stdout || '{}');
+  rows.push(row('floor', `read + count newlines, wall (${sizeNote})`, floorWall, { unit: 's' }));
+  rows.push(row('floor', 'read + count newlines, throughput', mb / floorWall, { unit: 'MB/s', digits: 1 }));
+  rows.push(row('floor', 'read + count newlines, peak RSS', rssMiB(res.floor), { unit: 'MiB', digits: 1 }));
+  if (floorCounted.newlines !== long.rows + 1) log(`note: floor counted ${floorCounted.newlines} newlines, expected ${long.rows + 1}`);
+
+  if (wants(o, 'read')) {
+    if (!w.read) rows.push(row('read', 'readExportFile', null, { note: 'not available yet (dist/io readExportFile missing)' }));
+    else {
+      const rr = res.read.map((r) => r.result);
+      const bad = rr.find((r) => r.error || r.readS === undefined);
+      if (bad) rows.push(row('read', 'readExportFile', null, { note: `failed: ${bad.error}` }));
+      else {
+        const readS = median(rr.map((r) => r.readS));
+        rows.push(row('read', 'readExportFile, in-process', readS, { unit: 's' }));
+        rows.push(row('read', 'throughput', mb / readS, { unit: 'MB/s', digits: 1 }));
+        rows.push(row('read', 'rows/s', rr[0].rows / readS, { digits: 0 }));
+        if (rr[0].rows !== long.rows || rr[0].errors) rows.push(row('read', 'rows read (expected ' + long.rows + ')', rr[0].rows, { digits: 0, note: `${rr[0].errors} error(s): ${rr[0].firstError ?? ''}` }));
+        if (rr[0].assembleS !== undefined) rows.push(row('read', 'assembleMeasurements (grid, merge)', median(rr.map((r) => r.assembleS)), { unit: 's' }));
+        rows.push(row('read', 'whole process, wall / floor', pairedRatio(walls(res.read), walls(res.floor)), { digits: 2 }));
+        rows.push(row('read', 'whole process, peak RSS', rssMiB(res.read), { unit: 'MiB', digits: 1 }));
+        raw.readS = readS;
+      }
+    }
+  }
+  if (wants(o, 'cli')) {
+    if (!w.cli) rows.push(row('cli', 'analyze <file> --no-pdf', null, { note: NO_CLI }));
+    else if (failure(res.cli)) rows.push(row('cli', 'analyze <file> --no-pdf', null, { note: `failed: ${failure(res.cli)}` }));
+    else {
+      cliOnLong = res.cli;
+      rows.push(row('cli', 'analyze <file> --no-pdf, wall', median(walls(res.cli)), { unit: 's' }));
+      rows.push(row('cli', 'wall / floor (paired)', pairedRatio(walls(res.cli), walls(res.floor)), { target: { op: '<=', limit: 3.5 }, digits: 2 }));
+      rows.push(row('cli', 'peak RSS', rssMiB(res.cli), { target: { op: '<=', limit: 150 }, unit: 'MiB', digits: 1 }));
+      res.cli.slice(0, -1).forEach(keep);
+    }
+  }
+}
+
+// ---- measuring: computeMetrics on 64 beams × the 1° grid ----
+if (wants(o, 'measure')) {
+  if (!have.measure) rows.push(row('measure', 'computeMetrics', null, { note: 'not available yet (dist/coverage computeMetrics missing)' }));
+  else {
+    log('measure: computeMetrics …');
+    const r = (await stageRun('stage-measure.mjs', [long.path, String(Math.max(5, o.reps))])).result;
+    raw.measure = r;
+    if (r.error) rows.push(row('measure', 'computeMetrics', null, { note: `${r.unavailable ? '' : 'failed: '}${r.error}` }));
+    else {
+      rows.push(row('measure', `computeMetrics, ${r.beams} beams × ${r.points.toLocaleString('en-US')} points (${r.source})`, r.computeS, { unit: 's', digits: 4 }));
+      rows.push(row('measure', 'points/s (beams × points / s)', r.pointsPerS, { digits: 0 }));
+      if (raw.readS) rows.push(row('measure', "computeMetrics / readExportFile (our reading of 'a small fraction')", r.computeS / raw.readS, { target: { op: '<=', limit: 0.25 }, digits: 3 }));
+    }
+  }
+}
+
+// ---- memory growth: a 4× longer file ----
+if (wants(o, 'growth')) {
+  const note4 = `${long4x.rows.toLocaleString('en-US')} rows, ${(long4x.bytes / 1e6).toFixed(1)} MB`;
+  if (!have.cli) rows.push(row('growth', '4× longer file, peak RSS ratio', null, { note: NO_CLI }));
+  else {
+    log(`growth: floor / cli on the 4× file (${note4}): ${o.reps} rep(s) …`);
+    const res = await alternate(o.reps, { floor: () => floorRun(long4x.path), cli: () => cliRun(long4x.path, 'long4x', ['--no-pdf']) });
+    raw.long4x = res;
+    if (failure(res.cli)) rows.push(row('growth', '4× longer file', null, { note: `failed: ${failure(res.cli)}` }));
+    else {
+      rows.push(row('growth', `analyze 4× file --no-pdf, wall (${note4})`, median(walls(res.cli)), { unit: 's' }));
+      rows.push(row('growth', '4× file: wall / floor (paired)', pairedRatio(walls(res.cli), walls(res.floor)), { digits: 2 }));
+      rows.push(row('growth', '4× file: peak RSS', rssMiB(res.cli), { unit: 'MiB', digits: 1 }));
+      if (cliOnLong) rows.push(row('growth', 'peak RSS, 4× file / 1× file', rssMiB(res.cli) / rssMiB(cliOnLong), { target: { op: '<', limit: 2 }, digits: 2 }));
+      else rows.push(row('growth', 'peak RSS, 4× file / 1× file', null, { note: 'needs the cli stage on the 1× file' }));
+      res.cli.forEach(keep);
+    }
+  }
+}
+
+// ---- a build of units: --jobs 2 vs --jobs 1, and what the PDFs add ----
+if (wants(o, 'build') || wants(o, 'pdf')) {
+  const n = build.units;
+  const bnote = `${n} units × ${plan.build.beams} beams, ${plan.build.step}° grid`;
+  if (!have.cli) rows.push(row('build', `--jobs 2 / --jobs 1 (${bnote})`, null, { note: NO_CLI }));
+  else {
+    log(`build: ${bnote}, --jobs 1 / --jobs 2 with PDFs and --jobs 1 --no-pdf: ${o.reps} rep(s) …`);
+    const res = await alternate(o.reps, {
+      j1: () => cliRun(build.path, 'build-j1', ['--jobs', '1']),
+      j2: () => cliRun(build.path, 'build-j2', ['--jobs', '2']),
+      j1nopdf: () => cliRun(build.path, 'build-j1-nopdf', ['--jobs', '1', '--no-pdf']),
+    });
+    raw.build = res;
+    const why = failure(res.j1) || failure(res.j2) || failure(res.j1nopdf);
+    if (why) rows.push(row('build', `--jobs 2 / --jobs 1 (${bnote})`, null, { note: `failed: ${why}` }));
+    else {
+      rows.push(row('build', `--jobs 1 with PDFs, wall (${bnote})`, median(walls(res.j1)), { unit: 's' }));
+      rows.push(row('build', '--jobs 2 / --jobs 1 (paired)', pairedRatio(walls(res.j2), walls(res.j1)), { target: { op: '<=', limit: 0.6 }, digits: 2 }));
+      rows.push(row('build', '--jobs 2, peak RSS', rssMiB(res.j2), { unit: 'MiB', digits: 1 }));
+      const added = [];
+      for (let i = 0; i < o.reps; i++) added.push((res.j1[i].wallS - res.j1nopdf[i].wallS) / n);
+      rows.push(row('pdf', 'PDF time added per unit (CLI --jobs 1, with vs --no-pdf, incl. build PDF share)', median(added), { target: { op: '<=', limit: 0.3 }, unit: 's' }));
+      for (const k of ['j1', 'j2', 'j1nopdf']) res[k].forEach(keep);
+    }
+  }
+  if (wants(o, 'pdf')) {
+    if (!have.cli || !have.pdf || !have.read) rows.push(row('pdf', 'renderUnitPdf, in-process', null, { note: `not available yet (${[!have.cli && 'cli', !have.pdf && 'renderUnitPdf', !have.read && 'readers'].filter(Boolean).join(', ')} missing)` }));
+    else {
+      log('pdf: renderUnitPdf in-process on unit-01 …');
+      const one = await cliRun(build.firstUnit, 'unit-01', ['--no-pdf']);
+      if (!one.ok) rows.push(row('pdf', 'renderUnitPdf, in-process', null, { note: `failed: ${one.why}` }));
+      else {
+        const r = (await stageRun('stage-pdf.mjs', [build.firstUnit, one.resultsPath, String(Math.max(3, o.reps))])).result;
+        raw.pdf = r;
+        if (r.error) rows.push(row('pdf', 'renderUnitPdf, in-process', null, { note: `failed: ${r.error}` }));
+        else {
+          rows.push(row('pdf', `renderUnitPdf, ${r.beams} beams × ${r.points} points, first call (fonts)`, r.firstS, { unit: 's' }));
+          rows.push(row('pdf', 'renderUnitPdf, steady state (median)', r.pdfS, { target: { op: '<=', limit: 0.3 }, unit: 's' }));
+        }
+        keep(one);
+      }
+    }
+  }
+}
+
+// ---- the pandas peer, alternately with spherecov on the same file ----
+let comparison = null;
+if (wants(o, 'peer')) {
+  const pyOk = existsSync(PEER) && spawnSync('/usr/bin/python3', ['-c', 'import pandas'], { stdio: 'ignore' }).status === 0;
+  if (!pyOk) rows.push(row('peer', 'cli / pandas peer', null, { note: 'not available (/usr/bin/python3 with pandas, or peer.py, missing)' }));
+  else if (!have.cli) rows.push(row('peer', 'cli / pandas peer', null, { note: NO_CLI }));
+  else {
+    log(`peer: pandas peer / cli on ${sizeNote}: ${o.reps} rep(s) …`);
+    const res = await alternate(o.reps, {
+      peer: async () => {
+        const r = await runMeasured('python', [PEER, long.path]);
+        return { ...r, ok: r.code === 0, why: r.code === 0 ? '' : r.stderr.trim().split('\n').pop() };
+      },
+      cli: () => cliRun(long.path, 'long-peer', ['--no-pdf']),
+    });
+    raw.peer = res;
+    const why = failure(res.peer) || failure(res.cli);
+    if (why) rows.push(row('peer', 'cli / pandas peer', null, { note: `failed: ${why}` }));
+    else {
+      const ratio = pairedRatio(walls(res.cli), walls(res.peer));
+      rows.push(row('peer', 'pandas peer, wall', median(walls(res.peer)), { unit: 's' }));
+      rows.push(row('peer', 'pandas peer, peak RSS', rssMiB(res.peer), { unit: 'MiB', digits: 1 }));
+      rows.push(row('peer', 'cli wall / peer wall (paired)', ratio, { target: { op: '<=', limit: 0.4 }, digits: 3 }));
+      rows.push(row('peer', 'cli wall / peer wall, stretch', ratio, { target: { op: '<=', limit: 0.33 }, digits: 3 }));
+      const peerJson = JSON.parse(res.peer.at(-1).stdout);
+      const results = JSON.parse(readFileSync(res.cli.at(-1).resultsPath, 'utf8'));
+      const unit = results.units?.[0];
+      if (!unit) rows.push(row('peer', 'cross-check', null, { note: 'results.json has no unit' }));
+      else {
+        const cmp = comparePeer(peerJson, unit);
+        comparison = renderComparison(cmp, peerJson.points, unit.grid?.points);
+        raw.comparison = cmp;
+        const judged = cmp.filter((c) => c.agree !== null);
+        rows.push(row('peer', `cross-check: quantities differing beyond tolerance (of ${judged.length})`, judged.filter((c) => !c.agree).length, { target: { op: '<=', limit: 0 }, digits: 0 }));
+      }
+      res.cli.forEach(keep);
+    }
+  }
+}
+
+// ---- report ----
+const header = [
+  `spherecov benchmark — ${raw.startedAt}`,
+  `node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? '?'}), ${o.reps} rep(s) per process, rotating order; medians`,
+  `data: ${generator}; long export ${sizeNote}; peak RSS via process.resourceUsage().maxRSS / getrusage in the child`,
+  o.quick ? 'QUICK RUN: smaller files, one repetition — the targets are for the full-size files, so these statuses are indicative only' : '',
+].filter(Boolean);
+const text = `${header.join('\n')}\n\n${renderTable(rows)}\n${comparison ? `\n${comparison}\n` : ''}`;
+process.stdout.write(text);
+writeFileSync(join(outDir, 'last-run.txt'), text);
+writeFileSync(join(outDir, 'last-run.json'), JSON.stringify({ ...raw, rows }, (k, v) => (k === 'stdout' || k === 'stderr' ? undefined : v), 1));
+process.exitCode = 0;
