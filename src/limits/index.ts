@@ -2,7 +2,7 @@
 export type { LimitSet, LimitCheck, CheckDraft, PeakCheck, PercentileCheck, CoverageCheck, BeamPeakCheck, ProfileInfo } from './limitSet.js';
 export { CHECK_KINDS } from './limitSet.js';
 export { checkBound, kindAllowed, defaultCheckName, quantityUnit } from './checkSense.js';
-export { validateLimitSet, validateChecks, formatKeyPath, type KeyPath, type Locate } from './validateLimitSet.js';
+export { validateLimitSet, validateChecks, validateExtraChecks, errorSink, formatKeyPath, UNKNOWN_KEY, type KeyPath, type Locate, type Fail } from './validateLimitSet.js';
 export { parseLimitSetText } from './parseLimitSet.js';
 export { loadLimitSet } from './loadLimitSet.js';
 export { listProfiles } from './listProfiles.js';

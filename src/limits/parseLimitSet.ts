@@ -1,4 +1,4 @@
-import { LineCounter, parseDocument, isNode } from 'yaml';
+import { LineCounter, parseDocument, isMap, isNode, isScalar } from 'yaml';
 import type { InputError } from '../types.js';
 import type { LimitSet } from './limitSet.js';
 import { validateLimitSet, type KeyPath } from './validateLimitSet.js';
@@ -23,7 +23,15 @@ export function parseLimitSetText(text: string, file: string): { limitSet: Limit
       }),
     };
   }
-  const locate = (path: KeyPath): { line: number; column: number } | undefined => {
+  const locate = (path: KeyPath, atKey = false): { line: number; column: number } | undefined => {
+    if (atKey && path.length > 0) {
+      const parent = path.length === 1 ? doc.contents : doc.getIn(path.slice(0, -1), true);
+      const pair = isMap(parent) ? parent.items.find((it) => isScalar(it.key) && it.key.value === path[path.length - 1]) : undefined;
+      if (pair && isNode(pair.key) && pair.key.range) {
+        const pos = lineCounter.linePos(pair.key.range[0]);
+        return { line: pos.line, column: pos.col };
+      }
+    }
     // A missing key has no node: point at the closest existing parent instead.
     for (let n = path.length; n >= 0; n--) {
       const node = n === 0 ? doc.contents : doc.getIn(path.slice(0, n), true);

@@ -5,7 +5,10 @@ import { defaultCheckName, kindAllowed } from './checkSense.js';
 /** Key path inside a parsed file, e.g. ['checks', 2, 'limit']. */
 export type KeyPath = (string | number)[];
 /** Maps a key path to its position in the source text (1-based), when known. */
-export type Locate = (path: KeyPath) => { line: number; column: number } | undefined;
+export type Locate = (path: KeyPath, atKey?: boolean) => { line: number; column: number } | undefined;
+
+/** Stands for "the key itself is wrong" in error messages (points at the key, not its value). */
+export const UNKNOWN_KEY = Symbol('unknown key');
 
 const QUANTITIES: readonly Quantity[] = ['eirp', 'eis', 'gain'];
 const TOP_KEYS = ['name', 'description', 'source', 'quantity', 'band', 'frequencyRangeMHz', 'checks'];
@@ -23,6 +26,7 @@ export function formatKeyPath(path: KeyPath): string {
 }
 
 function describeFound(v: unknown): string {
+  if (v === UNKNOWN_KEY) return 'an unknown key';
   if (v === undefined) return 'nothing';
   if (v === null) return "'null'";
   if (Array.isArray(v)) return 'a list';
@@ -42,20 +46,13 @@ function describeFound(v: unknown): string {
 export function validateLimitSet(raw: unknown, file: string, locate: Locate = () => undefined):
   { limitSet: LimitSet | null; errors: InputError[] } {
   const errors: InputError[] = [];
-  const fail = (path: KeyPath, found: unknown, expected: string): void => {
-    const key = formatKeyPath(path);
-    const at = locate(path);
-    errors.push({
-      file, ...(at ? { line: at.line, column: at.column } : {}), columnName: key,
-      message: `${key || '(top level)'}: found ${describeFound(found)}, expected ${expected}`,
-    });
-  };
+  const fail = errorSink(file, locate, errors);
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
     fail([], raw, 'a mapping with name, quantity and checks');
     return { limitSet: null, errors };
   }
   const top = raw as Record<string, unknown>;
-  for (const k of Object.keys(top)) if (!TOP_KEYS.includes(k)) fail([k], 'an unknown key', `one of ${TOP_KEYS.join(', ')}`);
+  for (const k of Object.keys(top)) if (!TOP_KEYS.includes(k)) fail([k], UNKNOWN_KEY, `one of ${TOP_KEYS.join(', ')}`);
   const name = str(top, ['name'], true, fail);
   const description = str(top, ['description'], false, fail) ?? '';
   const source = str(top, ['source'], false, fail) ?? 'no source given';
@@ -81,7 +78,36 @@ export function validateLimitSet(raw: unknown, file: string, locate: Locate = ()
   return { limitSet: ls, errors };
 }
 
-type Fail = (path: KeyPath, found: unknown, expected: string) => void;
+export type Fail = (path: KeyPath, found: unknown, expected: string) => void;
+
+/** A `fail` callback that appends InputErrors in the project's grammar to `errors`. */
+export function errorSink(file: string, locate: Locate, errors: InputError[]): Fail {
+  return (path, found, expected) => {
+    const key = formatKeyPath(path);
+    const at = locate(path, found === UNKNOWN_KEY);
+    errors.push({
+      file, ...(at ? { line: at.line, column: at.column } : {}), columnName: key,
+      message: `${key || '(top level)'}: found ${describeFound(found)}, expected ${expected}`,
+    });
+  };
+}
+
+/**
+ * Validate a job file's extra (programme) checks, e.g. its `limits.extraChecks` list, for
+ * mergeLimitSets. `basePath` is where the list sits in the job file, for the error key paths.
+ * @example validateExtraChecks([{ kind: 'min-peak', limit: 24 }], 'job.yaml', 'eirp').errors // []
+ */
+export function validateExtraChecks(raw: unknown, file: string, quantity: Quantity,
+  basePath: KeyPath = ['limits', 'extraChecks'], locate: Locate = () => undefined): { checks: LimitCheck[]; errors: InputError[] } {
+  const errors: InputError[] = [];
+  const fail = errorSink(file, locate, errors);
+  if (!Array.isArray(raw)) {
+    fail(basePath, raw, 'a list of checks');
+    return { checks: [], errors };
+  }
+  const checks = validateChecks(raw, basePath, quantity, fail);
+  return { checks: errors.length ? [] : checks, errors };
+}
 
 function isNum(v: unknown): v is number {
   return typeof v === 'number' && Number.isFinite(v);
@@ -120,7 +146,7 @@ export function validateChecks(rawChecks: unknown[], base: KeyPath, quantity: Qu
       return fail([...p, 'kind'], kind, `a check kind that applies to ${quantity} (${ok})`);
     }
     const allowed = [...COMMON_KEYS, ...KIND_KEYS[kind]];
-    for (const k of Object.keys(c)) if (!allowed.includes(k)) fail([...p, k], 'an unknown key', `one of ${allowed.join(', ')} for kind ${kind}`);
+    for (const k of Object.keys(c)) if (!allowed.includes(k)) fail([...p, k], UNKNOWN_KEY, `one of ${allowed.join(', ')} for kind ${kind}`);
     const before = out.length;
     const toleranceDb = c.toleranceDb === undefined ? 0
       : num(c, [...p, 'toleranceDb'], fail, 0, 30, 'a test tolerance in dB between 0 and 30');
