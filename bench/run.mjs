@@ -49,15 +49,16 @@ if (o.build) {
 }
 
 // ---- what exists ----
+const cliProbe = cliAvailable();
 const have = {
-  cli: cliAvailable(),
+  cli: cliProbe.ok,
   read: !!(await findExport('readExportFile')).fn,
   measure: !!(await findExport('computeMetrics')).fn,
   pdf: !!(await findExport('renderUnitPdf')).fn,
 };
 raw.available = have;
 log(`available: ${Object.entries(have).map(([k, v]) => `${k} ${v ? 'yes' : 'no'}`).join(', ')}`);
-const NO_CLI = 'not available yet (dist/cli/main.js missing)';
+const NO_CLI = `not available yet (${cliProbe.why})`;
 
 // ---- data ----
 const generator = pickGenerator();

@@ -1,5 +1,6 @@
 // Find the project's compiled functions in dist/ as they land. Each stage names the export it
 // needs and the files it may live in; a missing file or export means "not available yet".
+import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -51,7 +52,14 @@ export async function need(...names) {
   return out;
 }
 
-/** The CLI is runnable when the launcher's target exists. */
+/**
+ * Is the CLI runnable? Its compiled entry must exist and `spherecov --help` must start (a missing
+ * module behind it means another stage has not landed yet). Resolves to { ok, why }.
+ */
 export function cliAvailable() {
-  return existsSync(join(repoDir, 'dist/cli/main.js'));
+  if (!existsSync(join(repoDir, 'dist/cli/main.js'))) return { ok: false, why: 'dist/cli/main.js missing' };
+  const r = spawnSync(process.execPath, [join(repoDir, 'bin/spherecov.js'), '--help'], { cwd: repoDir, encoding: 'utf8', timeout: 60_000 });
+  if (r.status === 0) return { ok: true, why: '' };
+  const line = (r.stderr || r.stdout || '').split('\n').find((l) => /Error|error/.test(l)) ?? `exit ${r.status}`;
+  return { ok: false, why: `the CLI does not start: ${line.trim().slice(0, 160)}` };
 }

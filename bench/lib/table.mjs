@@ -12,10 +12,10 @@ export function row(stage, metric, value, { target = null, digits = 3, unit = ''
   return {
     stage,
     metric,
-    value: value === null || value === undefined ? note || 'not available' : fmt(value, digits) + (unit ? ` ${unit}` : ''),
+    value: value === null || value === undefined ? '—' : fmt(value, digits) + (unit ? ` ${unit}` : ''),
     target: target ? `${target.op} ${target.limit}${unit && target.unitShown !== false ? ` ${unit}` : ''}` : '',
     status,
-    note: value === null || value === undefined ? '' : note,
+    note: value === null || value === undefined ? note || 'not available' : note,
   };
 }
 
@@ -53,7 +53,7 @@ export function renderTable(rows) {
   const na = rows.filter((r) => r.status === 'n/a');
   if (na.length) {
     out.push('');
-    for (const r of na) out.push(`not measured: ${r.stage} / ${r.metric}: ${r.value}`);
+    for (const r of na) out.push(`not measured: ${r.stage} / ${r.metric}: ${r.note}`);
   }
   return out.join('\n');
 }
