@@ -1,0 +1,52 @@
+import type { CoverageMetrics, Measurement, TotalScanPattern } from '../types.js';
+import { isFullSphere } from '../sphere/isFullSphere.js';
+import { beamPeak } from './beamPeak.js';
+import { bestShares } from './bestShares.js';
+import { coverageAt, relativeCoverage } from './coverageEfficiency.js';
+import { coverageCurve } from './coverageCurve.js';
+import { percentile } from './percentile.js';
+import { totalScanPattern } from './totalScanPattern.js';
+import { beamTrpDbm } from './trp.js';
+import { weightedCdf } from './weightedCdf.js';
+
+export interface MetricOptions {
+  /** CDF levels, % in [0, 100]. */
+  percentilesPct: number[];
+  /** Absolute coverage thresholds in the value's unit. */
+  thresholds: number[];
+  /** Coverage thresholds in dB below the TSP peak (above the best EIS for eis). */
+  relativeDb: number[];
+  /** Step of the coverage-efficiency curve, dB (default 0.1). */
+  curveStepDb?: number;
+}
+
+/**
+ * Every coverage metric of one measurement: combine (total scan pattern), then measure
+ * (weighted CDF, percentiles, coverage efficiency absolute/relative/curve, peak, per-beam
+ * peak, TRP on a full sphere for eirp/gain, best share). Definitions in the called functions.
+ * Cost O(points·beams + points·log points); the CDF sort is the only sort.
+ * @throws RangeError for a level outside [0, 100] (from percentile).
+ * @example computeMetrics(m, { percentilesPct: [50], thresholds: [10], relativeDb: [3] }).metrics.peak
+ */
+export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: TotalScanPattern; metrics: CoverageMetrics } {
+  const { grid, quantity } = m;
+  const tsp = totalScanPattern(m.beams.map((b) => b.values), quantity);
+  const cdf = weightedCdf(tsp.values, grid.weightSr);
+  const full = isFullSphere(grid);
+  const shares = bestShares(tsp.bestBeam, grid.weightSr, m.beams.length, grid.solidAngleSr);
+  const metrics: CoverageMetrics = {
+    peak: beamPeak(tsp.values, grid, quantity),
+    percentiles: opts.percentilesPct.map((levelPct) => ({ levelPct, value: percentile(cdf, levelPct, quantity) })),
+    coverage: coverageAt(cdf, opts.thresholds, quantity),
+    relativeCoverage: relativeCoverage(cdf, opts.relativeDb, quantity),
+    curve: coverageCurve(cdf, quantity, opts.curveStepDb),
+    solidAngleSr: grid.solidAngleSr,
+    beams: m.beams.map((b, k) => ({
+      id: b.id,
+      peak: beamPeak(b.values, grid, quantity),
+      trpDbm: quantity === 'eis' ? null : beamTrpDbm(b.values, grid.weightSr, full),
+      bestShare: shares[k],
+    })),
+  };
+  return { tsp, metrics };
+}

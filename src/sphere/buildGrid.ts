@@ -1,0 +1,100 @@
+import type { SphereGrid } from '../types.js';
+import { neumaierSum } from './neumaierSum.js';
+import { detectRegularLayout } from './regularLayout.js';
+import { regularWeights } from './regularWeights.js';
+import { voronoiWeights } from './voronoiWeights.js';
+
+export interface GridBuild {
+  grid: SphereGrid;
+  /** Raw sample index → grid point index. */
+  pointOf: Int32Array;
+  /** Raw samples that were merged into another sample's point (duplicates, seam, poles). */
+  merged: number;
+  /** Voronoi cells limited by the clip cap (scattered partial spheres); 0 for regular grids. */
+  clippedCells: number;
+}
+
+/** Angles are compared after rounding to 1e-5° (0.17 µrad): far below any positioner step. */
+const STEPS_PER_DEG = 1e5;
+const PHI_STEPS = 360 * STEPS_PER_DEG;
+const POLE_S = 180 * STEPS_PER_DEG;
+
+/**
+ * Builds the sphere grid from raw sample directions (degrees).
+ *
+ * 1. φ is normalized to [0, 360) (so −180..180 and 0..360 inputs agree) and both angles are
+ *    rounded to 1e-5°; samples with equal rounded (θ, φ) are one point, and every sample at
+ *    θ = 0 (or 180) is one pole point at φ = 0 — so φ = 0/360 seams and pole rows are never
+ *    double-counted.
+ * 2. Canonical order: θ ascending, then φ ascending.
+ * 3. Regular detection (detectRegularLayout): exact cell weights (regularWeights). Anything
+ *    else is scattered: spherical Voronoi weights (voronoiWeights), clipped beside gaps.
+ * 4. solidAngleSr = Σ weights (Neumaier).
+ * `forceScattered` skips step 3's regular path (for tests and comparisons).
+ * Cost O(n log n) (one index sort; Voronoi for scattered grids).
+ * @throws RangeError when the arrays differ in length, an angle is not finite, θ lies outside
+ *   [0, 180], or a scattered set has fewer than 4 distinct directions.
+ * @example buildSphereGrid(theta, phi).grid.solidAngleSr // 4π for a full 5° grid
+ */
+export function buildSphereGrid(
+  thetaDeg: Float64Array,
+  phiDeg: Float64Array,
+  opts: { forceScattered?: boolean } = {},
+): GridBuild {
+  const n = thetaDeg.length;
+  if (phiDeg.length !== n) throw new RangeError(`buildSphereGrid: ${n} θ values but ${phiDeg.length} φ values`);
+  if (n === 0) throw new RangeError('buildSphereGrid: no directions');
+  const key = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const t = thetaDeg[i];
+    const p = phiDeg[i];
+    if (!Number.isFinite(t) || !Number.isFinite(p) || t < -1e-9 || t > 180 + 1e-9) {
+      throw new RangeError(`buildSphereGrid: direction ${i} (θ ${t}, φ ${p}) is outside θ ∈ [0, 180]`);
+    }
+    const ts = Math.round(Math.min(180, Math.max(0, t)) * STEPS_PER_DEG);
+    let ps = Math.round((((p % 360) + 360) % 360) * STEPS_PER_DEG);
+    if (ps >= PHI_STEPS) ps -= PHI_STEPS;
+    if (ts === 0 || ts === POLE_S) ps = 0;
+    key[i] = ts * PHI_STEPS + ps; // < 2^53: exact
+  }
+  const order = new Uint32Array(n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  order.sort((a, b) => key[a] - key[b]);
+
+  const pointOf = new Int32Array(n);
+  let m = 0;
+  for (let k = 0; k < n; k++) {
+    if (k > 0 && key[order[k]] !== key[order[k - 1]]) m++;
+    pointOf[order[k]] = m;
+  }
+  m++;
+  const thetaU = new Float64Array(m);
+  const phiU = new Float64Array(m);
+  for (let k = 0; k < n; k++) {
+    const i = order[k];
+    const kk = key[i];
+    const ts = Math.floor(kk / PHI_STEPS);
+    thetaU[pointOf[i]] = ts / STEPS_PER_DEG;
+    phiU[pointOf[i]] = (kk - ts * PHI_STEPS) / STEPS_PER_DEG;
+  }
+
+  const regular = opts.forceScattered ? null : detectRegularLayout(thetaU, phiU);
+  let weightSr: Float64Array;
+  let clippedCells = 0;
+  if (regular) {
+    weightSr = regularWeights(regular, m);
+  } else {
+    const v = voronoiWeights(thetaU, phiU);
+    weightSr = v.weightSr;
+    clippedCells = v.clipped;
+  }
+  const grid: SphereGrid = {
+    kind: regular ? 'regular' : 'scattered',
+    thetaDeg: thetaU,
+    phiDeg: phiU,
+    weightSr,
+    solidAngleSr: neumaierSum(weightSr),
+    regular,
+  };
+  return { grid, pointOf, merged: n - m, clippedCells };
+}
