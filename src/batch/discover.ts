@@ -30,7 +30,7 @@ function inside(root: string, p: string): boolean {
  * Find the export files: `.csv`, `.tsv`, `.txt` (any case), recursively; the job file
  * (`spherecov.yaml|yml|json`) and hidden entries (a leading dot) are not exports. Symbolic links
  * are followed only when their target lies inside the input folder (a link out of it could make
- * a run read, and report on, unrelated data); each real folder is visited once (link cycles).
+ * a run read, and report on, unrelated data); each real folder and file is taken once (link cycles, and no beam counted twice).
  * `exclude` holds absolute folders not to enter (the output folder under `--force`).
  * @throws Error when the input does not exist.
  */
@@ -43,6 +43,7 @@ export async function discoverInputs(input: string, exclude: string[] = []): Pro
   const files: string[] = [];
   const skippedLinks: string[] = [];
   const seenDirs = new Set<string>();
+  const seenFiles = new Set<string>();
 
   async function walk(dirAbs: string, dirReal: string): Promise<void> {
     if (seenDirs.has(dirReal) || realExclude.some((e) => inside(e, dirReal))) return;
@@ -72,6 +73,8 @@ export async function discoverInputs(input: string, exclude: string[] = []): Pro
       }
       if (isDir) await walk(p, real);
       else if (isFile && EXPORT_EXT.has(path.extname(ent.name).toLowerCase()) && !JOB_FILES.has(ent.name.toLowerCase())) {
+        if (seenFiles.has(real)) continue;
+        seenFiles.add(real);
         files.push(p);
       }
     }
@@ -105,7 +108,7 @@ export function groupKey(relPosix: string): string {
   const s = stem(relPosix)
     .replace(/(^|[_\-\s.])(beam[_-]?\d+|b\d+)(?=$|[_\-\s.])/gi, '$1')
     .replace(/(^|[_\-\s.])\d+(\.\d+)?\s*ghz(?=$|[_\-\s.])/gi, '$1')
-    .replace(/[_\-\s.]+/g, '_')
-    .replace(/^_+|_+$/g, '');
+    .replace(/([_\-\s.])[_\-\s.]+/g, '$1')
+    .replace(/^[_\-\s.]+|[_\-\s.]+$/g, '');
   return s === '' ? stem(relPosix) : s;
 }

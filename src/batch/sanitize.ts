@@ -20,7 +20,7 @@ const MAX_STEM = 80;
  * @example sanitizeStem('../../etc/passwd') === 'etc_passwd'
  */
 export function sanitizeStem(name: string): string {
-  let s = name.normalize('NFKC').replace(/[^A-Za-z0-9._-]+/g, '_');
+  let s = name.normalize('NFKD').replace(/[\u0300-\u036f]/g, '').replace(/[^A-Za-z0-9._-]+/g, '_');
   s = s.replace(/\.{2,}/g, '_').replace(/_{2,}/g, '_');
   s = s.replace(/^[._-]+/, '').replace(/[._\s]+$/, '');
   if (s.length > MAX_STEM) s = s.slice(0, MAX_STEM).replace(/[._]+$/, '');

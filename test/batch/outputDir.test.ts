@@ -1,0 +1,82 @@
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync, mkdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { MANIFEST_NAME, OutputWriter, outputDirProblem } from '../../src/batch/outputDir.js';
+import { acquireLock, LOCK_NAME, LockBusyError } from '../../src/batch/lock.js';
+
+let dir: string;
+beforeEach(() => {
+  dir = mkdtempSync(path.join(tmpdir(), 'spherecov-outdir-'));
+});
+afterEach(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('OutputWriter', () => {
+  it('writes atomically and leaves no temporary file', async () => {
+    const w = await OutputWriter.open(dir, 'r1');
+    await w.write('a.txt', 'hello');
+    await w.finish();
+    expect(readFileSync(path.join(dir, 'a.txt'), 'utf8')).toBe('hello');
+    expect(readdirSync(dir).sort()).toEqual([MANIFEST_NAME, 'a.txt']);
+  });
+
+  it('a re-run removes the stale outputs it wrote before, and nothing else', async () => {
+    writeFileSync(path.join(dir, 'notes.txt'), 'mine');
+    const w1 = await OutputWriter.open(dir, 'r1');
+    await w1.write('U-01.pdf', 'x');
+    await w1.write('U-02.pdf', 'y');
+    await w1.finish();
+    const w2 = await OutputWriter.open(dir, 'r2');
+    await w2.write('U-01.pdf', 'x2');
+    expect(await w2.finish()).toEqual(['U-02.pdf']);
+    expect(readdirSync(dir).sort()).toEqual([MANIFEST_NAME, 'U-01.pdf', 'notes.txt']);
+    const m = JSON.parse(readFileSync(path.join(dir, MANIFEST_NAME), 'utf8'));
+    expect(m).toEqual({ tool: 'spherecov', complete: true, files: ['U-01.pdf'] });
+  });
+
+  it('records a name in the manifest before writing it, so a killed run is cleaned up by the next', async () => {
+    const w1 = await OutputWriter.open(dir, 'r1');
+    await w1.write('orphan.pdf', 'x'); // no finish(): the run was killed
+    const w2 = await OutputWriter.open(dir, 'r2');
+    await w2.write('results.json', '{}');
+    await w2.finish();
+    expect(existsSync(path.join(dir, 'orphan.pdf'))).toBe(false);
+  });
+
+  it('refuses names with folders', async () => {
+    const w = await OutputWriter.open(dir, 'r1');
+    await expect(w.write('../x.txt', 'no')).rejects.toThrow(/not a plain file name/);
+    await expect(w.write('a/b.txt', 'no')).rejects.toThrow(/not a plain file name/);
+  });
+
+  it('ignores manifest entries that point outside the folder', async () => {
+    writeFileSync(path.join(dir, MANIFEST_NAME), JSON.stringify({ files: ['../victim.txt'] }));
+    const w = await OutputWriter.open(dir, 'r1');
+    expect(await w.finish()).toEqual([]);
+  });
+});
+
+describe('outputDirProblem', () => {
+  it('refuses the input folder and folders inside it unless forced', async () => {
+    const input = path.join(dir, 'in');
+    mkdirSync(input);
+    expect(await outputDirProblem(input, input, false)).toMatch(/inside it/);
+    expect(await outputDirProblem(input, path.join(input, 'out'), false)).toMatch(/--force/);
+    expect(await outputDirProblem(input, path.join(input, 'out'), true)).toBeNull();
+    expect(await outputDirProblem(input, path.join(dir, 'in-out'), false)).toBeNull();
+  });
+});
+
+describe('lock', () => {
+  it('refuses while the owner runs and takes over a stale lock', () => {
+    const release = acquireLock(dir);
+    // Same pid counts as stale only for another process; simulate a live other owner with pid 1.
+    writeFileSync(path.join(dir, LOCK_NAME), JSON.stringify({ pid: 1 }));
+    expect(() => acquireLock(dir)).toThrow(LockBusyError);
+    writeFileSync(path.join(dir, LOCK_NAME), JSON.stringify({ pid: 2 ** 22 + 12345 }));
+    const again = acquireLock(dir);
+    again();
+    expect(existsSync(path.join(dir, LOCK_NAME))).toBe(false);
+    release();
+  });
+});
