@@ -33,11 +33,11 @@ export function describeCheck(c: LimitCheck, ls: Pick<LimitSet, 'quantity'>): st
  */
 export function formatLimitSet(ls: LimitSet): string {
   const lines: string[] = [ls.name];
-  if (ls.description) lines.push(`  ${ls.description}`);
+  if (ls.description) lines.push(...wrap(ls.description, 96).map((l) => `  ${l}`));
   lines.push(`  quantity: ${ls.quantity} (${quantityUnit(ls.quantity)})`);
   if (ls.band || ls.frequencyRangeMHz) {
-    const range = ls.frequencyRangeMHz ? ` ${ls.frequencyRangeMHz[0]}–${ls.frequencyRangeMHz[1]} MHz` : '';
-    lines.push(`  band: ${ls.band ?? ''}${range}`.replace('band: ', ls.band ? 'band: ' : 'frequency range:'));
+    const range = ls.frequencyRangeMHz ? `${ls.frequencyRangeMHz[0]}–${ls.frequencyRangeMHz[1]} MHz` : '';
+    lines.push(`  band: ${[ls.band, range].filter(Boolean).join(', ')}`);
   }
   lines.push(`  source: ${ls.source}`);
   if (ls.file) lines.push(`  file: ${ls.file}`);
@@ -53,4 +53,15 @@ export function formatLimitSet(ls: LimitSet): string {
     'Results are engineering data, not a regulatory conformance or RF-exposure assessment;',
     'defer to accredited labs and local rules.');
   return lines.join('\n') + '\n';
+}
+
+/** Greedy word wrap for terminal listings. */
+function wrap(text: string, width: number): string[] {
+  const out: string[] = [];
+  let line = '';
+  for (const w of text.split(/\s+/)) {
+    if (line && line.length + 1 + w.length > width) { out.push(line); line = w; } else line = line ? `${line} ${w}` : w;
+  }
+  if (line) out.push(line);
+  return out;
 }
