@@ -80,7 +80,8 @@ export type WarningCode =
   | 'beam-never-best'
   | 'identity-from-path'
   | 'angle-convention'
-  | 'scattered-grid';
+  | 'scattered-grid'
+  | 'frequency-unit-assumed';
 
 export interface Warning {
   code: WarningCode;

@@ -76,6 +76,10 @@ export const WARNINGS: Record<WarningCode, WarningInfo> = {
     title: 'Scattered grid',
     remedy: 'None needed: points are weighted by their spherical Voronoi cell areas.',
   },
+  'frequency-unit-assumed': {
+    title: 'Frequency unit assumed',
+    remedy: 'Name the unit in the header (freq_ghz, "Frequency [MHz]") or set frequency_unit in the job file.',
+  },
 };
 
 /** Build a typed warning. */
