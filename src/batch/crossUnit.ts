@@ -1,10 +1,40 @@
 /**
- * Analysis across the unit results of one run: deltas against a reference unit and the trend
- * over frequency of a unit measured at several frequencies. Mutates the results in place.
+ * Analysis across the unit results of one run (main thread, after every unit is back): deltas
+ * against a reference unit, and the trend over frequency of a unit measured at several
+ * frequencies. Mutates the results in place; the input order is kept.
  */
-import type { UnitResult } from '../types.js';
+import type { CoverageMetrics, UnitResult } from '../types.js';
+import { referenceDeltas } from '../analysis/referenceDeltas.js';
+import { frequencyTrend } from '../analysis/frequencyTrend.js';
 
-export function crossUnitExtras(units: UnitResult[], reference: string | undefined): void {
-  void units;
-  void reference;
+/** The metrics part of a unit result, in the shape the analysis functions take. */
+export function metricsOf(u: UnitResult): CoverageMetrics {
+  return { ...u.tsp, solidAngleSr: u.solidAngleSr, beams: u.beams };
+}
+
+/**
+ * reference: every unit gets `reference = { unit, deltas }` against the reference unit at the
+ * same frequency (null when the reference has no measurement there, or for the reference
+ * itself). frequencyTrend: set on every unit result of a unit with two or more frequencies.
+ * @returns a plain-words problem when the reference unit is not among the results, else null.
+ */
+export function crossUnitExtras(units: UnitResult[], reference: string | undefined): string | null {
+  let problem: string | null = null;
+  if (reference !== undefined) {
+    const refs = units.filter((u) => u.unit === reference);
+    if (refs.length === 0) problem = `--reference: unit '${reference}' is not among the analyzed units`;
+    for (const u of units) {
+      const ref = refs.find((r) => r.frequencyHz === u.frequencyHz);
+      u.reference = ref && ref !== u ? { unit: reference, deltas: referenceDeltas(metricsOf(u), metricsOf(ref)) } : null;
+    }
+  }
+  const byUnit = new Map<string, UnitResult[]>();
+  for (const u of units) byUnit.set(u.unit, [...(byUnit.get(u.unit) ?? []), u]);
+  for (const list of byUnit.values()) {
+    const withF = list.filter((u): u is UnitResult & { frequencyHz: number } => u.frequencyHz !== null);
+    if (withF.length < 2) continue;
+    const trend = frequencyTrend(withF.map((u) => ({ frequencyHz: u.frequencyHz, metrics: metricsOf(u) })));
+    for (const u of list) u.frequencyTrend = trend as UnitResult['frequencyTrend'];
+  }
+  return problem;
 }

@@ -191,7 +191,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     const errors: InputError[] = outputs.flatMap((o) => o.errors);
     errors.sort((a, b) => byCodePoint(a.file, b.file) || (a.line ?? 0) - (b.line ?? 0) || (a.column ?? 0) - (b.column ?? 0));
     const looseWarnings: Warning[] = outputs.flatMap((o) => o.warnings);
-    crossUnitExtras(units, reference);
+    const referenceProblem = crossUnitExtras(units, reference);
     const build = units.length > 0 ? buildStatistics(units) : null;
 
     const results: ResultsFile = {
@@ -210,7 +210,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         pdf,
         pageSize,
         skippedLinks: discovery.skippedLinks.map(toPosix),
-        warnings: looseWarnings.map(warningText),
+        warnings: [...looseWarnings.map(warningText), ...(referenceProblem ? [referenceProblem] : [])],
       },
       units,
       build,

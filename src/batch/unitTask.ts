@@ -14,7 +14,7 @@ import { frequencyInRange } from '../limits/frequencyInRange.js';
 import { findHoles } from '../analysis/findHoles.js';
 import { beamRemoval } from '../analysis/beamRemoval.js';
 import { greedySubset } from '../analysis/greedySubset.js';
-import { renderUnitPdf } from '../report/renderUnitPdf.js';
+import { renderUnitPdf } from '../report/unitReport.js';
 import { unitMapThumbnail } from '../report/unitMapThumbnail.js';
 import { cdfCurve, type CdfCurve } from '../report/cdfCurve.js';
 import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';

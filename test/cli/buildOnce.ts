@@ -1,0 +1,30 @@
+/**
+ * The end-to-end tests spawn the compiled CLI (bin/spherecov.js → dist/). `npm test` compiles
+ * first; when a test file is run alone, compile here if any source is newer than dist.
+ */
+import { execFileSync } from 'node:child_process';
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
+
+function newestMtime(dir: string): number {
+  let t = 0;
+  for (const e of readdirSync(dir, { withFileTypes: true })) {
+    const p = path.join(dir, e.name);
+    t = Math.max(t, e.isDirectory() ? newestMtime(p) : statSync(p).mtimeMs);
+  }
+  return t;
+}
+
+export function ensureBuilt(): void {
+  const main = path.join(ROOT, 'dist', 'cli', 'main.js');
+  if (existsSync(main) && statSync(main).mtimeMs >= newestMtime(path.join(ROOT, 'src'))) return;
+  try {
+    execFileSync('npx', ['tsc', '-p', 'tsconfig.json'], { cwd: ROOT, stdio: 'pipe' });
+  } catch {
+    // tsc emits even with type errors elsewhere in the tree; the existence check below decides.
+  }
+  if (!existsSync(main)) throw new Error('dist/cli/main.js was not built');
+}
