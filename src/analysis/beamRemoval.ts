@@ -1,7 +1,6 @@
+import { sphereNormSr } from '../coverage/sphereNormSr.js';
 import type { BeamRemoval, Quantity, SphereGrid } from '../types.js';
 import { createPercentileSelector } from './percentileSelector.js';
-
-const FOUR_PI = 4 * Math.PI;
 
 /**
  * What each beam is worth: how much the chosen percentile of the total scan pattern and the
@@ -10,8 +9,9 @@ const FOUR_PI = 4 * Math.PI;
  * percentileLossDb = P(all) − P(all without b) for eirp/gain, P(without b) − P(all) for eis
  * (positive = worse without the beam; 0 for a beam that is never strictly needed, such as an
  * exact duplicate); null when either value is not evaluable or b is the only beam.
- * coverageLoss = E(all) − E(all without b), E(t) = Σ wᵢ [TSPᵢ at or better than t] / 4π, a
- * fraction of 4π in [0, 1]; null when threshold is null.
+ * coverageLoss = E(all) − E(all without b), E(t) = Σ wᵢ [TSPᵢ at or better than t] / S, a
+ * fraction of the sphere in [0, 1] (S = sphereNormSr(Σw): 4π, or Σw on a full sphere, as the
+ * core's coverage efficiency); null when threshold is null.
  *
  * Work reuse: the best and second-best beam per point are found once; removing b changes the
  * total scan pattern only where b is best, where the second-best value takes over. Ties go to the
@@ -50,6 +50,7 @@ export function beamRemoval(
   const finite = (v: number | null): number | null => (v === null || !Number.isFinite(v) ? null : v);
   const full = finite(select(bestVal));
   const covered = (v: number): boolean => threshold !== null && (lowerIsBetter ? v <= threshold : v >= threshold);
+  const sphereSr = sphereNormSr(grid.solidAngleSr);
   const without = new Float64Array(n);
   return beams.map((_, b) => {
     without.set(bestVal);
@@ -65,6 +66,6 @@ export function beamRemoval(
     }
     const rest = beams.length > 1 ? finite(select(without)) : null;
     const percentileLossDb = full === null || rest === null ? null : lowerIsBetter ? rest - full : full - rest;
-    return { percentileLossDb, coverageLoss: threshold === null ? null : (lost + c) / FOUR_PI };
+    return { percentileLossDb, coverageLoss: threshold === null ? null : (lost + c) / sphereSr };
   });
 }

@@ -1,7 +1,7 @@
+import { sphereNormSr } from '../coverage/sphereNormSr.js';
 import type { Quantity } from '../types.js';
 
-const FOUR_PI = 4 * Math.PI;
-/** Cumulative solid angle that falls short of the target by less than this (relative to 4π) still reaches it. */
+/** Cumulative solid angle short of the target by less than this (relative) still reaches it; as the core's percentile. */
 const REACH_EPS = 1e-12;
 
 /**
@@ -10,11 +10,12 @@ const REACH_EPS = 1e-12;
  * total scan patterns.
  *
  * Rule (the same step rule as the core's `percentile`): the p-th percentile is the smallest
- * value v with F(v) = (U₋ + Σ wᵢ [xᵢ ≤ v]) / 4π ≥ p/100, where the unmeasured part of the sphere
- * U = 4π − Σ wᵢ counts as worst: at −∞ for eirp/gain (U₋ = U), at +∞ for eis (U₋ = 0). When the
- * level can only be reached inside the unmeasured part the result is null. p = 0 is the minimum
- * (null for eirp/gain on a partial sphere, whose worst is unmeasured); p = 100 is the maximum.
- * A cumulative sum short of the target by less than 1e-12·4π reaches it (rounding of Σ w).
+ * value v with F(v) = (U₋ + Σ wᵢ [xᵢ ≤ v]) / S ≥ p/100 (Eq. 1), where S = sphereNormSr(Σw) (4π,
+ * or Σw itself when that is within 1e-6 of 4π) and the unmeasured part U = S − Σ wᵢ counts as
+ * worst: at −∞ for eirp/gain (U₋ = U), at +∞ for eis (U₋ = 0). When the level can only be
+ * reached inside the unmeasured part the result is null. p = 0 is the minimum (null for
+ * eirp/gain on a partial sphere, whose worst is unmeasured); p = 100 is the maximum.
+ * A cumulative sum short of the target by less than 1e-12·S reaches it (rounding of Σ w).
  *
  * Method: weighted quickselect (three-way partition around a median-of-three pivot, then recurse
  * into the side that holds the target mass) on scratch copies; expected O(n) per call instead of
@@ -36,18 +37,19 @@ export function createPercentileSelector(
     measured = t;
   }
   measured += c;
-  const unmeasured = Math.max(0, FOUR_PI - measured);
-  const belowFromOutside = quantity === 'eis' ? 0 : unmeasured;
-  const eps = REACH_EPS * FOUR_PI;
-  const target = (levelPct / 100) * FOUR_PI - belowFromOutside;
+  const sphereSr = sphereNormSr(measured);
+  const below = quantity === 'eis' ? 0 : Math.max(0, sphereSr - measured);
+  const eps = REACH_EPS * sphereSr;
+  const target = (levelPct / 100) * sphereSr;
   const sv = new Float64Array(n), sw = new Float64Array(n);
   return (values: Float64Array): number | null => {
-    if (levelPct === 0) return belowFromOutside > eps ? null : minimum(values);
-    if (target <= eps) return null; // reached at −∞, inside the unmeasured part
-    if (measured < target - eps) return null; // reached only at +∞ (eis, partial sphere)
+    if (n === 0) return null;
+    if (below > 0 && below >= target - eps) return null; // reached at −∞, inside the unmeasured part
+    if (target <= eps) return minimum(values);
+    if (below + measured < target - eps) return null; // reached only at +∞ (eis, partial sphere)
     sv.set(values);
     sw.set(weightSr);
-    return select(sv, sw, n, target - eps);
+    return select(sv, sw, n, target - eps - below); // Eq. 1
   };
 }
 

@@ -66,3 +66,39 @@ describe('createPercentileSelector (step rule, unmeasured part counts as worst)'
     expect(() => createPercentileSelector(new Float64Array(1), 'eirp', 101)).toThrow(/outside/);
   });
 });
+
+describe('createPercentileSelector agrees with the core percentile (src/coverage)', () => {
+  it('same value or null as percentile(weightedCdf(...)) on random data, full and partial spheres', async () => {
+    const { weightedCdf } = await import('../../src/coverage/weightedCdf.js');
+    const { percentile } = await import('../../src/coverage/percentile.js');
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 400 }),
+        fc.integer({ min: 0, max: 0x7fffffff }),
+        fc.oneof(fc.constantFrom(0, 100, 50, 25), fc.double({ min: 0, max: 100, noNaN: true })),
+        fc.constantFrom('eirp' as const, 'eis' as const, 'gain' as const),
+        fc.constantFrom(1, 1 - 1e-9, 0.999, 0.7),
+        (n, seed, levelPct, quantity, coverage) => {
+          let s = seed;
+          const rnd = () => ((s = (s * 1103515245 + 12345) % 2147483648) / 2147483648);
+          const w = Float64Array.from({ length: n }, () => 0.05 + rnd());
+          const total = w.reduce((a, b) => a + b, 0);
+          for (let i = 0; i < n; i++) w[i] *= (coverage * 4 * Math.PI) / total;
+          const v = Float64Array.from({ length: n }, () => Math.round(rnd() * 60) / 4 - 5);
+          expect(createPercentileSelector(w, quantity, levelPct)(v)).toBe(percentile(weightedCdf(v, w), levelPct, quantity));
+        },
+      ),
+      { seed: 97, numRuns: 400 },
+    );
+  });
+
+  it('agrees on the 5° grid for every whole percent (exact-boundary levels of a symmetric pattern)', async () => {
+    const { weightedCdf } = await import('../../src/coverage/weightedCdf.js');
+    const { percentile } = await import('../../src/coverage/percentile.js');
+    const { fullGrid } = await import('./fixtures.js');
+    const grid = fullGrid(5);
+    const v = grid.thetaDeg.map((t) => Math.round(10 * Math.cos((t * Math.PI) / 180))); // hemispheres tie at 0
+    const cdf = weightedCdf(v, grid.weightSr);
+    for (let p = 0; p <= 100; p++) expect(createPercentileSelector(grid.weightSr, 'eirp', p)(v)).toBe(percentile(cdf, p, 'eirp'));
+  });
+});
