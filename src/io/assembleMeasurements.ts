@@ -1,0 +1,196 @@
+import { createMeasurement } from '../measurement.js';
+import { buildSphereGrid, type GridBuild } from '../sphere/buildGrid.js';
+import { mergeSamples } from '../sphere/mergeSamples.js';
+import { resampleBeam } from '../sphere/resample.js';
+import type { BeamPattern, InputError, Measurement, SourceFile, Warning } from '../types.js';
+import { warning } from '../warnings.js';
+import { inputError } from './inputError.js';
+import type { RawBeam } from './types.js';
+
+/**
+ * A beam on another grid is resampled onto the unit's grid only when every unit grid point
+ * lies within this angle of the beam's own samples; farther, the beam is refused (our choice:
+ * about one 5° chamber step, where bilinear dB interpolation is still trustworthy).
+ */
+export const MAX_RESAMPLE_DISTANCE_DEG = 5;
+
+interface AngleSet {
+  thetaDeg: Float64Array;
+  phiDeg: Float64Array;
+  beams: RawBeam[];
+}
+
+export interface AssembleResult {
+  measurements: Measurement[];
+  errors: InputError[];
+  warnings: Warning[];
+}
+
+function sameAngles(a: AngleSet, b: RawBeam): boolean {
+  if (a.thetaDeg === b.thetaDeg && a.phiDeg === b.phiDeg) return true;
+  const n = a.thetaDeg.length;
+  if (n !== b.thetaDeg.length) return false;
+  for (let i = 0; i < n; i++) if (a.thetaDeg[i] !== b.thetaDeg[i] || a.phiDeg[i] !== b.phiDeg[i]) return false;
+  return true;
+}
+
+function sameGrid(a: GridBuild, b: GridBuild): boolean {
+  const ga = a.grid;
+  const gb = b.grid;
+  if (ga.thetaDeg.length !== gb.thetaDeg.length) return false;
+  for (let i = 0; i < ga.thetaDeg.length; i++) {
+    if (Math.abs(ga.thetaDeg[i] - gb.thetaDeg[i]) > 1e-9 || Math.abs(ga.phiDeg[i] - gb.phiDeg[i]) > 1e-9) return false;
+  }
+  return true;
+}
+
+/** Rows that literally repeat a direction (same θ and φ as written, not a pole or seam alias). */
+function literalDuplicates(build: GridBuild, b: RawBeam): { count: number; maxDiffDb: number; at: string } {
+  const first = new Int32Array(build.grid.thetaDeg.length).fill(-1);
+  let count = 0;
+  let maxDiffDb = 0;
+  let at = '';
+  for (let i = 0; i < b.values.length; i++) {
+    const p = build.pointOf[i];
+    const j = first[p];
+    if (j < 0) {
+      first[p] = i;
+      continue;
+    }
+    if (b.thetaDeg[i] !== b.thetaDeg[j] || b.phiDeg[i] !== b.phiDeg[j]) continue;
+    count++;
+    const d = Math.abs(b.values[i] - b.values[j]);
+    if (d > maxDiffDb || at === '') {
+      if (d >= maxDiffDb) at = `θ ${b.thetaDeg[i]}°, φ ${b.phiDeg[i]}°`;
+      maxDiffDb = Math.max(maxDiffDb, d);
+    }
+  }
+  return { count, maxDiffDb, at };
+}
+
+function gridText(g: GridBuild): string {
+  const t = g.grid.thetaDeg;
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < t.length; i++) [lo, hi] = [Math.min(lo, t[i]), Math.max(hi, t[i])];
+  return `${t.length} points, θ ${lo}–${hi}°`;
+}
+
+/**
+ * Group raw beams into one Measurement per (unit, frequency): one grid for all beams (built
+ * from the directions most beams share), coincident samples merged by power average
+ * (mergeSamples, Eq. 1 there), beams on another grid resampled with a 'beam-resampled' warning
+ * or refused beyond MAX_RESAMPLE_DISTANCE_DEG. Problems are errors naming the file; a unit with
+ * an error keeps its other beams.
+ */
+export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[]): AssembleResult {
+  const errors: InputError[] = [];
+  const warnings: Warning[] = [];
+  const measurements: Measurement[] = [];
+  const groups = new Map<string, RawBeam[]>();
+  for (const b of beams) {
+    const key = `${b.unit}\u0000${b.frequencyHz ?? 'none'}`;
+    const list = groups.get(key);
+    if (list) list.push(b);
+    else groups.set(key, [b]);
+  }
+  for (const list of groups.values()) {
+    const m = assembleOne(list, sources, errors);
+    if (m) {
+      measurements.push(m);
+      warnings.push(...m.warnings);
+    }
+  }
+  return { measurements, errors, warnings };
+}
+
+function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[]): Measurement | null {
+  const ref = list[0];
+  const freqText = ref.frequencyHz === null ? 'no frequency' : `${ref.frequencyHz / 1e9} GHz`;
+  const what = `unit '${ref.unit}' (${freqText})`;
+  const warnings: Warning[] = [];
+  const seen = new Map<string, RawBeam>();
+  const kept: RawBeam[] = [];
+  for (const b of list) {
+    const line = b.firstLine ?? 1;
+    if (b.quantity !== ref.quantity || b.valueUnit !== ref.valueUnit) {
+      errors.push(inputError(b.file, line, 1, 'quantity', `${b.quantity} (${b.valueUnit})`,
+        `${ref.quantity} (${ref.valueUnit}) like the other beams of ${what} in ${ref.file}`));
+      continue;
+    }
+    const dup = seen.get(b.beam);
+    if (dup) {
+      errors.push(inputError(b.file, line, 1, 'beam', b.beam, `each beam of ${what} once (beam '${b.beam}' is also in ${dup.file}:${dup.firstLine ?? 1})`));
+      continue;
+    }
+    seen.set(b.beam, b);
+    kept.push(b);
+  }
+  if (kept.length === 0) return null;
+
+  const sets: AngleSet[] = [];
+  for (const b of kept) {
+    const s = sets.find((x) => sameAngles(x, b));
+    if (s) s.beams.push(b);
+    else sets.push({ thetaDeg: b.thetaDeg, phiDeg: b.phiDeg, beams: [b] });
+  }
+  const main = sets.reduce((best, s) => (s.beams.length > best.beams.length ? s : best), sets[0]);
+  let build: GridBuild;
+  try {
+    build = buildSphereGrid(main.thetaDeg, main.phiDeg);
+  } catch (e) {
+    const b = main.beams[0];
+    errors.push(inputError(b.file, b.firstLine ?? 1, 1, 'grid', (e as Error).message.replace(/^buildSphereGrid: /, ''), 'at least 4 distinct directions on the sphere', true));
+    return null;
+  }
+  const patterns = new Map<RawBeam, BeamPattern>();
+  for (const b of main.beams) {
+    patterns.set(b, { id: b.beam, values: mergeSamples(build, b.values).values });
+    const d = literalDuplicates(build, b);
+    if (d.count > 0) {
+      const code = d.maxDiffDb > 0 ? 'duplicate-differs' : 'duplicate-merged';
+      const diff = d.maxDiffDb > 0 ? ` with values up to ${d.maxDiffDb.toFixed(2)} dB apart (at ${d.at})` : ' with equal values';
+      warnings.push(warning(code, `${b.file}: beam '${b.beam}': ${d.count} rows repeat a direction${diff}; merged by power average`, { file: b.file, line: b.firstLine }));
+    }
+  }
+  for (const s of sets) {
+    if (s === main) continue;
+    let own: GridBuild;
+    try {
+      own = buildSphereGrid(s.thetaDeg, s.phiDeg);
+    } catch (e) {
+      for (const b of s.beams) errors.push(inputError(b.file, b.firstLine ?? 1, 1, 'grid', (e as Error).message.replace(/^buildSphereGrid: /, ''), 'at least 4 distinct directions on the sphere', true));
+      continue;
+    }
+    const same = sameGrid(own, build);
+    for (const b of s.beams) {
+      const merged = mergeSamples(own, b.values).values;
+      if (same) {
+        patterns.set(b, { id: b.beam, values: merged });
+        continue;
+      }
+      const r = resampleBeam(own.grid, merged, build.grid);
+      if (!(r.maxDistanceDeg <= MAX_RESAMPLE_DISTANCE_DEG)) {
+        errors.push(inputError(b.file, b.firstLine ?? 1, 1, 'grid', `beam '${b.beam}' on its own grid (${gridText(own)}), ${r.maxDistanceDeg.toFixed(1)}° from the unit grid`,
+          `the grid of the other beams of ${what} (${gridText(build)}), or one within ${MAX_RESAMPLE_DISTANCE_DEG}° to resample from`, true));
+        continue;
+      }
+      patterns.set(b, { id: b.beam, values: r.values });
+      warnings.push(warning('beam-resampled', `${b.file}: beam '${b.beam}' measured on another grid (${gridText(own)}) resampled (${r.method}, up to ${r.maxDistanceDeg.toFixed(2)}° from data) onto the unit grid (${gridText(build)})`, { file: b.file, line: b.firstLine }));
+    }
+  }
+  const beamsOut = kept.filter((b) => patterns.has(b)).map((b) => patterns.get(b)!);
+  if (ref.frequencyHz === null) warnings.push(warning('frequency-missing', `${what}: no frequency found`, { file: ref.file }));
+  const files = new Set(kept.map((b) => b.file));
+  const metadata: Record<string, string> = {};
+  for (const b of kept) for (const [k, v] of Object.entries(b.metadata ?? {})) metadata[k] ??= v;
+  try {
+    return createMeasurement({
+      unit: ref.unit, frequencyHz: ref.frequencyHz, quantity: ref.quantity, valueUnit: ref.valueUnit, grid: build.grid, beams: beamsOut,
+      sources: sources.filter((s) => files.has(s.path)), warnings, metadata,
+    });
+  } catch (e) {
+    errors.push({ file: ref.file, message: `${ref.file}: ${what} could not be assembled (${(e as Error).message}), expected a consistent set of beams` });
+    return null;
+  }
+}

@@ -1,0 +1,171 @@
+import { mwToDbm, powerSumDb, wToDbm } from '../units.js';
+import type { LongPlan } from './columnPlan.js';
+import { ErrorList, inputError } from './inputError.js';
+import type { KeyTable } from './keyTable.js';
+import type { RowLocator, RowSink } from './rowSink.js';
+import { SampleAccumulator } from './sampleAccumulator.js';
+
+const RAD_TO_DEG = 180 / Math.PI;
+/** Slack for angles converted from radians (rounding of the written value). */
+const ANGLE_SLACK_DEG = 1e-9;
+
+interface Group {
+  unitId: number;
+  beamId: number;
+  polId: number;
+  freqRaw: number;
+  acc: SampleAccumulator;
+}
+
+/** A finished group before identity and polarization are resolved. */
+export interface LongGroup {
+  unitId: number;
+  beamId: number;
+  polId: number;
+  /** Frequency as written in the column, or NaN without a column. */
+  freqRaw: number;
+  firstLine: number;
+  thetaDeg: Float64Array;
+  phiDeg: Float64Array;
+  values: Float64Array;
+}
+
+/**
+ * Long-layout rows → per (unit, beam, pol, frequency) sample groups. Checks angle ranges,
+ * converts az/el, radians and linear power (mW, W → dBm) and sums a θ/φ polarization pair
+ * (power sum, DESIGN.md "Polarization pair").
+ */
+export class LongSink implements RowSink {
+  rows = 0;
+  private groups: Group[] = [];
+  private byKey = new Map<string, Group>();
+  private last: Group | null = null;
+  private polOk: number[] = [];
+
+  constructor(
+    private readonly plan: LongPlan,
+    private readonly file: string,
+    private readonly errors: ErrorList,
+    private readonly keys: KeyTable,
+  ) {}
+
+  private err(line: number, f: number, loc: RowLocator, expected: string): void {
+    this.errors.add(inputError(this.file, line, loc.col(f), this.plan.fields.names[f], loc.text(f).trim(), expected));
+  }
+
+  private fieldOfNum(slot: number): number {
+    return this.plan.fields.slots.findIndex((s, i) => s === slot && this.plan.fields.kinds[i] === 1);
+  }
+
+  private fieldOfKey(slot: number): number {
+    return this.plan.fields.slots.findIndex((s, i) => s === slot && this.plan.fields.kinds[i] === 2);
+  }
+
+  private toDb(v: number, slot: number, line: number, loc: RowLocator): number | null {
+    const u = this.plan.fileValueUnit;
+    if (u === 'mW' || u === 'W') {
+      if (!(v > 0)) {
+        this.err(line, this.fieldOfNum(slot), loc, `a positive power in ${u}`);
+        return null;
+      }
+      return u === 'mW' ? mwToDbm(v) : wToDbm(v);
+    }
+    return v;
+  }
+
+  row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {
+    const p = this.plan;
+    let a1 = nums[0];
+    let a2 = nums[1];
+    const rad = p.angleUnit === 'rad';
+    if (rad) {
+      a1 *= RAD_TO_DEG;
+      a2 *= RAD_TO_DEG;
+    }
+    const slack = rad ? ANGLE_SLACK_DEG : 0;
+    const lo1 = p.angleConvention === 'theta-phi' ? 0 : -90;
+    const hi1 = p.angleConvention === 'theta-phi' ? 180 : 90;
+    if (!(a1 >= lo1 - slack && a1 <= hi1 + slack)) {
+      const what = p.angleConvention === 'theta-phi' ? 'theta' : 'elevation';
+      this.err(line, this.fieldOfNum(0), loc, `${what} between ${lo1} and ${hi1} ${rad ? 'degrees (as radians)' : 'degrees'}`);
+      return;
+    }
+    if (!(a2 >= -180 - slack && a2 <= 360 + slack)) {
+      const what = p.angleConvention === 'theta-phi' ? 'phi' : 'azimuth';
+      this.err(line, this.fieldOfNum(1), loc, `${what} between -180 and 360 ${rad ? 'degrees (as radians)' : 'degrees'}`);
+      return;
+    }
+    a1 = Math.min(hi1, Math.max(lo1, a1));
+    // az/el → θ/φ: θ = 90° − el, φ = az (normalized to [0, 360) by the grid builder), CONTRACT.md "Angles".
+    const thetaDeg = p.angleConvention === 'theta-phi' ? a1 : 90 - a1;
+    const phiDeg = a2;
+
+    let value = this.toDb(nums[2], 2, line, loc);
+    if (value === null) return;
+    if (p.pairValues) {
+      const b = this.toDb(nums[3], 3, line, loc);
+      if (b === null) return;
+      value = powerSumDb(value, b); // DESIGN.md "Polarization pair": 10·log10(10^(a/10) + 10^(b/10))
+    }
+    let freqRaw = NaN;
+    if (p.freqSlot >= 0) {
+      freqRaw = nums[p.freqSlot];
+      if (!(freqRaw > 0)) {
+        this.err(line, this.fieldOfNum(p.freqSlot), loc, 'a positive frequency');
+        return;
+      }
+    }
+    const unitId = p.unitKey >= 0 ? keys[p.unitKey] : -1;
+    const beamId = p.beamKey >= 0 ? keys[p.beamKey] : -1;
+    let polId = -1;
+    if (p.polKey >= 0) {
+      polId = keys[p.polKey];
+      if (this.polKind(polId) < 0) {
+        this.err(line, this.fieldOfKey(p.polKey), loc, "'theta' or 'phi'");
+        return;
+      }
+    }
+    let g = this.last;
+    if (g === null || g.unitId !== unitId || g.beamId !== beamId || g.polId !== polId || !(g.freqRaw === freqRaw || (freqRaw !== freqRaw && g.freqRaw !== g.freqRaw))) {
+      g = this.group(unitId, beamId, polId, freqRaw, line);
+      this.last = g;
+    }
+    g.acc.push(thetaDeg, phiDeg, value);
+    this.rows++;
+  }
+
+  /** 0 = theta, 1 = phi, −1 = not a polarization name. */
+  polKind(polId: number): number {
+    let k = this.polOk[polId];
+    if (k === undefined) {
+      const name = this.keys.names[this.plan.polKey][polId].toLowerCase();
+      k = name === 'theta' || name === 'th' || name === 'θ' ? 0 : name === 'phi' || name === 'ph' || name === 'φ' ? 1 : -1;
+      this.polOk[polId] = k;
+    }
+    return k;
+  }
+
+  private group(unitId: number, beamId: number, polId: number, freqRaw: number, line: number): Group {
+    const key = `${unitId}|${beamId}|${polId}|${freqRaw}`;
+    let g = this.byKey.get(key);
+    if (!g) {
+      const template = this.groups.length ? this.groups[0].acc : null;
+      g = { unitId, beamId, polId, freqRaw, acc: new SampleAccumulator(template, line) };
+      this.groups.push(g);
+      this.byKey.set(key, g);
+    }
+    return g;
+  }
+
+  /** The groups in order of first appearance. */
+  finish(): LongGroup[] {
+    return this.groups.map((g) => ({
+      unitId: g.unitId,
+      beamId: g.beamId,
+      polId: g.polId,
+      freqRaw: g.freqRaw,
+      firstLine: g.acc.firstLine,
+      ...g.acc.finish(),
+    }));
+  }
+}

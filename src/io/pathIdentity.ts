@@ -1,0 +1,53 @@
+import type { IdentitySource, JobSpec } from './types.js';
+
+export interface PathIdentity {
+  unit: string;
+  beam: string;
+  frequencyHz: number | null;
+  sources: { unit: IdentitySource; beam: IdentitySource; frequency: IdentitySource };
+}
+
+const SEP = '[_\\-\\s.]';
+const BEAM_RE = new RegExp(`(^|${SEP})(beam[_-]?(\\d+)|b(\\d+))(?=$|${SEP})`, 'i');
+const FREQ_RE = new RegExp(`(^|${SEP})(\\d+(?:[.p]\\d+)?)\\s?ghz(?=$|${SEP})`, 'i');
+
+/** First capture group (or the whole match) of a job-file identity pattern. */
+function capture(pattern: string | undefined, relPath: string): string | null {
+  if (!pattern) return null;
+  const m = new RegExp(pattern).exec(relPath);
+  if (!m) return null;
+  return (m[1] ?? m[0]).trim() || null;
+}
+
+/**
+ * Identity of a file from its path (CONTRACT.md "Input folder"): unit = first subfolder below
+ * the input root, else the file stem without beam and frequency tokens; beam = a beam<N>,
+ * beam_<N>, beam-<N> or b<N> token, else the stem; frequency = a <number>GHz token, else none.
+ * Job-file patterns (group 1, frequency in GHz) take precedence over these rules.
+ * @example pathIdentity('PX-01/PX-01_beam_5_28GHz.csv') // unit 'PX-01', beam '5', 28e9 Hz
+ */
+export function pathIdentity(relPath: string, job?: JobSpec): PathIdentity {
+  const parts = relPath.split('/');
+  const base = parts[parts.length - 1];
+  const stem = base.replace(/\.[^.]*$/, '');
+  const beamM = BEAM_RE.exec(stem);
+  const freqM = FREQ_RE.exec(stem);
+  let rest = stem;
+  for (const m of [beamM, freqM]) if (m) rest = rest.replace(m[0].slice(m[1].length), ' ');
+  rest = rest.replace(/^[_\-\s.]+|[_\-\s.]+$/g, '').replace(/([_\-.])[\s_\-.]+/g, '$1').replace(/\s+/g, '_');
+
+  const sources: PathIdentity['sources'] = { unit: 'file-name', beam: 'file-name', frequency: 'none' };
+  let unit = parts.length > 1 ? parts[0] : rest || stem;
+  if (parts.length > 1) sources.unit = 'folder';
+  let beam = beamM ? (beamM[3] ?? beamM[4]) : stem;
+  let frequencyHz = freqM ? Number(freqM[2].replace('p', '.')) * 1e9 : null;
+  if (freqM) sources.frequency = 'file-name';
+
+  const ju = capture(job?.identity?.unit, relPath);
+  if (ju !== null) [unit, sources.unit] = [ju, 'job'];
+  const jb = capture(job?.identity?.beam, relPath);
+  if (jb !== null) [beam, sources.beam] = [jb, 'job'];
+  const jf = capture(job?.identity?.frequencyGhz, relPath);
+  if (jf !== null && Number.isFinite(Number(jf))) [frequencyHz, sources.frequency] = [Number(jf) * 1e9, 'job'];
+  return { unit, beam, frequencyHz, sources };
+}

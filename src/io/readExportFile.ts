@@ -1,0 +1,295 @@
+import { createHash } from 'node:crypto';
+import { open, readFile } from 'node:fs/promises';
+import path from 'node:path';
+import type { InputError, Warning } from '../types.js';
+import { warning } from '../warnings.js';
+import { calibrationOffsetDb } from './calibrationOffset.js';
+import { planColumns, type LongPlan, type MatrixPlan } from './columnPlan.js';
+import { fastTokenize } from './fastTokenizer.js';
+import { assumedFrequencyHz, parseFrequencyText } from './frequencyText.js';
+import { generalTokenize } from './generalTokenizer.js';
+import { ErrorList, inputError } from './inputError.js';
+import { KeyTable } from './keyTable.js';
+import { LongSink, type LongGroup } from './longSink.js';
+import { MatrixSink } from './matrixSink.js';
+import { parseNumberText } from './numberText.js';
+import { pathIdentity } from './pathIdentity.js';
+import { HEAD_BYTES, sniffHead, type HeadInfo } from './sniffHead.js';
+import type { TokenContext } from './textRow.js';
+import type { FileInfo, FileReadResult, RawBeam, ReadContext } from './types.js';
+
+const FREQ_FACTORS: Record<string, number> = { Hz: 1, kHz: 1e3, MHz: 1e6, GHz: 1e9 };
+
+function emptyInfo(): FileInfo {
+  return {
+    layout: null, delimiter: null, decimalComma: false, bom: false, lineEnding: null, parser: null, columns: [],
+    quantity: null, valueUnit: null, fileValueUnit: null, angleConvention: null, angleUnit: null, rows: 0,
+    metadata: {}, identity: { unit: 'none', beam: 'none', frequency: 'none' }, calibrated: false,
+  };
+}
+
+/**
+ * Read one chamber export (long or matrix layout, any supported dialect) into raw beams.
+ * Never throws for bad input: problems come back as `errors` (file:line:col grammar), and a
+ * file with errors yields no beams. Plain numeric files stream through the byte-level fast
+ * path; quoted or irregular ones go through papaparse; both give identical results.
+ * @throws only on programming errors (never for file content or a missing file).
+ */
+export async function readExportFile(absPath: string, ctx: ReadContext): Promise<FileReadResult> {
+  const file = path.relative(ctx.inputRoot, absPath).split(path.sep).join('/') || path.basename(absPath);
+  const info = emptyInfo();
+  const result: FileReadResult = { file, sha256: '', info, beams: [], errors: [], warnings: [] };
+  let fh;
+  try {
+    fh = await open(absPath, 'r');
+  } catch (e) {
+    result.errors.push({ file, message: `${file}: cannot open the file (${(e as NodeJS.ErrnoException).code ?? 'error'}), expected a readable file` });
+    return result;
+  }
+  try {
+    const size = (await fh.stat()).size;
+    const head = Buffer.alloc(Math.min(size, HEAD_BYTES));
+    await fh.read(head, 0, head.length, 0);
+    const sniff = sniffHead(file, head, size <= HEAD_BYTES);
+    if (!('delimiter' in sniff)) {
+      result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
+      result.errors.push(sniff);
+      return result;
+    }
+    Object.assign(info, {
+      delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, bom: sniff.bom, lineEnding: sniff.lineEnding, metadata: sniff.metadata,
+    });
+    const headerNums = sniff.headerCells.map((c) => parseNumberText(c, sniff.decimalComma));
+    if (headerNums.every((v) => typeof v === 'number')) {
+      result.errors.push(inputError(file, sniff.headerLine, 1, 'header', sniff.headerText, 'a header row naming the columns (for example theta,phi,eirp_dbm)'));
+      result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
+      return result;
+    }
+    const planned = planColumns(sniff.headerCells, {
+      file, headerLine: sniff.headerLine, cellCols: sniff.headerCellCols, headerText: sniff.headerText, decimalComma: sniff.decimalComma,
+      metadata: sniff.metadata, metadataLines: sniff.metadataLines, job: ctx.job, quantityOverride: ctx.quantityOverride,
+    });
+    result.warnings.push(...planned.warnings);
+    if (!planned.plan) {
+      result.errors.push(...planned.errors);
+      result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
+      return result;
+    }
+    const plan = planned.plan;
+    Object.assign(info, {
+      layout: plan.layout, columns: plan.columns, quantity: plan.quantity, valueUnit: plan.valueUnit, fileValueUnit: plan.fileValueUnit,
+      angleConvention: plan.angleConvention, angleUnit: plan.angleUnit,
+    });
+    if (plan.layout === 'matrix') {
+      const bad = checkMatrixColumns(file, plan, sniff);
+      if (bad.length) {
+        result.errors.push(...bad);
+        result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
+        return result;
+      }
+    }
+
+    const run = async (useFast: boolean) => {
+      const errors = new ErrorList(file);
+      const keys = new KeyTable(plan.fields.keyCount);
+      const sink = plan.layout === 'long' ? new LongSink(plan, file, errors, keys) : new MatrixSink(plan, file, errors, sniff.headerLine + 1);
+      const t: TokenContext = {
+        file, fields: plan.fields, delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, errors, keys, sink,
+        nums: new Float64Array(Math.max(1, plan.fields.numCount)), keyIds: new Int32Array(Math.max(1, plan.fields.keyCount)),
+      };
+      if (useFast) {
+        const hash = createHash('sha256');
+        const outcome = await fastTokenize(fh!, sniff.dataByteStart, sniff.headerLine + 1, t, hash);
+        if (outcome === 'quote') return null;
+        return { errors, keys, sink, sha: hash.digest('hex') };
+      }
+      const bytes = await readFile(absPath);
+      const text = bytes.toString('utf8', sniff.bom ? 3 : 0);
+      generalTokenize(text, sniff.dataCharStart, sniff.headerLine + 1, sniff.lineEnding === 'CRLF' ? '\r\n' : '\n', t);
+      return { errors, keys, sink, sha: createHash('sha256').update(bytes).digest('hex') };
+    };
+    const wantFast = ctx.parser === 'fast' || (ctx.parser !== 'general' && !sniff.quoted);
+    let outcome = wantFast ? await run(true) : null;
+    info.parser = outcome ? 'fast' : 'general';
+    outcome ??= await run(false);
+    if (!outcome) throw new Error('unreachable: general path always completes');
+    result.sha256 = outcome.sha;
+    info.rows = outcome.sink.rows;
+    const errs = outcome.errors;
+    if (errs.count === 0 && outcome.sink.rows === 0) {
+      errs.add(inputError(file, sniff.headerLine + 1, 1, 'data', 'no data rows', 'at least one row below the header', true));
+    }
+    if (errs.count > 0) {
+      result.errors.push(...errs.finish());
+      return result;
+    }
+    const id = pathIdentity(file, ctx.job);
+    const meta = sniff.metadata;
+    const identity = { ...id.sources };
+    const metaUnit = meta.unit?.trim() || meta.dut?.trim() || meta.serial?.trim();
+    const metaBeam = meta.beam?.trim();
+    const metaFreq = meta.frequency ?? meta.freq;
+    const fileUnit = metaUnit || id.unit;
+    if (metaUnit) identity.unit = 'metadata';
+    const fileBeam = metaBeam || id.beam;
+    if (metaBeam) identity.beam = 'metadata';
+    let fileFreqHz = id.frequencyHz;
+    if (metaFreq !== undefined) {
+      const f = parseFrequencyText(metaFreq);
+      if (f === null) {
+        const line = sniff.metadataLines.frequency ?? sniff.metadataLines.freq;
+        result.errors.push(inputError(file, line, 1, 'frequency', metaFreq, "a frequency such as '28 GHz' or '28000 MHz'"));
+        return result;
+      }
+      fileFreqHz = f;
+      identity.frequency = 'metadata';
+    }
+    const base = { quantity: plan.quantity, valueUnit: plan.valueUnit, file, metadata: meta };
+    let beams: RawBeam[];
+    if (plan.layout === 'matrix') {
+      const s = outcome.sink as MatrixSink;
+      beams = [{ ...base, unit: fileUnit, beam: fileBeam, frequencyHz: fileFreqHz, ...s.acc.finish(), firstLine: s.acc.firstLine }];
+    } else {
+      const groups = (outcome.sink as LongSink).finish();
+      if (plan.unitKey >= 0) identity.unit = 'column';
+      if (plan.beamKey >= 0) identity.beam = 'column';
+      if (plan.freqSlot >= 0) identity.frequency = 'column';
+      const built = longBeams(groups, plan, outcome.keys, outcome.sink as LongSink, base, fileUnit, fileBeam, fileFreqHz, result.warnings);
+      if ('errors' in built) {
+        result.errors.push(...built.errors);
+        return result;
+      }
+      beams = built.beams;
+    }
+    info.identity = identity;
+    if (identity.unit === 'folder' || identity.unit === 'file-name' || identity.beam === 'file-name') {
+      result.warnings.push(warning('identity-from-path', `${file}: unit '${beams[0].unit}' (${identity.unit}), beam '${beams[0].beam}' (${identity.beam}) taken from the path`, { file }));
+    }
+    if (plan.fileValueUnit === 'mW' || plan.fileValueUnit === 'W') {
+      result.warnings.push(warning('unit-converted', `${file}: values in ${plan.fileValueUnit} converted to dBm`, { file }));
+    }
+    if (plan.angleConvention === 'az-el' || plan.angleUnit === 'rad') {
+      result.warnings.push(warning('angle-convention', `${file}: ${plan.angleConvention === 'az-el' ? 'azimuth/elevation' : 'theta/phi'} in ${plan.angleUnit === 'rad' ? 'radians' : 'degrees'} converted to theta/phi in degrees (theta = 90 - el, phi = az)`, { file }));
+    }
+    if (plan.layout === 'long' && plan.power) {
+      const cal = applyCalibration(beams, plan, ctx, file);
+      if (cal.errors.length) {
+        result.errors.push(...cal.errors);
+        return result;
+      }
+      info.calibrated = true;
+      result.warnings.push(...cal.warnings);
+    }
+    result.beams = beams;
+    return result;
+  } catch (e) {
+    result.errors.push({ file, message: `${file}: cannot read the file (${(e as Error).message}), expected a readable text export` });
+    return result;
+  } finally {
+    await fh.close();
+  }
+}
+
+function checkMatrixColumns(file: string, plan: MatrixPlan, sniff: HeadInfo): InputError[] {
+  const f = plan.angleUnit === 'rad' ? 180 / Math.PI : 1;
+  const out: InputError[] = [];
+  plan.colAnglesRaw.forEach((a, i) => {
+    const deg = a * f;
+    if (!(deg >= -180 - 1e-9 && deg <= 360 + 1e-9)) {
+      const what = plan.angleConvention === 'az-el' ? 'azimuth' : 'phi';
+      out.push(inputError(file, sniff.headerLine, sniff.headerCellCols[i + 1], 'header', sniff.headerCells[i + 1].trim(), `${what} between -180 and 360 degrees`));
+    }
+  });
+  return out;
+}
+
+function longBeams(
+  groups: LongGroup[], plan: LongPlan, keys: KeyTable, sink: LongSink,
+  base: Pick<RawBeam, 'quantity' | 'valueUnit' | 'file' | 'metadata'>,
+  fileUnit: string, fileBeam: string, fileFreqHz: number | null, warnings: Warning[],
+): { beams: RawBeam[] } | { errors: InputError[] } {
+  const file = base.file;
+  let assumed = false;
+  const freqOf = (raw: number): number | null => {
+    if (plan.freqSlot < 0) return fileFreqHz;
+    if (plan.freqFactor !== null) return raw * plan.freqFactor;
+    assumed = true;
+    return assumedFrequencyHz(raw);
+  };
+  const make = (g: LongGroup, values: Float64Array): RawBeam => ({
+    ...base,
+    unit: g.unitId >= 0 ? keys.names[plan.unitKey][g.unitId] : fileUnit,
+    beam: g.beamId >= 0 ? keys.names[plan.beamKey][g.beamId] : fileBeam,
+    frequencyHz: freqOf(g.freqRaw),
+    thetaDeg: g.thetaDeg, phiDeg: g.phiDeg, values, firstLine: g.firstLine,
+  });
+  const beams: RawBeam[] = [];
+  if (plan.polKey < 0) {
+    for (const g of groups) beams.push(make(g, g.values));
+  } else {
+    // Long-form polarization: pair the theta and phi groups of each (unit, beam, frequency).
+    const pairs = new Map<string, [LongGroup | null, LongGroup | null]>();
+    for (const g of groups) {
+      const k = `${g.unitId}|${g.beamId}|${g.freqRaw}`;
+      const pair = pairs.get(k) ?? [null, null];
+      pair[sink.polKind(g.polId)] = g;
+      pairs.set(k, pair);
+    }
+    const errors: InputError[] = [];
+    const polCol = plan.columns.find((c) => c.role === 'pol')!;
+    for (const [t, p] of pairs.values()) {
+      const one = (t ?? p)!;
+      if (!t || !p || !sameDirections(t, p)) {
+        const beam = make(one, one.values).beam;
+        const found = !t || !p ? `only ${t ? 'theta' : 'phi'} rows for beam '${beam}'` : `theta and phi rows of beam '${beam}' at different directions`;
+        errors.push(inputError(file, one.firstLine, 1, polCol.name, found, 'a theta and a phi row for every direction, in the same order', true));
+        continue;
+      }
+      const v = new Float64Array(t.values.length);
+      for (let i = 0; i < v.length; i++) v[i] = 10 * Math.log10(10 ** (t.values[i] / 10) + 10 ** (p.values[i] / 10)); // DESIGN.md "Polarization pair" (power sum)
+      beams.push(make(t, v));
+    }
+    if (errors.length) return { errors };
+  }
+  if (assumed) {
+    warnings.push(warning('frequency-unit-assumed', `${file}: frequency column without a unit; values below 1000 read as GHz, below 10^6 as MHz, else Hz`, { file }));
+  }
+  return { beams };
+}
+
+function sameDirections(a: LongGroup, b: LongGroup): boolean {
+  if (a.thetaDeg === b.thetaDeg && a.phiDeg === b.phiDeg) return true;
+  if (a.thetaDeg.length !== b.thetaDeg.length) return false;
+  for (let i = 0; i < a.thetaDeg.length; i++) if (a.thetaDeg[i] !== b.thetaDeg[i] || a.phiDeg[i] !== b.phiDeg[i]) return false;
+  return true;
+}
+
+function applyCalibration(beams: RawBeam[], plan: LongPlan, ctx: ReadContext, file: string): { errors: InputError[]; warnings: Warning[] } {
+  const table = ctx.job!.calibration!.table;
+  const errors: InputError[] = [];
+  const warnings: Warning[] = [];
+  const freqCol = plan.columns.find((c) => c.role === 'frequency');
+  const range = `${table[0].frequencyHz / 1e9}–${table[table.length - 1].frequencyHz / 1e9} GHz`;
+  const done = new Set<number>();
+  for (const b of beams) {
+    const line = b.firstLine ?? 1;
+    if (b.frequencyHz === null) {
+      errors.push(inputError(file, line, 1, 'frequency', 'no frequency', 'a frequency (freq column, <n>GHz file-name token or # frequency: line) to look up the calibration', true));
+      continue;
+    }
+    const off = calibrationOffsetDb(table, b.frequencyHz);
+    if (off === null) {
+      errors.push(inputError(file, line, 1, freqCol?.name ?? 'frequency', `${b.frequencyHz / 1e9} GHz`,
+        `a frequency inside the calibration table (${range}); calibration does not extrapolate`));
+      continue;
+    }
+    const v = new Float64Array(b.values.length);
+    for (let i = 0; i < v.length; i++) v[i] = b.values[i] + off; // EIRP = P_rx + offset(f), Eq. (C1) in calibrationOffset.ts
+    b.values = v;
+    if (!done.has(b.frequencyHz)) {
+      done.add(b.frequencyHz);
+      warnings.push(warning('calibration-applied', `${file}: received power + ${off.toFixed(3)} dB at ${b.frequencyHz / 1e9} GHz (job file calibration) gives EIRP`, { file }));
+    }
+  }
+  return { errors, warnings };
+}

@@ -1,0 +1,29 @@
+/** Where a tokenizer's accepted row goes; the locator gives field text and column lazily (error paths). */
+export interface RowLocator {
+  /** Field text as written (unquoted). */
+  text(field: number): string;
+  /** 1-based character column where the field starts. */
+  col(field: number): number;
+  /** 1-based column just after the row's last character. */
+  end(): number;
+  /** The row as written. */
+  rowText(): string;
+}
+
+export interface RowSink {
+  row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void;
+}
+
+/** Locator over a row split at a delimiter without quotes: column = 1 + characters before the field. */
+export function splitLocator(fields: string[], delimiter: string): RowLocator {
+  return {
+    text: (f) => fields[f] ?? '',
+    col: (f) => {
+      let c = 1;
+      for (let i = 0; i < f && i < fields.length; i++) c += fields[i].length + 1;
+      return c;
+    },
+    end: () => fields.join(delimiter).length + 1,
+    rowText: () => fields.join(delimiter),
+  };
+}

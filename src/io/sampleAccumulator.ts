@@ -1,0 +1,90 @@
+/**
+ * Growable (θ, φ, value) columns of one beam group, doubling Float64Arrays.
+ *
+ * Memory rule: a group whose directions repeat those of the first group (the template) stores
+ * only its values, so a 64-beam file keeps one copy of the angles; equal-length followers get
+ * the very same angle arrays, which assembleMeasurements recognizes by reference.
+ */
+export class SampleAccumulator {
+  n = 0;
+  values = new Float64Array(1024);
+  thetaDeg: Float64Array | null = null;
+  phiDeg: Float64Array | null = null;
+  private views = new Map<number, [Float64Array, Float64Array]>();
+
+  constructor(
+    readonly template: SampleAccumulator | null,
+    readonly firstLine: number,
+  ) {
+    if (template === null) {
+      this.thetaDeg = new Float64Array(1024);
+      this.phiDeg = new Float64Array(1024);
+    }
+  }
+
+  push(thetaDeg: number, phiDeg: number, value: number): void {
+    const n = this.n;
+    if (n === this.values.length) this.grow();
+    if (this.thetaDeg === null) {
+      const t = this.template as SampleAccumulator;
+      if (n >= t.n || t.thetaDeg![n] !== thetaDeg || t.phiDeg![n] !== phiDeg) this.materialize();
+    }
+    if (this.thetaDeg !== null) {
+      this.thetaDeg[n] = thetaDeg;
+      this.phiDeg![n] = phiDeg;
+    }
+    this.values[n] = value;
+    this.n = n + 1;
+  }
+
+  private grow(): void {
+    const cap = this.values.length * 2;
+    const g = (a: Float64Array): Float64Array<ArrayBuffer> => {
+      const b = new Float64Array(cap);
+      b.set(a);
+      return b;
+    };
+    this.values = g(this.values);
+    if (this.thetaDeg) {
+      this.thetaDeg = g(this.thetaDeg);
+      this.phiDeg = g(this.phiDeg!);
+    }
+  }
+
+  private materialize(): void {
+    const t = this.template as SampleAccumulator;
+    this.thetaDeg = new Float64Array(this.values.length);
+    this.phiDeg = new Float64Array(this.values.length);
+    this.thetaDeg.set(t.thetaDeg!.subarray(0, this.n));
+    this.phiDeg.set(t.phiDeg!.subarray(0, this.n));
+  }
+
+  /** Angle arrays of the first `n` samples, one shared object per length. */
+  private angleView(n: number): [Float64Array, Float64Array] {
+    let v = this.views.get(n);
+    if (!v) {
+      v = [trim(this.thetaDeg!, n), trim(this.phiDeg!, n)];
+      this.views.set(n, v);
+    }
+    return v;
+  }
+
+  /** Final arrays (trimmed; shared angles for template followers). */
+  finish(): { thetaDeg: Float64Array; phiDeg: Float64Array; values: Float64Array } {
+    const values = trim(this.values, this.n);
+    if (this.thetaDeg === null) {
+      const [thetaDeg, phiDeg] = (this.template as SampleAccumulator).angleView(this.n);
+      return { thetaDeg, phiDeg, values };
+    }
+    if (this.template === null) {
+      const [thetaDeg, phiDeg] = this.angleView(this.n);
+      return { thetaDeg, phiDeg, values };
+    }
+    return { thetaDeg: trim(this.thetaDeg, this.n), phiDeg: trim(this.phiDeg!, this.n), values };
+  }
+}
+
+/** View when little capacity is wasted, else a compact copy. */
+function trim(a: Float64Array, n: number): Float64Array {
+  return a.length <= n * 1.25 ? a.subarray(0, n) : a.slice(0, n);
+}

@@ -1,0 +1,141 @@
+import Papa from 'papaparse';
+import type { InputError } from '../types.js';
+import { inputError } from './inputError.js';
+
+export const HEAD_BYTES = 64 * 1024;
+
+/** What the first kilobytes of a file say about it. */
+export interface HeadInfo {
+  bom: boolean;
+  delimiter: ',' | ';' | '\t';
+  decimalComma: boolean;
+  lineEnding: 'LF' | 'CRLF';
+  metadata: Record<string, string>;
+  metadataLines: Record<string, number>;
+  headerLine: number;
+  headerText: string;
+  headerCells: string[];
+  headerCellCols: number[];
+  /** Offsets just after the header line's newline: in bytes (file) and in characters (text without BOM). */
+  dataByteStart: number;
+  dataCharStart: number;
+  /** The data part of the head holds a quote character: use the general path. */
+  quoted: boolean;
+}
+
+const META_RE = /^#\s*([A-Za-z][\w .-]*?)\s*[:=]\s*(.*?)\s*$/;
+
+/** Binary data: a NUL byte, or many control bytes, in the head. */
+function binaryAt(head: Buffer): number {
+  const nul = head.indexOf(0);
+  if (nul >= 0) return nul;
+  let ctrl = 0;
+  for (let i = 0; i < head.length; i++) {
+    const c = head[i];
+    if (c < 9 || (c > 13 && c < 32)) {
+      if (++ctrl > 8 && ctrl * 20 > Math.min(head.length, 4096)) return i;
+    }
+  }
+  return -1;
+}
+
+function lineColOf(head: Buffer, offset: number): [number, number] {
+  let line = 1;
+  let lastNl = -1;
+  for (let i = 0; i < offset; i++) if (head[i] === 10) [line, lastNl] = [line + 1, i];
+  return [line, offset - lastNl];
+}
+
+/**
+ * Read the preamble (comments, `# key: value` metadata), the header line and the dialect
+ * (delimiter by papaparse's guesser over the header and the first rows; decimal comma when the
+ * delimiter is ';' or tab and numbers are written '12,5'; BOM; line ending) from the head bytes.
+ */
+export function sniffHead(file: string, head: Buffer, wholeFile: boolean): HeadInfo | InputError {
+  if (head.length === 0) return inputError(file, 1, 1, 'file', 'an empty file', 'a header row and data rows', true);
+  const bin = binaryAt(head);
+  if (bin >= 0) {
+    const [line, col] = lineColOf(head, bin);
+    const byte = head[bin].toString(16).padStart(2, '0');
+    return inputError(file, line, col, 'file', `binary data (byte 0x${byte} at offset ${bin})`, 'a text export (CSV, TSV or TXT)', true);
+  }
+  const bom = head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf;
+  let body = head.subarray(bom ? 3 : 0);
+  if (!wholeFile) {
+    const lastNl = body.lastIndexOf(10);
+    body = body.subarray(0, lastNl + 1);
+  }
+  const text = body.toString('utf8');
+  const metadata: Record<string, string> = {};
+  const metadataLines: Record<string, number> = {};
+  let pos = 0;
+  let line = 1;
+  let header: { text: string; line: number; start: number; next: number } | null = null;
+  while (pos < text.length) {
+    const nl = text.indexOf('\n', pos);
+    const next = nl < 0 ? text.length : nl + 1;
+    const raw = text.slice(pos, nl < 0 ? text.length : nl).replace(/\r$/, '');
+    if (raw.startsWith('#')) {
+      const m = META_RE.exec(raw);
+      if (m) {
+        const key = m[1].trim().toLowerCase();
+        metadata[key] = m[2];
+        metadataLines[key] = line;
+      }
+    } else if (raw.trim() !== '') {
+      header = { text: raw, line, start: pos, next };
+      break;
+    }
+    pos = next;
+    line++;
+  }
+  if (!header) {
+    if (!wholeFile) return inputError(file, line, 1, 'header', 'no header row in the first 64 KiB', 'a header row naming the columns', true);
+    const what = Object.keys(metadata).length || text.trim() ? 'only comment lines' : 'an empty file';
+    return inputError(file, 1, 1, 'file', what, 'a header row and data rows', true);
+  }
+  const lineEnding = text[header.next - 2] === '\r' && text[header.next - 1] === '\n' ? 'CRLF' : 'LF';
+  const sampleEnd = nthLineEnd(text, header.start, 21);
+  const sample = text.slice(header.start, sampleEnd);
+  const guess = Papa.parse<string[]>(sample, { delimitersToGuess: [',', ';', '\t'], comments: '#', skipEmptyLines: true, preview: 21 });
+  const delimiter = (guess.meta.delimiter === ';' || guess.meta.delimiter === '\t' ? guess.meta.delimiter : ',') as HeadInfo['delimiter'];
+  const rows = Papa.parse<string[]>(sample, { delimiter, comments: '#', skipEmptyLines: true, preview: 21 }).data;
+  const decimalComma = delimiter !== ',' && rows.slice(1).some((r) => r.some((c) => /^\s*[+-]?\d*,\d+\s*$/.test(c)));
+  const headerCells = header.text.includes('"') ? Papa.parse<string[]>(header.text, { delimiter }).data[0] ?? [''] : header.text.split(delimiter);
+  const headerCellCols = cellCols(header.text, delimiter);
+  const dataPart = text.slice(header.next);
+  return {
+    bom,
+    delimiter,
+    decimalComma,
+    lineEnding,
+    metadata,
+    metadataLines,
+    headerLine: header.line,
+    headerText: header.text,
+    headerCells,
+    headerCellCols,
+    dataByteStart: (bom ? 3 : 0) + Buffer.byteLength(text.slice(0, header.next)),
+    dataCharStart: header.next,
+    quoted: dataPart.includes('"'),
+  };
+}
+
+function nthLineEnd(text: string, from: number, n: number): number {
+  let p = from;
+  for (let i = 0; i < n && p < text.length; i++) {
+    const nl = text.indexOf('\n', p);
+    p = nl < 0 ? text.length : nl + 1;
+  }
+  return p;
+}
+
+function cellCols(raw: string, delimiter: string): number[] {
+  const cols = [1];
+  let q = false;
+  for (let i = 0; i < raw.length; i++) {
+    if (raw[i] === '"') q = !q;
+    else if (!q && raw[i] === delimiter) cols.push(i + 2);
+  }
+  return cols;
+}

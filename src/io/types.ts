@@ -1,0 +1,165 @@
+/**
+ * Types of the readers (src/io): what one file read gives, the job file, and the inspect report.
+ */
+import type { GridKind, InputError, Quantity, ValueUnit, Warning } from '../types.js';
+
+/** Column roles a header cell (or a job-file `columns:` entry) can take. */
+export type ColumnRole =
+  | 'theta'
+  | 'phi'
+  | 'azimuth'
+  | 'elevation'
+  | 'value'
+  | 'valueTheta'
+  | 'valuePhi'
+  | 'power'
+  | 'pol'
+  | 'unit'
+  | 'beam'
+  | 'frequency';
+
+/** One calibration point: offset added to received power (dBm) to give EIRP (dBm). */
+export interface CalibrationPoint {
+  frequencyHz: number;
+  offsetDb: number;
+}
+
+/**
+ * What the job file declares. Keys other stages read (limits, checks, percentiles,
+ * coverageThresholds, report, reference) are validated only for their outer shape here.
+ */
+export interface JobSpec {
+  /** Absolute path of the job file this came from. */
+  source: string;
+  /** Role → header name (matched case-insensitively, surrounding spaces ignored). */
+  columns?: Partial<Record<ColumnRole, string>>;
+  /** Regular expressions matched against the file path relative to the input root; group 1 is the value. */
+  identity?: { unit?: string; beam?: string; frequencyGhz?: string };
+  quantity?: Quantity;
+  /** Unit of value columns that carry none in the header. */
+  valueUnit?: 'dBm' | 'dBi' | 'mW' | 'W';
+  angles?: { convention?: 'theta-phi' | 'az-el'; unit?: 'deg' | 'rad' };
+  /** Unit of a frequency column without one in its header. */
+  frequencyUnit?: 'Hz' | 'MHz' | 'GHz';
+  calibration?: { table: CalibrationPoint[] };
+  limits?: string;
+  checks?: Record<string, unknown>[];
+  percentiles?: number[];
+  coverageThresholds?: number[];
+  report?: Record<string, unknown>;
+  reference?: string;
+}
+
+export interface ReadContext {
+  /** Folder the file paths are reported relative to. */
+  inputRoot: string;
+  job?: JobSpec;
+  quantityOverride?: Quantity;
+  /** Force a parser path (tests and benchmarks); default 'auto'. */
+  parser?: 'auto' | 'fast' | 'general';
+}
+
+/** One beam of one unit (at one frequency) as found in one file, before grid building. */
+export interface RawBeam {
+  unit: string;
+  beam: string;
+  frequencyHz: number | null;
+  quantity: Quantity;
+  valueUnit: ValueUnit;
+  /** Degrees, θ ∈ [0, 180]; φ as read (degrees, −180..360), normalized by the grid builder. */
+  thetaDeg: Float64Array;
+  phiDeg: Float64Array;
+  /** dB values (dBm or dBi), one per sample. */
+  values: Float64Array;
+  /** File relative to the input root. */
+  file: string;
+  /** `# key: value` lines of the file. */
+  metadata?: Record<string, string>;
+  /** 1-based line of the first row of this beam. */
+  firstLine?: number;
+}
+
+export type IdentitySource = 'column' | 'metadata' | 'job' | 'folder' | 'file-name' | 'none';
+
+export interface ColumnInfo {
+  index: number;
+  name: string;
+  /** Role, or null when the column is ignored. */
+  role: ColumnRole | 'matrix-angle' | null;
+  /** Unit from the header (deg, rad, dBm, dBi, mW, W, Hz, MHz, GHz), or null. */
+  unit: string | null;
+}
+
+/** How a file was understood (for `spherecov inspect`). */
+export interface FileInfo {
+  layout: 'long' | 'matrix' | null;
+  delimiter: ',' | ';' | '\t' | null;
+  decimalComma: boolean;
+  bom: boolean;
+  lineEnding: 'LF' | 'CRLF' | null;
+  parser: 'fast' | 'general' | null;
+  columns: ColumnInfo[];
+  quantity: Quantity | null;
+  valueUnit: ValueUnit | null;
+  /** Unit of the values as written in the file (dBm, dBi, mW, W). */
+  fileValueUnit: string | null;
+  angleConvention: 'theta-phi' | 'az-el' | null;
+  angleUnit: 'deg' | 'rad' | null;
+  /** Data rows read (excluding header, comments and blank lines). */
+  rows: number;
+  metadata: Record<string, string>;
+  identity: { unit: IdentitySource; beam: IdentitySource; frequency: IdentitySource };
+  /** Matrix layout: the column angles. */
+  matrixColumnsDeg?: number[];
+  calibrated: boolean;
+}
+
+export interface FileReadResult {
+  /** Relative to the input root, '/'-separated. */
+  file: string;
+  sha256: string;
+  info: FileInfo;
+  beams: RawBeam[];
+  errors: InputError[];
+  warnings: Warning[];
+}
+
+export interface InspectGrid {
+  kind: GridKind;
+  points: number;
+  thetaRangeDeg: [number, number];
+  phiRangeDeg: [number, number];
+  thetaStepDeg: number | null;
+  phiStepDeg: number | null;
+  solidAngleSr: number;
+  fullSphere: boolean;
+  duplicatesMerged: number;
+}
+
+export interface InspectMeasurement {
+  unit: string;
+  frequencyHz: number | null;
+  quantity: Quantity;
+  valueUnit: ValueUnit;
+  beams: string[];
+  files: string[];
+  grid: InspectGrid;
+  warnings: Warning[];
+}
+
+export interface InspectReport {
+  input: string;
+  job: { path: string | null; errors: InputError[] };
+  files: (FileReadResult['info'] & {
+    file: string;
+    sha256: string;
+    units: string[];
+    beams: string[];
+    frequenciesHz: (number | null)[];
+    errors: InputError[];
+    warnings: Warning[];
+  })[];
+  measurements: InspectMeasurement[];
+  errors: InputError[];
+  warnings: Warning[];
+}
