@@ -35,6 +35,23 @@ export function findHoles(
   quantity: Quantity,
   adjacency: GridAdjacency = gridNeighbors(grid),
 ): CoverageHole[] {
+  return findHolesWithLabels(grid, tsp, beams, beamIds, threshold, quantity, adjacency).holes;
+}
+
+/**
+ * `findHoles` plus the membership of every grid point: holeOf[i] is the index in `holes` of the
+ * hole that point i belongs to, or −1 (for outlining holes on a map). Same rules and cost.
+ * @example findHolesWithLabels(grid, tsp, beams, ids, 10, 'eirp').holeOf[42] // 0: in the largest hole
+ */
+export function findHolesWithLabels(
+  grid: SphereGrid,
+  tsp: TotalScanPattern,
+  beams: Float64Array[],
+  beamIds: string[],
+  threshold: number,
+  quantity: Quantity,
+  adjacency: GridAdjacency = gridNeighbors(grid),
+): { holes: CoverageHole[]; holeOf: Int32Array } {
   if (beams.length !== beamIds.length) throw new Error(`findHoles: ${beams.length} beams but ${beamIds.length} ids`);
   const n = grid.thetaDeg.length;
   const values = tsp.values;
@@ -45,6 +62,7 @@ export function findHoles(
     inHole[i] = Number.isNaN(v) || (lowerIsBetter ? v > threshold : v < threshold) ? 1 : 0;
   }
   const { offsets, neighbors } = adjacency;
+  const holeOf = new Int32Array(n).fill(-1);
   const seen = new Uint8Array(n);
   const queue = new Int32Array(n);
   const found: (CoverageHole & { first: number })[] = [];
@@ -60,10 +78,15 @@ export function findHoles(
         if (inHole[j] && !seen[j]) { seen[j] = 1; queue[tail++] = j; }
       }
     }
-    found.push({ ...describeHole(grid, values, beams, beamIds, queue.subarray(0, tail), lowerIsBetter), first: seed });
+    for (let k = 0; k < tail; k++) holeOf[queue[k]] = found.length;
+    found.push({ ...describeHole(grid, values, beams, beamIds, queue.subarray(0, tail), lowerIsBetter), first: found.length });
   }
-  found.sort((a, b) => b.solidAngleSr - a.solidAngleSr || worseFirst(a.worst, b.worst, lowerIsBetter) || a.first - b.first);
-  return found.map(({ first: _first, ...hole }) => hole);
+  const order = found.map((_, k) => k);
+  order.sort((a, b) => found[b].solidAngleSr - found[a].solidAngleSr || worseFirst(found[a].worst, found[b].worst, lowerIsBetter) || a - b);
+  const rank = new Int32Array(found.length);
+  order.forEach((k, r) => { rank[k] = r; });
+  for (let i = 0; i < n; i++) if (holeOf[i] >= 0) holeOf[i] = rank[holeOf[i]];
+  return { holes: order.map((k) => { const { first: _first, ...hole } = found[k]; return hole; }), holeOf };
 }
 
 function worseFirst(a: number, b: number, lowerIsBetter: boolean): number {

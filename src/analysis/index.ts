@@ -1,5 +1,5 @@
 // Deeper analysis (issue 9): holes, beam value, reference unit, frequency trend. Re-exports only.
-export { findHoles } from './findHoles.js';
+export { findHoles, findHolesWithLabels } from './findHoles.js';
 export { createPercentileSelector } from './percentileSelector.js';
 export { beamRemoval } from './beamRemoval.js';
 export { greedySubset } from './greedySubset.js';
