@@ -3,6 +3,7 @@
  */
 import { readdir, realpath, stat } from 'node:fs/promises';
 import path from 'node:path';
+import { existsSync } from 'node:fs';
 
 const EXPORT_EXT = new Set(['.csv', '.tsv', '.txt']);
 const JOB_FILES = new Set(['spherecov.yaml', 'spherecov.yml', 'spherecov.json']);
@@ -14,6 +15,17 @@ export interface Discovery {
   files: string[];
   /** Symbolic links skipped because they point outside the input folder (relative paths). */
   skippedLinks: string[];
+  /** The job file in the input folder (spherecov.yaml, .yml or .json, first found), or null. */
+  jobFile: string | null;
+}
+
+/** The job file of an input folder: spherecov.yaml, then .yml, then .json (CONTRACT order). */
+export function jobFileIn(dir: string): string | null {
+  for (const n of ['spherecov.yaml', 'spherecov.yml', 'spherecov.json']) {
+    const p = path.join(dir, n);
+    if (existsSync(p)) return p;
+  }
+  return null;
 }
 
 /** Code-point comparison: the same order on every platform and locale. */
@@ -37,7 +49,7 @@ function inside(root: string, p: string): boolean {
 export async function discoverInputs(input: string, exclude: string[] = []): Promise<Discovery> {
   const abs = path.resolve(input);
   const st = await stat(abs);
-  if (st.isFile()) return { root: path.dirname(abs), files: [abs], skippedLinks: [] };
+  if (st.isFile()) return { root: path.dirname(abs), files: [abs], skippedLinks: [], jobFile: jobFileIn(path.dirname(abs)) };
   const realRoot = await realpath(abs);
   const realExclude = await Promise.all(exclude.map((e) => realpath(e).catch(() => path.resolve(e))));
   const files: string[] = [];
@@ -82,7 +94,7 @@ export async function discoverInputs(input: string, exclude: string[] = []): Pro
 
   await walk(abs, realRoot);
   files.sort((a, b) => byCodePoint(toPosix(path.relative(abs, a)), toPosix(path.relative(abs, b))));
-  return { root: abs, files, skippedLinks };
+  return { root: abs, files, skippedLinks, jobFile: jobFileIn(abs) };
 }
 
 export function toPosix(p: string): string {

@@ -13,3 +13,13 @@ export class InterruptedError extends Error {
     this.name = 'InterruptedError';
   }
 }
+
+/**
+ * One InputError as a line in the project's grammar (`<file>:<line>:<col>: message`). Readers
+ * already put the location in their messages; it is added only when missing.
+ */
+export function formatInputError(e: { file: string; line?: number; column?: number; message: string }): string {
+  const where = [e.file, e.line, e.column].filter((x) => x !== undefined && x !== '').join(':');
+  if (!where || e.message.startsWith(`${e.file}:`) || e.message.startsWith(where)) return e.message;
+  return `${where}: ${e.message}`;
+}

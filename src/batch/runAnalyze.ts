@@ -7,16 +7,14 @@ import { existsSync } from 'node:fs';
 import type { InputError, ResultsFile, UnitResult, Warning } from '../types.js';
 import type { JobSpec } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
-import { loadJobFile, findJobFile } from '../io/jobFile.js';
 import { loadLimitSet } from '../limits/loadLimitSet.js';
 import { metricNeeds } from '../limits/metricNeeds.js';
 import { buildStatistics } from '../limits/buildStatistics.js';
-import { renderBuildPdf } from '../report/renderBuildPdf.js';
 import { loadReportSettings, ReportSettingsError } from '../report/settings.js';
 import { unitKey, type MapThumbnail, type ReportSettings } from '../report/reportTypes.js';
 import type { CdfCurve } from '../report/cdfCurve.js';
 import { DEFAULT_PERCENTILES_PCT, type AnalyzeOptions, type BatchIo } from './options.js';
-import { InterruptedError, RunError } from './errors.js';
+import { InterruptedError, RunError, formatInputError as formatError } from './errors.js';
 import { discoverInputs, groupKey, toPosix, byCodePoint } from './discover.js';
 import { OutputWriter, outputDirProblem } from './outputDir.js';
 import { acquireLock, LockBusyError } from './lock.js';
@@ -49,15 +47,11 @@ export function compareUnits(a: UnitResult, b: UnitResult): number {
   return a.frequencyHz - b.frequencyHz;
 }
 
-function formatError(e: InputError): string {
-  const where = [e.file, e.line, e.column].filter((x) => x !== undefined && x !== '').join(':');
-  return where ? `${where}: ${e.message}` : e.message;
-}
-
-function loadJob(opts: AnalyzeOptions, inputDir: string): JobSpec | null {
-  const file = opts.jobFile ?? findJobFile(inputDir);
+async function loadJob(opts: AnalyzeOptions, found: string | null): Promise<JobSpec | null> {
+  const file = opts.jobFile ?? found;
   if (!file) return null;
   if (opts.jobFile && !existsSync(opts.jobFile)) throw new RunError(`--job: '${opts.jobFile}' does not exist`);
+  const { loadJobFile } = await import('../io/jobFile.js');
   const { job, errors } = loadJobFile(file);
   if (errors.length > 0 || !job) {
     throw new RunError(`the job file could not be used:\n  ${errors.map(formatError).join('\n  ')}`);
@@ -113,7 +107,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   if (problem) throw new RunError(problem);
 
   const discovery = await discoverInputs(input, [outDir]);
-  const job = loadJob(opts, discovery.root);
+  const job = await loadJob(opts, discovery.jobFile);
   const limitSet = loadLimits(opts.limits ?? job?.limits);
   const needs = limitSet ? metricNeeds(limitSet) : { percentilesPct: [], thresholds: [] };
   const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
@@ -237,6 +231,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         if (u.thumbnail) thumbnails[k] = u.thumbnail;
         if (u.cdf) cdfs[k] = u.cdf;
       }
+      const { renderBuildPdf } = await import('../report/renderBuildPdf.js');
       const summaryPdf = await renderBuildPdf(
         {
           units,

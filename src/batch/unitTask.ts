@@ -14,9 +14,7 @@ import { frequencyInRange } from '../limits/frequencyInRange.js';
 import { findHoles } from '../analysis/findHoles.js';
 import { beamRemoval } from '../analysis/beamRemoval.js';
 import { greedySubset } from '../analysis/greedySubset.js';
-import { renderUnitPdf } from '../report/unitReport.js';
-import { unitMapThumbnail } from '../report/unitMapThumbnail.js';
-import { cdfCurve, type CdfCurve } from '../report/cdfCurve.js';
+import type { CdfCurve } from '../report/cdfCurve.js';
 import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';
 import { gridSummary } from './gridSummary.js';
 
@@ -124,16 +122,23 @@ export async function analyzeMeasurement(m: Measurement, input: TaskInput): Prom
     holes: hT === null ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
     subset: greedySubset(m.grid, beamValues, beamIds, m.quantity, level),
   };
-  let pdf: Uint8Array | null = null;
-  if (input.report) {
-    const settings = input.report;
-    const buf = await renderUnitPdf(
-      { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion },
-      settings,
-    );
-    pdf = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength);
-  }
-  return { result, thumbnail: unitMapThumbnail(m, tsp), cdf: cdfCurve(tsp.values, m.grid.weightSr, m.quantity), pdf };
+  if (!input.report) return { result, thumbnail: null, cdf: null, pdf: null };
+  // The report modules (pdfkit, fonts) load only when PDFs are wanted: --no-pdf stays lean.
+  const [{ renderUnitPdf }, { unitMapThumbnail }, { cdfCurve }] = await Promise.all([
+    import('../report/unitReport.js'),
+    import('../report/unitMapThumbnail.js'),
+    import('../report/cdfCurve.js'),
+  ]);
+  const buf = await renderUnitPdf(
+    { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion },
+    input.report,
+  );
+  return {
+    result,
+    thumbnail: unitMapThumbnail(m, tsp),
+    cdf: cdfCurve(tsp.values, m.grid.weightSr, m.quantity),
+    pdf: new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength),
+  };
 }
 
 /**

@@ -1,20 +1,16 @@
 /**
  * `spherecov inspect` and `spherecov limits`: thin wrappers over the readers and the limits module.
  */
-import { inspectInput, formatInspect } from '../io/inspect.js';
 import { listProfiles } from '../limits/listProfiles.js';
 import { loadLimitSet } from '../limits/loadLimitSet.js';
 import { formatLimitSet } from '../limits/formatLimitSet.js';
 import type { BatchIo } from '../batch/options.js';
-import type { InputError, Quantity } from '../types.js';
+import type { Quantity } from '../types.js';
 import { existsSync } from 'node:fs';
 import { UsageError } from './parse.js';
 
-/** One InputError in the project's grammar: `<file>:<line>:<col>: message`. */
-export function formatInputError(e: InputError): string {
-  const where = [e.file, e.line, e.column].filter((x) => x !== undefined && x !== '').join(':');
-  return where ? `${where}: ${e.message}` : e.message;
-}
+export { formatInputError } from '../batch/errors.js';
+import { formatInputError } from '../batch/errors.js';
 
 export async function runInspect(
   target: string,
@@ -22,6 +18,7 @@ export async function runInspect(
   io: BatchIo,
 ): Promise<number> {
   if (!existsSync(target)) throw new UsageError(`inspect: '${target}' does not exist; give a folder or a file of exports`);
+  const { inspectInput, formatInspect } = await import('../io/inspect.js');
   const report = await inspectInput(target, { quantityOverride: opts.quantity, jobFile: opts.jobFile });
   if (opts.json) io.stdout(JSON.stringify(report, null, 2) + '\n');
   else io.stdout(formatInspect(report));

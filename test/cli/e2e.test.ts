@@ -4,7 +4,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { spawn, spawnSync } from 'node:child_process';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, linkSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { ensureBuilt, ROOT } from './buildOnce.js';
@@ -226,16 +226,22 @@ describe('output folder', () => {
 describe('SIGINT', () => {
   it('stops cleanly: exit 130, how far it got, no temporary files, lock released', async () => {
     const input = tmp();
-    for (let k = 0; k < 40; k++) cpSync(path.join(FIX, 'pass', 'U-01'), path.join(input, `S-${String(k).padStart(2, '0')}`), { recursive: true });
+    // Hard links: many units for the price of one (distinct paths, so discovery keeps each).
+    const src = path.join(FIX, 'pass', 'U-01');
+    for (let k = 0; k < 200; k++) {
+      const d = path.join(input, `S-${String(k).padStart(3, '0')}`);
+      mkdirSync(d);
+      for (const f of readdirSync(src)) linkSync(path.join(src, f), path.join(d, f));
+    }
     const out = tmp();
     mkdirSync(out, { recursive: true });
     const child = spawn(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', input, '--out', out, '--no-pdf', '--jobs', '1'], { cwd: ROOT });
     let stderr = '';
     child.stderr.on('data', (d) => (stderr += String(d)));
-    setTimeout(() => child.kill('SIGINT'), 1500);
+    setTimeout(() => child.kill('SIGINT'), 1000);
     const code = await new Promise<number | null>((resolve) => child.on('close', (c) => resolve(c)));
     expect(code).toBe(130);
-    expect(stderr).toMatch(/interrupted while analyzing: \d+ of 40 group\(s\) done/);
+    expect(stderr).toMatch(/interrupted while analyzing: \d+ of 200 group\(s\) done/);
     expect(readdirSync(out).filter((f) => f.includes('spherecov-tmp') || f === '.spherecov.lock')).toEqual([]);
     expect(existsSync(path.join(out, 'results.json'))).toBe(false);
   });
