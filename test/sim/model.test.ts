@@ -143,7 +143,7 @@ describe('measurement noise', () => {
 
 describe('handset module', () => {
   it('has 8 elements, 16 beams, and each beam peaks near P + 10·log10(4·G(0))', () => {
-    const { model, codebook } = handsetModule({ conductedPowerDbm: 13, phaseBits: null });
+    const { model, codebook } = handsetModule({ conductedPowerDbm: 13, phaseBits: null, backElementQ: 1.5, edgeElementQ: 1.5, floorDb: -18 });
     expect(model.elements.length).toBe(8);
     expect(codebook.map((b) => b.id)).toEqual(Array.from({ length: 16 }, (_, i) => String(i)));
     expect(handsetModule({ conductedPowerDbm: 13, extraBeams: 48 }).codebook.length).toBe(64);
