@@ -8,3 +8,12 @@ export {
   judge, evaluateCheck, mergeLimitSets, metricNeeds, frequencyInRange, buildStatistics,
 } from './limits/index.js';
 export type { LimitSet, LimitCheck, ProfileInfo, JudgeResult } from './limits/index.js';
+
+// read + normalize: chamber exports, job file, inspect
+export {
+  readExportFile, assembleMeasurements, MAX_RESAMPLE_DISTANCE_DEG, loadJobFile, findJobFile, JOB_FILE_NAMES,
+  inspectInput, formatInspect, findExportFiles, calibrationOffsetDb, pathIdentity,
+} from './io/index.js';
+export type {
+  ReadContext, FileReadResult, RawBeam, FileInfo, JobSpec, InspectReport, InspectOptions, CalibrationPoint, ColumnRole,
+} from './io/index.js';

@@ -81,6 +81,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       angleConvention: plan.angleConvention, angleUnit: plan.angleUnit,
     });
     if (plan.layout === 'matrix') {
+      info.matrixColumnsDeg = plan.colAnglesRaw;
       const bad = checkMatrixColumns(file, plan, sniff);
       if (bad.length) {
         result.errors.push(...bad);

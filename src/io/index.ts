@@ -1,0 +1,9 @@
+// Readers: chamber exports → raw beams → Measurements; job file; inspect.
+export { readExportFile } from './readExportFile.js';
+export { assembleMeasurements, MAX_RESAMPLE_DISTANCE_DEG } from './assembleMeasurements.js';
+export { loadJobFile, findJobFile, JOB_FILE_NAMES } from './jobFile.js';
+export { inspectInput, formatInspect, type InspectOptions } from './inspectInput.js';
+export { findExportFiles } from './findExportFiles.js';
+export { calibrationOffsetDb } from './calibrationOffset.js';
+export { pathIdentity } from './pathIdentity.js';
+export type * from './types.js';

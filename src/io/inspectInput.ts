@@ -1,0 +1,128 @@
+import { existsSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { isFullSphere } from '../sphere/isFullSphere.js';
+import type { InputError, Quantity, SphereGrid, Warning } from '../types.js';
+import { assembleMeasurements } from './assembleMeasurements.js';
+import { findExportFiles } from './findExportFiles.js';
+import { findJobFile, loadJobFile } from './jobFile.js';
+import { readExportFile } from './readExportFile.js';
+import type { InspectGrid, InspectReport, JobSpec, RawBeam } from './types.js';
+
+export interface InspectOptions {
+  /** Explicit job file; default: spherecov.yaml/.yml/.json in the input folder. */
+  job?: string;
+  quantity?: Quantity;
+}
+
+function steps(sorted: number[]): number | null {
+  if (sorted.length < 2) return null;
+  const d = sorted[1] - sorted[0];
+  for (let i = 2; i < sorted.length; i++) if (Math.abs(sorted[i] - sorted[i - 1] - d) > 1e-6) return null;
+  return d;
+}
+
+function gridSummary(g: SphereGrid, merged: number): InspectGrid {
+  const th = g.regular ? Array.from(g.regular.thetaRowsDeg) : Array.from(new Set(g.thetaDeg)).sort((a, b) => a - b);
+  const ph = g.regular ? Array.from(g.regular.phiColsDeg) : Array.from(new Set(g.phiDeg)).sort((a, b) => a - b);
+  return {
+    kind: g.kind,
+    points: g.thetaDeg.length,
+    thetaRangeDeg: [th[0], th[th.length - 1]],
+    phiRangeDeg: [ph[0], ph[ph.length - 1]],
+    thetaStepDeg: g.kind === 'regular' ? steps(th) : null,
+    phiStepDeg: g.kind === 'regular' ? steps(ph) : null,
+    solidAngleSr: g.solidAngleSr,
+    fullSphere: isFullSphere(g),
+    duplicatesMerged: merged,
+  };
+}
+
+/**
+ * How spherecov understands a file or folder, before anyone trusts a number: per file the
+ * layout, dialect, column roles, units, angle convention, identities; per unit and frequency
+ * the grid; all warnings and errors. Never throws for bad input.
+ */
+export async function inspectInput(input: string, opts: InspectOptions = {}): Promise<InspectReport> {
+  const abs = path.resolve(input);
+  const report: InspectReport = { input, job: { path: null, errors: [] }, files: [], measurements: [], errors: [], warnings: [] };
+  if (!existsSync(abs)) {
+    report.errors.push({ file: input, message: `${input}: not found, expected a file or folder of exports` });
+    return report;
+  }
+  const root = statSync(abs).isFile() ? path.dirname(abs) : abs;
+  const jobPath = opts.job ? path.resolve(opts.job) : findJobFile(root);
+  let job: JobSpec | undefined;
+  if (jobPath) {
+    const loaded = loadJobFile(jobPath);
+    report.job = { path: jobPath, errors: loaded.errors };
+    report.errors.push(...loaded.errors);
+    job = loaded.job ?? undefined;
+  }
+  const beams: RawBeam[] = [];
+  for (const f of findExportFiles(abs)) {
+    const r = await readExportFile(f, { inputRoot: root, job, quantityOverride: opts.quantity });
+    report.files.push({
+      ...r.info, file: r.file, sha256: r.sha256,
+      units: [...new Set(r.beams.map((b) => b.unit))], beams: [...new Set(r.beams.map((b) => b.beam))],
+      frequenciesHz: [...new Set(r.beams.map((b) => b.frequencyHz))], errors: r.errors, warnings: r.warnings,
+    });
+    report.errors.push(...r.errors);
+    report.warnings.push(...r.warnings);
+    beams.push(...r.beams);
+  }
+  const sources = report.files.map((f) => ({ path: f.file, sha256: f.sha256 }));
+  const asm = assembleMeasurements(beams, sources);
+  report.errors.push(...asm.errors);
+  report.warnings.push(...asm.warnings);
+  for (const m of asm.measurements) {
+    const files = m.sources.map((s) => s.path);
+    const raw = beams.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz);
+    const samples = raw.length ? raw.reduce((n, b) => Math.max(n, b.values.length), 0) : 0;
+    report.measurements.push({
+      unit: m.unit, frequencyHz: m.frequencyHz, quantity: m.quantity, valueUnit: m.valueUnit,
+      beams: m.beams.map((b) => b.id), files, grid: gridSummary(m.grid, Math.max(0, samples - m.grid.thetaDeg.length)), warnings: m.warnings,
+    });
+  }
+  return report;
+}
+
+const n4 = (x: number): string => String(Number(x.toFixed(4)));
+const ghz = (f: number | null): string => (f === null ? 'none' : `${n4(f / 1e9)} GHz`);
+
+function listErrors(out: string[], errors: InputError[], warnings: Warning[], indent: string): void {
+  for (const e of errors) out.push(`${indent}error: ${e.message}`);
+  for (const w of warnings) out.push(`${indent}warning [${w.code}]: ${w.message}`);
+}
+
+/** Plain-text rendering of an inspect report (stdout of `spherecov inspect`). */
+export function formatInspect(r: InspectReport): string {
+  const out: string[] = [`input: ${r.input}`, `job file: ${r.job.path ?? 'none'}`];
+  for (const e of r.job.errors) out.push(`  error: ${e.message}`);
+  const delimName: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
+  for (const f of r.files) {
+    out.push('', `file ${f.file}`);
+    if (f.layout) {
+      out.push(`  layout: ${f.layout}; delimiter: ${delimName[f.delimiter ?? ','] ?? 'n/a'}${f.decimalComma ? ', decimal comma' : ''}; ${f.lineEnding ?? ''}${f.bom ? ', BOM' : ''}; parser: ${f.parser ?? 'n/a'}`);
+      out.push(`  quantity: ${f.quantity} (${f.valueUnit}${f.fileValueUnit !== f.valueUnit ? `, written in ${f.fileValueUnit}` : ''})${f.calibrated ? ', calibrated from received power' : ''}`);
+      out.push(`  angles: ${f.angleConvention} in ${f.angleUnit}`);
+      out.push('  columns:');
+      for (const c of f.columns) out.push(`    ${String(c.index + 1).padStart(3)}  ${c.name.padEnd(24)} ${c.role ?? 'ignored'}${c.unit ? ` [${c.unit}]` : ''}`);
+      if (f.matrixColumnsDeg) out.push(`  matrix columns: ${f.matrixColumnsDeg.join(', ')}`);
+      out.push(`  rows: ${f.rows}`);
+      out.push(`  identity: unit from ${f.identity.unit}, beam from ${f.identity.beam}, frequency from ${f.identity.frequency}`);
+      out.push(`  units: ${f.units.join(', ') || '-'}; beams: ${f.beams.length} (${f.beams.slice(0, 12).join(', ')}${f.beams.length > 12 ? ', …' : ''}); frequencies: ${f.frequenciesHz.map(ghz).join(', ') || '-'}`);
+      for (const [k, v] of Object.entries(f.metadata)) out.push(`  metadata ${k}: ${v}`);
+    }
+    listErrors(out, f.errors, f.warnings, '  ');
+  }
+  for (const m of r.measurements) {
+    const g = m.grid;
+    out.push('', `unit ${m.unit} at ${ghz(m.frequencyHz)}: ${m.quantity} (${m.valueUnit}), ${m.beams.length} beams from ${m.files.length} file(s)`);
+    out.push(`  grid: ${g.kind}, ${g.points} points; θ ${n4(g.thetaRangeDeg[0])}–${n4(g.thetaRangeDeg[1])}° step ${g.thetaStepDeg === null ? 'varies' : `${n4(g.thetaStepDeg)}°`}; φ ${n4(g.phiRangeDeg[0])}–${n4(g.phiRangeDeg[1])}° step ${g.phiStepDeg === null ? 'varies' : `${n4(g.phiStepDeg)}°`}`);
+    out.push(`  measured solid angle: ${g.solidAngleSr.toFixed(4)} sr (${((100 * g.solidAngleSr) / (4 * Math.PI)).toFixed(1)} % of 4π${g.fullSphere ? ', full sphere' : ''}); samples merged: ${g.duplicatesMerged}`);
+    listErrors(out, [], m.warnings, '  ');
+  }
+  const nErr = r.errors.length;
+  out.push('', `${r.files.length} file(s), ${r.measurements.length} unit/frequency measurement(s), ${nErr} error(s), ${r.warnings.length} warning(s)`);
+  return `${out.join('\n')}\n`;
+}
