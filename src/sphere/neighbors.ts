@@ -1,4 +1,5 @@
 import type { RegularLayout, SphereGrid } from '../types.js';
+import { seamGap } from './regularLayout.js';
 // @ts-ignore -- d3-geo-voronoi ships no type declarations; the one call used is typed below.
 import { geoDelaunay as untypedGeoDelaunay } from 'd3-geo-voronoi';
 
@@ -17,7 +18,8 @@ const geoDelaunay = untypedGeoDelaunay as (points: [number, number][]) => { edge
  * (coverage holes) on the sphere.
  *
  * Regular grids (4-connectivity, no diagonals): each point is joined to the previous and next
- * φ column of its θ row (wrapping across the φ seam when `phiWraps`) and to the same φ column
+ * φ column of its θ row, circularly (so φ = 355° meets φ = 0°), except across the unmeasured φ
+ * gap when the columns do not wrap (`seamGap`, the core's seam rule), and to the same φ column
  * of the rows above and below. A merged pole point is joined to every point of the adjacent
  * row. When the first (last) row is not a pole but its cells reach the pole (its θ is within
  * half a row step of it) and φ wraps, each point is also joined to the point opposite in φ,
@@ -46,12 +48,12 @@ function isPoleRow(layout: RegularLayout, r: number): boolean {
 
 function regularEdges(layout: RegularLayout, edges: number[]): void {
   const rows = layout.thetaRowsDeg.length;
+  const gap = layout.phiWraps ? -1 : seamGap(layout.phiColsDeg); // column c with no data between c and c + 1
   for (let r = 0; r < rows; r++) {
     const start = layout.rowStart[r];
     const len = layout.rowLength[r];
-    // Along the row; the seam joins the last column to the first when φ wraps.
-    for (let c = 0; c + 1 < len; c++) edges.push(start + c, start + c + 1);
-    if (layout.phiWraps && len > 2) edges.push(start + len - 1, start);
+    // Along the row, circularly; the unmeasured φ gap (if any) is not crossed.
+    if (len > 1) for (let c = 0; c < len; c++) if (c !== gap) edges.push(start + c, start + ((c + 1) % len));
     if (r + 1 < rows) joinRows(layout, r, r + 1, edges);
   }
   if (rows >= 2) {

@@ -93,3 +93,28 @@ describe('gridNeighbors, scattered grids (spherical Delaunay)', () => {
     expect(seam).toBe(true);
   });
 });
+
+describe('gridNeighbors on grids built by the core (buildSphereGrid)', () => {
+  it('full 10° grid from a chamber scan with repeated pole samples: poles, seam, symmetry', async () => {
+    const { buildSphereGrid } = await import('../../src/sphere/buildGrid.js');
+    const { regularGrid: scan } = await import('../../src/sim/regularGrid.js');
+    const s = scan({ thetaStepDeg: 10, phiStepDeg: 10, phiConvention: '-180-180' });
+    const grid = buildSphereGrid(s.thetaDeg, s.phiDeg).grid;
+    const adj = gridNeighbors(grid);
+    expect(isSymmetric(adj, grid.thetaDeg.length)).toBe(true);
+    expect(neighboursOf(adj, indexOf(grid, 0, 0)).length).toBe(36);
+    expect(neighboursOf(adj, indexOf(grid, 90, 350))).toContain(indexOf(grid, 90, 0));
+  });
+
+  it('a φ range of −90…90 joins 355° to 0° but not 90° to 270° (the unmeasured gap)', async () => {
+    const { buildSphereGrid } = await import('../../src/sphere/buildGrid.js');
+    const theta: number[] = [], phi: number[] = [];
+    for (let t = 10; t <= 170; t += 10) for (let p = -90; p <= 90; p += 5) { theta.push(t); phi.push(p); }
+    const grid = buildSphereGrid(Float64Array.from(theta), Float64Array.from(phi)).grid;
+    expect(grid.regular?.phiWraps).toBe(false);
+    const adj = gridNeighbors(grid);
+    expect(neighboursOf(adj, indexOf(grid, 50, 355))).toContain(indexOf(grid, 50, 0));
+    expect(neighboursOf(adj, indexOf(grid, 50, 90))).not.toContain(indexOf(grid, 50, 270));
+    expect(isSymmetric(adj, grid.thetaDeg.length)).toBe(true);
+  });
+});
