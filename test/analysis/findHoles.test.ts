@@ -92,3 +92,21 @@ describe('findHoles', () => {
     expectClose(holes[0].solidAngleSr, grid.weightSr[100], 1e-15, 'one cell');
   });
 });
+
+describe('findHoles on a scattered (constant-density) grid', () => {
+  it('finds a failed cap on a Fibonacci grid with Voronoi weights: area vs 2π(1 − cos α)', async () => {
+    const { fibonacciGrid } = await import('../../src/sim/fibonacciGrid.js');
+    const { buildSphereGrid } = await import('../../src/sphere/buildGrid.js');
+    const s = fibonacciGrid(3000);
+    const grid = buildSphereGrid(s.thetaDeg, s.phiDeg).grid;
+    expect(grid.kind).toBe('scattered');
+    const alpha = 35;
+    const { beams, ids } = unitWithFailedBeam(grid, [150, 10], alpha);
+    const holes = findHoles(grid, tspOf(beams), beams, ids, 10, 'eirp');
+    expect(holes.length).toBe(1);
+    // Point spacing ≈ sqrt(4π/3000) rad ≈ 3.7°: the rim (length 2π sin α) is resolved to about half a spacing.
+    const spacing = Math.sqrt((4 * Math.PI) / 3000);
+    expectClose(holes[0].solidAngleSr, 2 * Math.PI * (1 - Math.cos((alpha * Math.PI) / 180)), 2 * Math.PI * Math.sin((alpha * Math.PI) / 180) * (spacing / 2), 'cap on Voronoi cells');
+    expect(angleDeg(unit(holes[0].thetaDeg, holes[0].phiDeg), unit(150, 10))).toBeLessThan(2);
+  });
+});
