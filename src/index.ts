@@ -17,3 +17,12 @@ export {
 export type {
   ReadContext, FileReadResult, RawBeam, FileInfo, JobSpec, InspectReport, InspectOptions, CalibrationPoint, ColumnRole,
 } from './io/index.js';
+
+// deeper analysis (issue 9): holes, beam value, reference unit, frequency trend
+export { gridNeighbors } from './sphere/neighbors.js';
+export type { GridAdjacency } from './sphere/neighbors.js';
+export {
+  findHoles, findHolesWithLabels, createPercentileSelector, beamRemoval, greedySubset, metricRow,
+  referenceDeltas, tspDifference, frequencyTrend, pointingDrift,
+} from './analysis/index.js';
+export type { FrequencyTrendRow, BeamDrift } from './analysis/index.js';
