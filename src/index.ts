@@ -2,6 +2,42 @@
 export type * from './types.js';
 export { WARNINGS, warning } from './warnings.js';
 
+// normalize: units, directions, sphere grids and weights, the Measurement factory
+export { dbToLinear, linearToDb, powerSumDb, powerSumDbArrays, mwToDbm, wToDbm } from './units.js';
+export { neumaierSum } from './sphere/neumaierSum.js';
+export { azElToThetaPhi, normalizePhiDeg, unitVector, angularDistanceDeg } from './sphere/direction.js';
+export { sphericalTriangleArea } from './sphere/sphericalTriangleArea.js';
+export { detectRegularLayout, seamGap } from './sphere/regularLayout.js';
+export { regularWeights } from './sphere/regularWeights.js';
+export { clippedCellArea } from './sphere/clippedCellArea.js';
+export { voronoiWeights } from './sphere/voronoiWeights.js';
+export type { VoronoiWeights } from './sphere/voronoiWeights.js';
+export { buildSphereGrid } from './sphere/buildGrid.js';
+export type { GridBuild } from './sphere/buildGrid.js';
+export { mergeSamples } from './sphere/mergeSamples.js';
+export type { MergedValues } from './sphere/mergeSamples.js';
+export { nearestPointFinder } from './sphere/nearestPoint.js';
+export type { NearestFinder } from './sphere/nearestPoint.js';
+export { resampleBeam } from './sphere/resample.js';
+export type { ResampledBeam } from './sphere/resample.js';
+export { isFullSphere, FULL_SPHERE_REL_TOL } from './sphere/isFullSphere.js';
+export { createMeasurement, MeasurementError } from './measurement.js';
+export type { MeasurementInput } from './measurement.js';
+
+// combine + measure: total scan pattern and coverage metrics
+export { totalScanPattern } from './coverage/totalScanPattern.js';
+export { weightedCdf } from './coverage/weightedCdf.js';
+export type { WeightedCdf } from './coverage/weightedCdf.js';
+export { sphereNormSr } from './coverage/sphereNormSr.js';
+export { percentile } from './coverage/percentile.js';
+export { coverageEfficiency, coverageAt, relativeCoverage } from './coverage/coverageEfficiency.js';
+export { coverageCurve, MAX_CURVE_POINTS } from './coverage/coverageCurve.js';
+export { beamTrpDbm } from './coverage/trp.js';
+export { bestShares } from './coverage/bestShares.js';
+export { beamPeak } from './coverage/beamPeak.js';
+export { computeMetrics } from './coverage/computeMetrics.js';
+export type { MetricOptions } from './coverage/computeMetrics.js';
+
 // judge: limit sets, profiles, verdicts, build statistics
 export {
   loadLimitSet, parseLimitSetText, listProfiles, formatLimitSet, validateLimitSet, validateExtraChecks,
