@@ -6,10 +6,10 @@ import { createPercentileSelector } from './percentileSelector.js';
  * What each beam is worth: how much the chosen percentile of the total scan pattern and the
  * coverage efficiency at a threshold get worse when that one beam is removed from the codebook.
  *
- * percentileLossDb = P(all) − P(all without b) for eirp/gain, P(without b) − P(all) for eis
+ * percentileLossDb = P(all) − P(all without b) (Eq. 1) for eirp/gain, P(without b) − P(all) for eis
  * (positive = worse without the beam; 0 for a beam that is never strictly needed, such as an
  * exact duplicate); null when either value is not evaluable or b is the only beam.
- * coverageLoss = E(all) − E(all without b), E(t) = Σ wᵢ [TSPᵢ at or better than t] / S, a
+ * coverageLoss = E(all) − E(all without b) (Eq. 2), E(t) = Σ wᵢ [TSPᵢ at or better than t] / S, a
  * fraction of the sphere in [0, 1] (S = sphereNormSr(Σw): 4π, or Σw on a full sphere, as the
  * core's coverage efficiency); null when threshold is null.
  *
@@ -59,13 +59,13 @@ export function beamRemoval(
       if (bestIdx[i] !== b) continue;
       without[i] = secondVal[i];
       if (covered(bestVal[i]) && !covered(secondVal[i])) {
-        const w = grid.weightSr[i], t = lost + w; // Neumaier sum of the lost solid angle
+        const w = grid.weightSr[i], t = lost + w; // Eq. 2: Neumaier sum of the lost solid angle
         c += Math.abs(lost) >= w ? lost - t + w : w - t + lost;
         lost = t;
       }
     }
     const rest = beams.length > 1 ? finite(select(without)) : null;
-    const percentileLossDb = full === null || rest === null ? null : lowerIsBetter ? rest - full : full - rest;
+    const percentileLossDb = full === null || rest === null ? null : lowerIsBetter ? rest - full : full - rest; // Eq. 1
     return { percentileLossDb, coverageLoss: threshold === null ? null : (lost + c) / sphereSr };
   });
 }

@@ -11,8 +11,8 @@ const RAD = Math.PI / 180;
  * not reported as a hole.
  *
  * Per hole:
- * - solidAngleSr = Σ wᵢ over its points (Neumaier sum);
- * - centre = normalize(Σ wᵢ·uᵢ), uᵢ the unit vector of point i, back to θ = acos z,
+ * - solidAngleSr = Σ wᵢ over its points (Neumaier sum) (Eq. 1);
+ * - centre = normalize(Σ wᵢ·uᵢ) (Eq. 2), uᵢ the unit vector of point i, back to θ = acos z,
  *   φ = atan2(y, x) in [0, 360) (φ = 0 at a pole); when the weighted mean vector vanishes
  *   (a hole that is a whole symmetric ring) the worst point's direction is used;
  * - worst = lowest value (eis: highest);
@@ -101,13 +101,13 @@ function describeHole(
   let worstAt = points[0];
   for (const i of points) {
     const w = grid.weightSr[i];
-    const t = area + w; // Neumaier compensated sum of the solid angle
+    const t = area + w; // Eq. 1, Neumaier compensated sum
     areaC += Math.abs(area) >= Math.abs(w) ? area - t + w : w - t + area;
     area = t;
     const th = grid.thetaDeg[i] * RAD, ph = grid.phiDeg[i] * RAD;
     x += w * Math.sin(th) * Math.cos(ph);
     y += w * Math.sin(th) * Math.sin(ph);
-    z += w * Math.cos(th);
+    z += w * Math.cos(th); // Eq. 2
     if (worseFirst(values[i], values[worstAt], lowerIsBetter) < 0) worstAt = i;
   }
   const norm = Math.hypot(x, y, z);

@@ -3,7 +3,7 @@ import { metricRow } from './metricRow.js';
 
 /**
  * The difference of every metric between a unit and the reference (golden) unit:
- * Δ = unit − reference, per name of `metricRow` (peak and percentiles in dB, coverage
+ * Δ = unit − reference (Eq. 1), per name of `metricRow` (peak and percentiles in dB, coverage
  * efficiencies as fractions of 4π, TRP in dB). A metric that either side lacks or could not
  * evaluate gives null. The sign is raw: for eis a positive Δ of a percentile is worse.
  * Names in the unit's order, then names only the reference has.
@@ -16,7 +16,7 @@ export function referenceDeltas(unitMetrics: CoverageMetrics, referenceMetrics: 
   const out: Record<string, number | null> = {};
   for (const key of new Set([...Object.keys(u), ...Object.keys(r)])) {
     const a = u[key], b = r[key];
-    out[key] = a === null || a === undefined || b === null || b === undefined ? null : a - b;
+    out[key] = a === null || a === undefined || b === null || b === undefined ? null : a - b; // Eq. 1
   }
   return out;
 }

@@ -2,7 +2,7 @@ import { resampleBeam } from '../sphere/resample.js';
 import type { SphereGrid, TotalScanPattern } from '../types.js';
 
 /**
- * Per-direction difference of two total scan patterns, on grid A: Δᵢ = TSP_A(uᵢ) − TSP_B(uᵢ)
+ * Per-direction difference of two total scan patterns, on grid A: Δᵢ = TSP_A(uᵢ) − TSP_B(uᵢ) (Eq. 1)
  * in dB (unit A minus reference B; raw sign, so for eis a positive Δ is worse).
  * Same grid (equal point count and identical θ/φ arrays, which the canonical point order
  * guarantees for equal scans): direct difference. Different grids: B is moved onto A by the
@@ -20,7 +20,7 @@ export function tspDifference(gridA: SphereGrid, tspA: TotalScanPattern, gridB: 
   }
   const b = sameGrid(gridA, gridB) ? tspB.values : resampleBeam(gridB, tspB.values, gridA).values;
   const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = tspA.values[i] - b[i];
+  for (let i = 0; i < n; i++) out[i] = tspA.values[i] - b[i]; // Eq. 1
   return out;
 }
 
