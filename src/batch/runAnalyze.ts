@@ -4,11 +4,13 @@
 import os from 'node:os';
 import path from 'node:path';
 import { existsSync } from 'node:fs';
-import type { InputError, ResultsFile, UnitResult, Warning } from '../types.js';
+import type { InputError, Quantity, ResultsFile, UnitResult, Warning } from '../types.js';
 import type { JobSpec } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { loadLimitSet } from '../limits/loadLimitSet.js';
 import { metricNeeds } from '../limits/metricNeeds.js';
+import { mergeLimitSets } from '../limits/mergeLimitSets.js';
+import { validateExtraChecks } from '../limits/validateLimitSet.js';
 import { buildStatistics } from '../limits/buildStatistics.js';
 import { loadReportSettings, ReportSettingsError } from '../report/settings.js';
 import { unitKey, type MapThumbnail, type ReportSettings } from '../report/reportTypes.js';
@@ -59,11 +61,23 @@ async function loadJob(opts: AnalyzeOptions, found: string | null): Promise<JobS
   return job;
 }
 
-function loadLimits(name: string | undefined): LimitSet | null {
-  if (!name) return null;
-  const { limitSet, errors } = loadLimitSet(name);
-  if (!limitSet) throw new RunError(`--limits: ${errors.map(formatError).join('; ')}`);
-  return limitSet;
+/**
+ * The limit set of the run: --limits (else the job file's `limits`), plus the job file's own
+ * `checks` (validated, merged by name; a job with checks but no limit set judges those alone).
+ */
+function loadLimits(name: string | undefined, job: JobSpec | null, quantity: Quantity | undefined): LimitSet | null {
+  let base: LimitSet | null = null;
+  if (name) {
+    const { limitSet, errors } = loadLimitSet(name);
+    if (!limitSet) throw new RunError(`--limits: ${errors.map(formatError).join('; ')}`);
+    base = limitSet;
+  }
+  if (!job?.checks || job.checks.length === 0) return base;
+  const q = base?.quantity ?? quantity ?? job.quantity ?? 'eirp';
+  const { checks, errors } = validateExtraChecks(job.checks, job.source, q, ['checks']);
+  if (errors.length > 0) throw new RunError(`the job file's checks could not be used:\n  ${errors.map(formatError).join('\n  ')}`);
+  base ??= { name: 'job-file checks', description: '', source: job.source, quantity: q, checks: [] };
+  return mergeLimitSets(base, checks);
 }
 
 /** Union-find over group keys that produced the same (unit, frequency): those groups are one unit's files. */
@@ -108,7 +122,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
 
   const discovery = await discoverInputs(input, [outDir]);
   const job = await loadJob(opts, discovery.jobFile);
-  const limitSet = loadLimits(opts.limits ?? job?.limits);
+  const limitSet = loadLimits(opts.limits ?? job?.limits, job, opts.quantity);
   const needs = limitSet ? metricNeeds(limitSet) : { percentilesPct: [], thresholds: [] };
   const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
   const thresholds = unionSorted(opts.thresholds ?? job?.coverageThresholds, needs.thresholds);

@@ -18,8 +18,8 @@ export async function runInspect(
   io: BatchIo,
 ): Promise<number> {
   if (!existsSync(target)) throw new UsageError(`inspect: '${target}' does not exist; give a folder or a file of exports`);
-  const { inspectInput, formatInspect } = await import('../io/inspect.js');
-  const report = await inspectInput(target, { quantityOverride: opts.quantity, jobFile: opts.jobFile });
+  const { inspectInput, formatInspect } = await import('../io/inspectInput.js');
+  const report = await inspectInput(target, { quantity: opts.quantity, job: opts.jobFile });
   if (opts.json) io.stdout(JSON.stringify(report, null, 2) + '\n');
   else io.stdout(formatInspect(report));
   const errors = (report as { errors?: unknown[] }).errors;

@@ -247,6 +247,36 @@ describe('SIGINT', () => {
   });
 });
 
+describe('job file', () => {
+  it('takes percentiles, thresholds, checks and the reference unit from spherecov.yaml', () => {
+    const input = tmp();
+    cpSync(path.join(FIX, 'fail'), input, { recursive: true });
+    writeFileSync(path.join(input, 'spherecov.yaml'), [
+      'percentiles: [50, 90]',
+      'coverage_thresholds: [-5, 10]',
+      'reference: U-01',
+      'checks:',
+      '  - kind: min-peak',
+      '    name: job peak',
+      '    limit: 20',
+      '',
+    ].join('\n'));
+    const out = tmp();
+    const r = run(['analyze', input, '--out', out, '--no-pdf']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(1);
+    const res = results(out);
+    const u3 = res.units.find((u) => u.unit === 'U-03')!;
+    expect(u3.tsp.percentiles.map((p) => p.levelPct)).toEqual([50, 90]);
+    expect(u3.tsp.coverage.map((c) => c.threshold)).toEqual([-5, 10]);
+    expect(u3.checks.map((c) => [c.name, c.status])).toEqual([['job peak', 'fail']]);
+    // U-03 is U-01 minus 12 dB everywhere (make-fixtures.mjs), so every dB delta is -12.
+    expectClose(u3.reference!.deltas.peak as number, -12, 1e-9, 'fixture offset');
+    expectClose(u3.reference!.deltas.p50 as number, -12, 1e-9, 'fixture offset');
+    expect(res.units.find((u) => u.unit === 'U-01')!.reference).toBeNull();
+  });
+});
+
 describe('limits and inspect', () => {
   it('lists profiles and prints one', () => {
     const l = run(['limits']);
