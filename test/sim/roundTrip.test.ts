@@ -1,0 +1,139 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { expectClose } from '../helpers/expectClose.js';
+import {
+  applyMeasurementNoise, eisFromEirp, handsetModule, regularGrid, simulateBeams, toExportBeams, writeExport,
+} from '../../src/sim/index.js';
+import type { ExportBeam, ExportOptions, SampleGrid } from '../../src/sim/index.js';
+import { assembleMeasurements, readExportFile } from '../../src/io/index.js';
+import type { RawBeam } from '../../src/io/index.js';
+
+// Model data written in every layout the readers accept (CONTRACT.md "Input folder") must
+// read back equal to the printed precision: dB values to 2 decimals exactly as printed,
+// mW values to 6 significant digits (≤ 2.2e−5 dB), polarization pairs as the power sum of the
+// printed components (DESIGN.md polarization rule).
+
+const grid: SampleGrid = regularGrid({ thetaStepDeg: 15, phiStepDeg: 15 }); // poles at every φ
+const { model, codebook } = handsetModule({ conductedPowerDbm: 9 });
+const sim = applyMeasurementNoise(simulateBeams(model, codebook.slice(0, 3), grid, 28e9), { sigmaDb: 0.2, noiseFloorDbm: -30, seed: 4 });
+const beams = toExportBeams(sim);
+const r2 = (x: number): number => Math.round(x * 100) / 100;
+const key = (t: number, p: number): string => `${Math.round(t * 1e6)}|${Math.round((((p % 360) + 360) % 360) * 1e6)}`;
+
+let dir = '';
+beforeAll(async () => {
+  dir = await mkdtemp(join(tmpdir(), 'sim-roundtrip-'));
+});
+afterAll(async () => {
+  await rm(dir, { recursive: true, force: true });
+});
+
+/** Writes the table, reads it back, and checks every sample against the expected printed value. */
+async function roundTrip(
+  name: string,
+  exportBeams: ExportBeam[],
+  opts: ExportOptions,
+  expected: (b: ExportBeam, i: number) => number,
+  tolDb: number,
+  g: SampleGrid = grid,
+): Promise<RawBeam[]> {
+  const path = join(dir, 'UNIT-RT', name);
+  await writeExport(path, { grid: g, beams: exportBeams }, opts);
+  const res = await readExportFile(path, { inputRoot: dir });
+  expect(res.errors, `${name}: read errors`).toEqual([]);
+  expect(res.beams.map((b) => b.beam).sort()).toEqual(exportBeams.map((b) => b.id).sort());
+  for (const eb of exportBeams) {
+    const rb = res.beams.find((b) => b.beam === eb.id)!;
+    const want = new Map<string, number>();
+    for (let i = 0; i < g.thetaDeg.length; i++) want.set(key(g.thetaDeg[i], g.phiDeg[i]), expected(eb, i));
+    expect(rb.values.length, `${name} beam ${eb.id}: sample count`).toBe(opts.layout === 'matrix' ? rb.values.length : g.thetaDeg.length);
+    for (let i = 0; i < rb.values.length; i++) {
+      const w = want.get(key(rb.thetaDeg[i], rb.phiDeg[i]));
+      expect(w, `${name}: direction θ ${rb.thetaDeg[i]} φ ${rb.phiDeg[i]} was not written`).toBeDefined();
+      expectClose(rb.values[i], w!, tolDb, `${name} beam ${eb.id} sample ${i}`);
+    }
+  }
+  return res.beams;
+}
+
+const printed = (b: ExportBeam, i: number): number => r2(b.valuesDb[i]);
+const pairSum = (b: ExportBeam, i: number): number => 10 * Math.log10(10 ** (r2(b.thetaDb![i]) / 10) + 10 ** (r2(b.phiDb![i]) / 10));
+const EXACT = 1e-9; // decimal text → double → compare with the same rounding: parse error only
+
+describe('writer → reader round trip', () => {
+  it('long layout, several beams in one file', async () => {
+    const got = await roundTrip('long_28GHz.csv', beams, { layout: 'long' }, printed, EXACT);
+    expect(got.every((b) => b.quantity === 'eirp' && b.valueUnit === 'dBm' && b.frequencyHz === 28e9)).toBe(true);
+  });
+
+  it('long layout with unit and frequency columns', async () => {
+    const got = await roundTrip('with-unit.csv', beams, { layout: 'long', unit: 'SN-77', frequencyHz: 27.25e9 }, printed, EXACT);
+    expect(got.every((b) => b.unit === 'SN-77' && b.frequencyHz === 27.25e9)).toBe(true);
+  });
+
+  it('polarization pair', async () => {
+    await roundTrip('pair.csv', beams, { layout: 'pol-pair' }, pairSum, 1e-9);
+  });
+
+  it('long layout with a pol column', async () => {
+    await roundTrip('polcol.csv', beams, { layout: 'pol-column' }, pairSum, 1e-9);
+  });
+
+  it('azimuth / elevation', async () => {
+    await roundTrip('azel.csv', beams, { layout: 'az-el' }, printed, EXACT, regularGrid({ thetaStepDeg: 15, phiStepDeg: 15, phiConvention: '-180-180' }));
+  });
+
+  it('matrix, one beam a file, with the quantity metadata line', async () => {
+    for (const b of beams) await roundTrip(`beam${b.id}_28GHz.csv`, [b], { layout: 'matrix' }, printed, EXACT);
+  });
+
+  it('semicolon with decimal comma, CRLF', async () => {
+    await roundTrip('semi.txt', beams, { layout: 'long', delimiter: ';', decimalComma: true, lineEnding: '\r\n' }, printed, EXACT);
+  });
+
+  it('linear mW', async () => {
+    // 6 significant digits: relative error ≤ 5e−6 → 10·log10(1 + 5e−6) = 2.2e−5 dB.
+    await roundTrip('mw.csv', beams, { layout: 'long', linearMw: true }, (b, i) => b.valuesDb[i], 2.2e-5);
+  });
+
+  it('EIS', async () => {
+    const eis = beams.map((b) => ({ id: b.id, valuesDb: eisFromEirp(b.valuesDb, 9, -95) }));
+    const got = await roundTrip('eis.csv', eis, { layout: 'long', quantity: 'eis' }, printed, EXACT);
+    expect(got.every((b) => b.quantity === 'eis')).toBe(true);
+  });
+
+  it('assembles into one measurement with each direction once and the printed values', async () => {
+    const path = join(dir, 'UNIT-AS', 'all_28GHz.csv');
+    await writeExport(path, { grid, beams }, { layout: 'long' });
+    const res = await readExportFile(path, { inputRoot: dir });
+    const asm = assembleMeasurements(res.beams, [{ path: res.file, sha256: res.sha256 }]);
+    expect(asm.errors).toEqual([]);
+    expect(asm.measurements.length).toBe(1);
+    const m = asm.measurements[0];
+    // 15° grid: (180/15 − 1)·(360/15) + 2 = 266 directions (reference file, "Grids").
+    expect(m.grid.thetaDeg.length).toBe(266);
+    expectClose(m.grid.solidAngleSr, 4 * Math.PI, 1e-9, 'full sphere');
+    // Expected per direction: the printed value; the 24 noisy samples of each pole are one
+    // direction, merged by power average (the documented rule of src/sphere/mergeSamples).
+    for (const b of beams) {
+      const sums = new Map<string, { s: number; n: number }>();
+      for (let i = 0; i < grid.thetaDeg.length; i++) {
+        const t = grid.thetaDeg[i];
+        const k = t % 180 === 0 ? `${t}` : key(t, grid.phiDeg[i]);
+        const e = sums.get(k) ?? { s: 0, n: 0 };
+        e.s += 10 ** (r2(b.valuesDb[i]) / 10);
+        e.n += 1;
+        sums.set(k, e);
+      }
+      const mb = m.beams.find((x) => x.id === b.id)!;
+      for (let j = 0; j < m.grid.thetaDeg.length; j++) {
+        const t = m.grid.thetaDeg[j];
+        const e = sums.get(t % 180 === 0 ? `${t}` : key(t, m.grid.phiDeg[j]))!;
+        expect(e.n).toBe(t % 180 === 0 ? 24 : 1);
+        expectClose(mb.values[j], 10 * Math.log10(e.s / e.n), 1e-9, `beam ${b.id} point ${j}`);
+      }
+    }
+  });
+});
