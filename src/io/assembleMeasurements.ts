@@ -150,7 +150,7 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     if (d.count > 0) {
       const code = d.maxDiffDb > 0 ? 'duplicate-differs' : 'duplicate-merged';
       const diff = d.maxDiffDb > 0 ? ` with values up to ${d.maxDiffDb.toFixed(2)} dB apart (at ${d.at})` : ' with equal values';
-      warnings.push(warning(code, `${b.file}: beam '${b.beam}': ${d.count} rows repeat a direction${diff}; merged by power average`, { file: b.file, line: b.firstLine }));
+      warnings.push(warning(code, `${b.file}: beam '${b.beam}': ${d.count} row${d.count === 1 ? '' : 's'} repeat${d.count === 1 ? 's' : ''} a direction${diff}; merged by power average`, { file: b.file, line: b.firstLine }));
     }
   }
   for (const s of sets) {

@@ -201,10 +201,11 @@ export function planColumns(cells: string[], ctx: PlanContext): ColumnPlanResult
   let valueFields: number[];
   if (total.length > 1) {
     const [i, j] = total;
-    return fail([
-      inputError(ctx.file, ctx.headerLine, col(j), cells[j].trim(), cells[j].trim(),
-        `one value column (also found '${cells[i].trim()}'; map one with columns.value in the job file)`),
-    ]);
+    const qOf = (k: number): string => (roles[k] === 'power' ? 'power' : quantities[k] ?? 'value');
+    const expected = qOf(i) !== qOf(j)
+      ? `value columns of one quantity (found ${qOf(i)} in '${cells[i].trim()}' and ${qOf(j)} here; keep one or map it with columns.value in the job file)`
+      : `one value column (also found '${cells[i].trim()}'; map one with columns.value in the job file)`;
+    return fail([inputError(ctx.file, ctx.headerLine, col(j), cells[j].trim(), cells[j].trim(), expected)]);
   } else if (total.length === 1) {
     valueFields = [total[0]];
   } else if (pairT >= 0 && pairP >= 0) {
