@@ -21,7 +21,7 @@ export interface MergedValues {
  * positioner repeatability, not a standard's value). Non-finite samples are skipped; a point
  * left without one is NaN and counted in `missing` (the caller must resolve it before
  * createMeasurement).
- * Cost O(n), three typed arrays, no per-point allocation.
+ * Cost O(n) (exponentials only for coincident samples), four typed arrays, no per-point allocation.
  * @throws RangeError when rawValues does not have one value per raw sample.
  * @example mergeSamples(build, [0, 10] /* one point *\/) // 7.404 dB, spread 10 dB
  */
@@ -39,7 +39,9 @@ export function mergeSamples(build: GridBuild, rawValues: Float64Array): MergedV
     const v = rawValues[i];
     if (!Number.isFinite(v)) continue;
     const p = pointOf[i];
-    sumLin[p] += Math.exp(v * LN10_OVER_10);
+    // Linear power only where samples coincide: a single sample keeps its dB value untouched.
+    if (count[p] === 1) sumLin[p] = Math.exp(lo[p] * LN10_OVER_10);
+    if (count[p] >= 1) sumLin[p] += Math.exp(v * LN10_OVER_10);
     count[p]++;
     if (v < lo[p]) lo[p] = v;
     if (v > hi[p]) hi[p] = v;
