@@ -245,7 +245,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         if (u.thumbnail) thumbnails[k] = u.thumbnail;
         if (u.cdf) cdfs[k] = u.cdf;
       }
-      const { renderBuildPdf } = await import('../report/renderBuildPdf.js');
+      const { renderBuildPdf } = await import('../report/buildReport.js');
       const summaryPdf = await renderBuildPdf(
         {
           units,

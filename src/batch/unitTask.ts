@@ -126,7 +126,7 @@ export async function analyzeMeasurement(m: Measurement, input: TaskInput): Prom
   // The report modules (pdfkit, fonts) load only when PDFs are wanted: --no-pdf stays lean.
   const [{ renderUnitPdf }, { unitMapThumbnail }, { cdfCurve }] = await Promise.all([
     import('../report/unitReport.js'),
-    import('../report/unitMapThumbnail.js'),
+    import('../report/thumbnail.js'),
     import('../report/cdfCurve.js'),
   ]);
   const buf = await renderUnitPdf(
