@@ -101,7 +101,7 @@ export function colorAt(name: ColorMapName, t: number): Rgb {
  * readable when colours repeat (more than 12 beams) or in grey-scale print.
  */
 export const CATEGORICAL: Rgb[] = Array.from({ length: 12 }, (_, k) =>
-  gamutColor(k % 2 === 0 ? 0.78 : 0.58, (k * 360) / 12 + 20 + (k % 3) * 7, 0.12),
+  gamutColor([0.86, 0.7, 0.78][k % 3], ((k * 5) % 12) * 30 + 15, 0.13),
 );
 
 export function rgbHex([r, g, b]: Rgb): string {

@@ -48,4 +48,7 @@ export function niceRange(lo: number, hi: number, count = 6): { lo: number; hi: 
 }
 
 /** Decimals needed to print ticks of this step. */
-export const stepDigits = (step: number): number => Math.max(0, Math.min(3, -Math.floor(Math.log10(step) + 1e-9)));
+export function stepDigits(step: number): number {
+  for (let d = 0; d < 3; d++) if (Math.abs(step * 10 ** d - Math.round(step * 10 ** d)) < 1e-6) return d;
+  return 3;
+}

@@ -1,5 +1,5 @@
 import type { SphereGrid } from '../types.js';
-import { HAMMER_HALF_HEIGHT, HAMMER_HALF_WIDTH, hammerInverse } from './hammerProjection.js';
+import { HAMMER_HALF_HEIGHT, HAMMER_HALF_WIDTH } from './hammerProjection.js';
 import { nearestGridPoint } from './nearestGridPoint.js';
 
 /** Pixel classes in MapRaster.point besides grid point indices. */
@@ -32,11 +32,22 @@ export function rasterizeGrid(grid: SphereGrid, width: number, centerPhiDeg = 0)
   const height = Math.round(width / 2);
   const lookup = nearestGridPoint(grid);
   const point = new Int32Array(width * height);
+  const DEG = 180 / Math.PI;
   for (let j = 0; j < height; j++) {
+    const y = HAMMER_HALF_HEIGHT - ((j + 0.5) / height) * 2 * HAMMER_HALF_HEIGHT;
     for (let i = 0; i < width; i++) {
-      const [x, y] = pixelToMap(i, j, width, height);
-      const d = hammerInverse(x, y, centerPhiDeg);
-      point[j * width + i] = d === null ? OUTSIDE : lookup(d.thetaDeg, d.phiDeg);
+      const x = ((i + 0.5) / width) * 2 * HAMMER_HALF_WIDTH - HAMMER_HALF_WIDTH;
+      if ((x * x) / 8 + (y * y) / 2 > 1) {
+        point[j * width + i] = OUTSIDE;
+        continue;
+      }
+      // hammerInverse inlined (Eq. H2) to avoid an allocation per pixel.
+      const z = Math.sqrt(Math.max(0, 1 - (x / 4) ** 2 - (y / 2) ** 2));
+      const lonDeg = 2 * Math.atan2(z * x, 2 * (2 * z * z - 1)) * DEG;
+      const latDeg = Math.asin(Math.max(-1, Math.min(1, z * y))) * DEG;
+      let phiDeg = (lonDeg + centerPhiDeg) % 360;
+      if (phiDeg < 0) phiDeg += 360;
+      point[j * width + i] = lookup(90 - latDeg, phiDeg);
     }
   }
   return { width, height, centerPhiDeg, point };

@@ -62,9 +62,10 @@ export function drawCdfPlot(
   percentiles: PercentileValue[],
   limits: LimitMark[],
 ): void {
+  // The x range follows the main curves and the limits; faint curves are clipped to it.
   let lo = Infinity;
   let hi = -Infinity;
-  for (const c of [...curves.map((s) => s.curve), ...faint]) {
+  for (const c of curves.map((s) => s.curve)) {
     if (c.values.length === 0) continue;
     lo = Math.min(lo, c.values[0]);
     hi = Math.max(hi, c.values[c.values.length - 1]);
@@ -98,12 +99,13 @@ export function drawCdfPlot(
       const y = py(a, drawnY(q, l.levelPct / 100));
       doc.polygon([x, y - 3.5], [x + 3.5, y], [x, y + 3.5], [x - 3.5, y]).lineWidth(0.8).fillAndStroke('#ffffff', INK);
     }
-    doc.font('R').fontSize(6.2).fillColor(INK);
-    const w = doc.widthOfString(l.label) + 3;
-    const ly = a.y + 3 + 9 * k;
+    const tag = `L${k + 1}`;
+    doc.font('B').fontSize(6.2);
+    const w = doc.widthOfString(tag) + 3;
+    const ly = a.y + 3 + 9 * (k % 3);
     const lx = x + w + 4 > a.x + a.w ? x - w - 2 : x + 2;
     doc.save().rect(lx, ly - 1, w, 8).fillOpacity(0.85).fill('#ffffff').restore();
-    doc.fillColor(INK).text(l.label, lx + 1.5, ly, { lineBreak: false });
+    doc.fillColor(INK).text(tag, lx + 1.5, ly, { lineBreak: false });
   });
   // Percentile read-outs: dots on the TSP curve, numbered by level.
   let lastX = -Infinity;
@@ -128,7 +130,14 @@ export function drawCdfPlot(
  * Markers at the requested thresholds.
  */
 export function drawCoveragePlot(doc: Doc, box: Box, q: Quantity, unit: string, curve: CoveragePoint[], peak: number, marks: CoveragePoint[]): void {
-  const xs = curve.map((c) => c.threshold);
+  // x range: where the curve changes (0.1 % … 99.9 %), one point beyond, plus the marks.
+  let first = curve.findIndex((c) => c.efficiency > 0.001 && c.efficiency < 0.999);
+  let last = curve.length - 1 - [...curve].reverse().findIndex((c) => c.efficiency > 0.001 && c.efficiency < 0.999);
+  if (first < 0) {
+    first = 0;
+    last = curve.length - 1;
+  }
+  const xs = curve.slice(Math.max(0, first - 1), Math.min(curve.length, last + 2)).map((c) => c.threshold);
   const xr = niceRange(Math.min(...xs, ...marks.map((m) => m.threshold)), Math.max(...xs, ...marks.map((m) => m.threshold)), 8);
   const a: Axes = { ...box, xMin: xr.lo, xMax: xr.hi, yMin: 0, yMax: 1 };
   const cmp = q === 'eis' ? '≤' : '≥';

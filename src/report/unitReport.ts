@@ -34,9 +34,9 @@ function resultText(c: CheckResult): string {
 export function cdfLimitMarks(checks: CheckResult[]): LimitMark[] {
   const out: LimitMark[] = [];
   for (const c of checks) {
-    if (c.kind === 'percentile') out.push({ label: `${c.name} ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit, levelPct: c.levelPct });
+    if (c.kind === 'percentile') out.push({ label: `${c.name}: ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit, levelPct: c.levelPct });
     else if (c.kind === 'min-peak' || c.kind === 'max-peak' || c.kind === 'min-beam-peak')
-      out.push({ label: `${c.name} ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit });
+      out.push({ label: `${c.name}: ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit });
   }
   return out;
 }
@@ -180,11 +180,16 @@ function cdfSection(doc: Doc, input: UnitReportInput, s: ReportSettings, tspCurv
   doc.y = box.y;
   table(doc, [{ header: 'Level', width: 44, align: 'right' }, { header: `Value (${r.valueUnit})`, width: 62, align: 'right' }],
     r.tsp.percentiles.map((p) => [`${fmt(p.levelPct, p.levelPct % 1 === 0 ? 0 : 1)} %`, fmt(p.value)]), { fontSize: 7.4, x: box.x + box.w + 12 });
+  const limits = cdfLimitMarks(r.checks);
+  doc.font('R').fontSize(7).fillColor(INK);
+  limits.forEach((l, k) => {
+    doc.font('B').text(`L${k + 1} `, box.x + box.w + 12, doc.y, { continued: true, width: 106 }).font('R').text(`${l.label} ${r.valueUnit}`);
+  });
   doc.y = Math.max(doc.y, box.y + box.h + 26);
   note(doc, (r.quantity === 'eis'
     ? 'Drawn as the CCDF: the share of the whole sphere (4π) where the total scan pattern EIS is above x (worse); unmeasured solid angle counts as worst (always above). A percentile p is where this curve crosses 1 − p.'
     : 'Share of the whole sphere (4π) where the total scan pattern is at or below x; unmeasured solid angle counts as worst (it starts the curve above 0).') +
-    ' Dots: percentile read-outs (numbers = level). Dashed verticals: limits as judged (tolerance applied); a diamond marks the level a percentile limit applies to.' +
+    ' Dots: percentile read-outs (numbers = level). Dashed verticals L1…: limits as judged (tolerance applied), listed beside the plot; a diamond marks the level a percentile limit applies to.' +
     (faint.length ? ' Faint lines: each beam alone.' : ''));
 }
 
@@ -206,7 +211,10 @@ function bestBeamSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: Re
   m.beams.forEach((b, k) => {
     const share = r.beams[k]?.bestShare ?? 0;
     if (bestAt[k] < 0 || share < 0.004) return;
-    const [x, y] = directionToPage(box, m.grid.thetaDeg[bestAt[k]], m.grid.phiDeg[bestAt[k]], s.mapCenterPhiDeg);
+    const [x, y0] = directionToPage(box, m.grid.thetaDeg[bestAt[k]], m.grid.phiDeg[bestAt[k]], s.mapCenterPhiDeg);
+    // Keep clear of the φ labels that sit just below the equator.
+    const eq = box.y + box.h / 2 + 6;
+    const y = Math.abs(y0 - eq) < 9 ? (y0 < eq ? eq - 9 : eq + 9) : y0;
     mapLabel(doc, b.id, x, y, 6);
   });
   doc.y = box.y + box.h + 14;
@@ -246,7 +254,7 @@ function coverageSection(doc: Doc, input: UnitReportInput, tspCurve: CdfCurve): 
     curve = Array.from(tspCurve.values, (v, k) => ({ threshold: v, efficiency: eis ? tspCurve.fractions[k] : 1 - (k === 0 ? tspCurve.startFraction : tspCurve.fractions[k - 1]) }));
   }
   const w = contentWidth(doc);
-  const box = { x: MARGIN.left + 44, y: doc.y + 26, w: w - 44 - 150, h: 170 };
+  const box = { x: MARGIN.left + 44, y: doc.y + 26, w: w - 44 - 160, h: 170 };
   const marks = [...r.tsp.coverage, ...r.tsp.relativeCoverage];
   drawCoveragePlot(doc, box, r.quantity, r.valueUnit, curve, r.tsp.peak.value, marks);
   doc.y = box.y - 20;
@@ -255,7 +263,7 @@ function coverageSection(doc: Doc, input: UnitReportInput, tspCurve: CdfCurve): 
     ...r.tsp.relativeCoverage.map((c) => [`${fmt(c.threshold)}`, fmt(c.dbBelowPeak, 1), pct(c.efficiency)]),
   ];
   const tableX = box.x + box.w + 12;
-  table(doc, [{ header: `t (${r.valueUnit})`, width: 48, align: 'right' }, { header: 'from peak', width: 44, align: 'right' }, { header: 'share', width: 46, align: 'right' }], rows, { fontSize: 7.2, x: tableX });
+  table(doc, [{ header: `t (${r.valueUnit})`, width: 46, align: 'right' }, { header: 'from peak', width: 54, align: 'right' }, { header: 'share', width: 44, align: 'right' }], rows, { fontSize: 7.2, x: tableX });
   doc.y = Math.max(doc.y, box.y + box.h + 28);
   note(doc, `Share of 4π where the total scan pattern is ${r.quantity === 'eis' ? 'at or below' : 'at or above'} the threshold. Squares: the thresholds requested (absolute, and relative to the peak ${fmt(r.tsp.peak.value)} ${r.valueUnit}), listed in the table.`);
 }
@@ -265,13 +273,13 @@ function beamsSection(doc: Doc, r: UnitResult): void {
   const w = contentWidth(doc);
   const hasRemoval = r.beams.some((b) => b.removal);
   const cols: Column[] = [
-    { header: 'Beam', width: hasRemoval ? w - 394 : w - 290 },
+    { header: 'Beam', width: hasRemoval ? w - 420 : w - 316 },
     { header: `Peak (${r.valueUnit})`, width: 62, align: 'right' },
     { header: 'θ', width: 40, align: 'right' },
     { header: 'φ', width: 40, align: 'right' },
     { header: 'TRP (dBm)', width: 58, align: 'right' },
     { header: 'Best share', width: 56, align: 'right' },
-    { header: 'Note', width: 34 },
+    { header: 'Note', width: 60 },
   ];
   if (hasRemoval) cols.push({ header: 'Removal: Δ pct (dB)', width: 58, align: 'right' }, { header: 'Δ cov. (pt)', width: 46, align: 'right' });
   table(doc, cols, r.beams.map((b) => {

@@ -1,0 +1,137 @@
+import type { UnitResult } from '../types.js';
+import type { CdfCurve } from './cdfCurve.js';
+import { colorAt } from './colorMap.js';
+import { drawColorBar, drawMapFrame, type MapBox } from './drawMap.js';
+import { fmt, fmtFrequency, pct, quantityLabel, verdictText } from './format.js';
+import { insideEllipse } from './mapRaster.js';
+import { paintPng } from './paintMap.js';
+import { addFooters, contentWidth, createDoc, ensureSpace, finish, heading, INK, keyValues, MARGIN, MUTED, note, table, type Column } from './pdfDoc.js';
+import { drawCdfPlot, type CurveStyle } from './plots.js';
+import { getKeyed, unitKey, type BuildReportInput, type ReportSettings } from './reportTypes.js';
+import { scaleT, valueScale } from './unitMaps.js';
+import { cdfLimitMarks } from './unitReport.js';
+
+const label = (u: UnitResult) => `${u.unit}${u.frequencyHz === null ? '' : ` @ ${fmtFrequency(u.frequencyHz)}`}`;
+
+function worstMarginText(u: UnitResult): string {
+  if (!u.worstCheck) return '—';
+  const c = u.checks.find((k) => k.name === u.worstCheck!.name);
+  return c?.marginUnit === 'fraction' ? `${fmt(100 * u.worstCheck.margin, 1)} pt` : `${fmt(u.worstCheck.margin)} dB`;
+}
+
+/** Distinct limits over all units, for drawing once on the overlaid CDFs. */
+function distinctLimits(units: UnitResult[]) {
+  const seen = new Map<string, ReturnType<typeof cdfLimitMarks>[number]>();
+  for (const u of units) for (const l of cdfLimitMarks(u.checks)) seen.set(`${l.label}|${l.levelPct ?? ''}`, l);
+  return [...seen.values()];
+}
+
+/**
+ * The build summary PDF: all units with verdicts and worst margins, per-metric statistics
+ * (mean, σ, min, max, yield, Cpk), overlaid TSP CDFs with the limits, and a strip of TSP maps on
+ * one colour scale. Deterministic for a fixed settings.creationDate (or generatedAt).
+ */
+export async function renderBuildPdf(input: BuildReportInput, settings: ReportSettings): Promise<Buffer> {
+  const units = input.units;
+  const q = units[0]?.quantity ?? 'eirp';
+  const vu = units[0]?.valueUnit ?? 'dBm';
+  const doc = createDoc(settings, input.generatedAt, `${settings.title}: build summary`, `Spherical coverage of ${units.length} unit results`);
+  const w = contentWidth(doc);
+  doc.font('B').fontSize(16).fillColor(INK).text(settings.title, MARGIN.left, MARGIN.top, { width: w });
+  if (settings.organisation) doc.font('R').fontSize(9).fillColor(MUTED).text(settings.organisation, { width: w });
+  doc.moveDown(0.3).font('B').fontSize(12.5).fillColor(INK).text('Build summary');
+  doc.moveDown(0.3);
+  const b = input.build;
+  keyValues(doc, [
+    ['Units', `${b.units} (${units.length} unit × frequency results)`],
+    ['Passed / failed', `${b.passed} passed, ${b.failed} failed, ${b.notJudged} not judged`],
+    ['Quantity', `${quantityLabel(q)} (${vu})`],
+    ['Limit set', input.limitSetName ?? 'none (not judged)'],
+    ['Generated', input.generatedAt],
+    ['Tool', `spherecov ${input.toolVersion}`],
+  ], MARGIN.left, w, 90);
+  doc.moveDown(0.4);
+
+  heading(doc, 'Units', 40);
+  const cols: Column[] = [
+    { header: 'Unit', width: w - 382 }, { header: 'Frequency', width: 70 }, { header: 'Verdict', width: 70 },
+    { header: 'Passed', width: 62, align: 'right' }, { header: 'Worst check', width: 110 }, { header: 'Worst margin', width: 70, align: 'right' },
+  ];
+  table(doc, cols, units.map((u) => [
+    u.unit, fmtFrequency(u.frequencyHz), verdictText(u.verdict),
+    `${u.checks.filter((c) => c.status === 'pass').length} / ${u.checks.length}`, u.worstCheck?.name ?? '—', worstMarginText(u),
+  ]), { emphasis: (k) => units[k].verdict === 'fail' });
+
+  heading(doc, 'Statistics per metric', 40);
+  const scols: Column[] = [
+    { header: 'Frequency', width: 62 }, { header: 'Metric', width: w - 392 }, { header: 'n', width: 26, align: 'right' },
+    { header: 'Mean', width: 50, align: 'right' }, { header: 'σ', width: 46, align: 'right' }, { header: 'Min', width: 50, align: 'right' },
+    { header: 'Max', width: 50, align: 'right' }, { header: 'Yield', width: 52, align: 'right' }, { header: 'Cpk', width: 56, align: 'right' },
+  ];
+  const frac = (metric: string) => metric.startsWith('coverage@') || /coverage/i.test(metric) && !metric.startsWith('check:');
+  table(doc, scols, b.stats.map((s) => {
+    const f = (v: number | null) => (frac(s.metric) && v !== null ? pct(v) : fmt(v));
+    return [fmtFrequency(s.frequencyHz), s.metric, `${s.count}`, f(s.mean), frac(s.metric) && s.std !== null ? `${fmt(100 * s.std, 1)} pt` : fmt(s.std), f(s.min), f(s.max), pct(s.yield, 0), fmt(s.cpk)];
+  }), { fontSize: 7.2 });
+  note(doc, 'σ: sample standard deviation (n − 1). Yield: share of units whose check passed. Cpk: min(mean − lower, upper − mean) / 3σ against the limit as written (no test tolerance). Values in the unit\'s dB unit; coverage as share of 4π.');
+
+  // Overlaid CDFs.
+  const curves: CurveStyle[] = [];
+  units.forEach((u) => {
+    const c = getKeyed<CdfCurve>(input.cdfs, unitKey(u.unit, u.frequencyHz));
+    if (c) curves.push({ curve: c, color: u.verdict === 'fail' ? INK : '#8a8a96', width: u.verdict === 'fail' ? 0.9 : 0.6, dash: u.verdict === 'fail' });
+  });
+  if (curves.length > 0) {
+    doc.addPage();
+    heading(doc, q === 'eis' ? 'CCDF of every unit (EIS)' : `CDF of every unit (${quantityLabel(q)})`, 250);
+    const box = { x: MARGIN.left + 44, y: doc.y + 6, w: w - 44 - 120, h: 220 };
+    const limits = distinctLimits(units);
+    drawCdfPlot(doc, box, q, vu, curves, [], [], limits);
+    doc.y = box.y;
+    doc.font('R').fontSize(7).fillColor(INK);
+    limits.forEach((l, k) => doc.font('B').text(`L${k + 1} `, box.x + box.w + 12, doc.y, { continued: true, width: 106 }).font('R').text(`${l.label} ${vu}`));
+    doc.y = Math.max(doc.y, box.y + box.h + 26);
+    note(doc, 'Each line is one unit\'s total scan pattern over 4π (unmeasured solid angle counts as worst). Grey solid: not failed; black dashed: failed. Dashed verticals L1…: limits as judged.');
+  }
+
+  // Thumbnail strip on one colour scale.
+  const thumbs = units.map((u) => ({ u, t: getKeyed(input.thumbnails, unitKey(u.unit, u.frequencyHz)) })).filter((x) => x.t);
+  if (thumbs.length > 0) {
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const { t } of thumbs) for (const v of t!.values) if (Number.isFinite(v)) {
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
+    const sc = valueScale(Number.isFinite(lo) ? lo : 0, Number.isFinite(hi) ? hi : 1, q);
+    heading(doc, 'Total scan pattern of every unit (one colour scale)', 120);
+    const perRow = 3;
+    const gap = 12;
+    const tw = (w - 60 - gap * (perRow - 1)) / perRow;
+    const th = tw / 2;
+    const top = doc.y;
+    let y = top;
+    thumbs.forEach(({ u, t }, k) => {
+      const col = k % perRow;
+      if (col === 0 && k > 0) y += th + 26;
+      if (y + th + 24 > doc.page.height - MARGIN.bottom) {
+        doc.addPage();
+        y = MARGIN.top;
+      }
+      const box: MapBox = { x: MARGIN.left + col * (tw + gap), y: y + 12, w: tw, h: th };
+      const png = paintPng(t!.width, t!.height, (i) => {
+        const v = t!.values[i];
+        return Number.isFinite(v) ? colorAt(settings.colorMap, scaleT(sc, v)) : null;
+      }, (i) => !insideEllipse(i % t!.width, Math.floor(i / t!.width), t!.width, t!.height));
+      drawMapFrame(doc, box, png, t!.centerPhiDeg, false);
+      doc.font(u.verdict === 'fail' ? 'B' : 'R').fontSize(7.5).fillColor(INK).text(`${label(u)} · ${verdictText(u.verdict)}`, box.x, y, { width: tw, lineBreak: false, ellipsis: true });
+    });
+    const barY = top + 14;
+    drawColorBar(doc, MARGIN.left + w - 34, barY, Math.min(160, y + th + 12 - barY), (t) => colorAt(settings.colorMap, t), sc.ticks.map((v) => ({ t: scaleT(sc, v), value: v })), sc.step, vu);
+    doc.y = Math.max(y + th + 22, barY + 170);
+    ensureSpace(doc, 30);
+    note(doc, 'Hammer equal-area maps (area ∝ solid angle), centre θ = 90°, top θ = 0°; hatched grey: not measured. One colour scale for all units, brightest = best.');
+  }
+  addFooters(doc, 'Build summary');
+  return finish(doc);
+}
