@@ -48,8 +48,8 @@ function lineColOf(head: Buffer, offset: number): [number, number] {
 
 /**
  * Read the preamble (comments, `# key: value` metadata), the header line and the dialect
- * (delimiter by papaparse's guesser over the header and the first rows; decimal comma when the
- * delimiter is ';' or tab and numbers are written '12,5'; BOM; line ending) from the head bytes.
+ * (delimiter by papaparse's guesser over the header and the first rows; decimal commas accepted
+ * when the delimiter is ';' or tab; BOM; line ending) from the head bytes.
  */
 export function sniffHead(file: string, head: Buffer, wholeFile: boolean): HeadInfo | InputError {
   if (head.length === 0) return inputError(file, 1, 1, 'file', 'an empty file', 'a header row and data rows', true);
@@ -99,8 +99,9 @@ export function sniffHead(file: string, head: Buffer, wholeFile: boolean): HeadI
   const sample = text.slice(header.start, sampleEnd);
   const guess = Papa.parse<string[]>(sample, { delimitersToGuess: [',', ';', '\t'], comments: '#', skipEmptyLines: true, preview: 21 });
   const delimiter = (guess.meta.delimiter === ';' || guess.meta.delimiter === '\t' ? guess.meta.delimiter : ',') as HeadInfo['delimiter'];
-  const rows = Papa.parse<string[]>(sample, { delimiter, comments: '#', skipEmptyLines: true, preview: 21 }).data;
-  const decimalComma = delimiter !== ',' && rows.slice(1).some((r) => r.some((c) => /^\s*[+-]?\d*,\d+\s*$/.test(c)));
+  // With ';' or tab a decimal comma is accepted everywhere ('.' still reads as a decimal point,
+  // never both in one number), so a file whose first rows happen to be integers is read alike.
+  const decimalComma = delimiter !== ',';
   const headerCells = header.text.includes('"') ? Papa.parse<string[]>(header.text, { delimiter }).data[0] ?? [''] : header.text.split(delimiter);
   const headerCellCols = cellCols(header.text, delimiter);
   const dataPart = text.slice(header.next);
