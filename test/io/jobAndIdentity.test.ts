@@ -1,0 +1,109 @@
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { calibrationOffsetDb } from '../../src/io/calibrationOffset.js';
+import { formatInspect, inspectInput } from '../../src/io/inspectInput.js';
+import { loadJobFile } from '../../src/io/jobFile.js';
+import { pathIdentity } from '../../src/io/pathIdentity.js';
+import { readExportFile } from '../../src/io/readExportFile.js';
+import { expectClose } from '../helpers/expectClose.js';
+import { FIXTURES } from './readHelpers.js';
+
+const dir = mkdtempSync(path.join(tmpdir(), 'spherecov-job-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('identity from the path (CONTRACT.md "Input folder")', () => {
+  it.each([
+    ['PX-01/PX-01_beam_5_28GHz.csv', 'PX-01', '5', 28e9, 'folder'],
+    ['PX-02_beam-12_26.5GHz.csv', 'PX-02', '12', 26.5e9, 'file-name'],
+    ['lot3_b7.csv', 'lot3', '7', null, 'file-name'],
+    ['unitA.csv', 'unitA', 'unitA', null, 'file-name'],
+    ['U9/sweep/beam3.csv', 'U9', '3', null, 'folder'],
+  ])('%s', (rel, unit, beam, f, src) => {
+    const id = pathIdentity(rel);
+    expect([id.unit, id.beam, id.frequencyHz, id.sources.unit]).toEqual([unit, beam, f, src]);
+  });
+  it('job-file patterns override the path rules', () => {
+    const id = pathIdentity('run7/SN-0042__cw17__f27p9.csv', {
+      source: 'x', identity: { unit: '(SN-\\d+)', beam: 'cw(\\d+)', frequencyGhz: 'f(\\d+)p' },
+    });
+    expect([id.unit, id.beam, id.frequencyHz, id.sources.unit]).toEqual(['SN-0042', '17', 27e9, 'job']);
+  });
+});
+
+describe('calibration offset (piecewise-linear interpolation, Eq. C1)', () => {
+  const table = [{ frequencyHz: 24e9, offsetDb: 30 }, { frequencyHz: 26e9, offsetDb: 31 }, { frequencyHz: 30e9, offsetDb: 35 }];
+  it('interpolates linearly and returns table points exactly', () => {
+    // hand computation: 30 + (31 − 30)·(25 − 24)/(26 − 24) = 30.5; 31 + 4·(28 − 26)/4 = 33
+    expectClose(calibrationOffsetDb(table, 25e9)!, 30.5, 1e-12, 'midpoint of the first segment');
+    expectClose(calibrationOffsetDb(table, 28e9)!, 33, 1e-12, 'midpoint of the second segment');
+    expect(calibrationOffsetDb(table, 26e9)).toBe(31);
+  });
+  it('refuses to extrapolate', () => {
+    expect(calibrationOffsetDb(table, 23.9e9)).toBeNull();
+    expect(calibrationOffsetDb(table, 30.1e9)).toBeNull();
+  });
+});
+
+describe('job file', () => {
+  it('accepts every key and passes the other stages\' keys through', () => {
+    const p = path.join(dir, 'spherecov.yaml');
+    writeFileSync(p, [
+      'columns: { theta: "Pos Theta", phi: "Pos Phi", value: "Level" }',
+      'identity: { unit: "(SN-\\\\d+)" }',
+      'quantity: eis', 'value_unit: dBm', 'angles: { convention: theta-phi, unit: deg }', 'frequency_unit: GHz',
+      'calibration:', '  table:', '    - { frequency_mhz: 28000, offset_db: 1.5 }', '    - { frequency_ghz: 27, offset_db: 1 }',
+      'limits: fr2-example', 'checks: [{ kind: min-peak, limit: 20 }]', 'percentiles: [50, 90]', 'coverage_thresholds: [-88, -85]',
+      'report: { title: Bench }', 'reference: SN-0001', '',
+    ].join('\n'));
+    const { job, errors } = loadJobFile(p);
+    expect(errors).toEqual([]);
+    expect(job).toEqual({
+      source: p, columns: { theta: 'Pos Theta', phi: 'Pos Phi', value: 'Level' }, identity: { unit: '(SN-\\d+)' }, quantity: 'eis',
+      valueUnit: 'dBm', angles: { convention: 'theta-phi', unit: 'deg' }, frequencyUnit: 'GHz',
+      calibration: { table: [{ frequencyHz: 27e9, offsetDb: 1 }, { frequencyHz: 28e9, offsetDb: 1.5 }] },
+      limits: 'fr2-example', checks: [{ kind: 'min-peak', limit: 20 }], percentiles: [50, 90], coverageThresholds: [-88, -85],
+      report: { title: 'Bench' }, reference: 'SN-0001',
+    });
+  });
+  it('JSON job files and syntax errors', () => {
+    const p = path.join(dir, 'spherecov.json');
+    writeFileSync(p, '{"quantity": "gain", "percentiles": [5]}');
+    expect(loadJobFile(p).job).toMatchObject({ quantity: 'gain', percentiles: [5] });
+    writeFileSync(p, '{"quantity": "gain",\n "percentiles": [5}');
+    const bad = loadJobFile(p);
+    expect(bad.job).toBeNull();
+    expect(bad.errors[0].message).toMatch(/^spherecov\.json:2:\d+: syntax: found '.*', expected valid JSON/);
+  });
+  it('mapped columns read a file detection alone cannot', async () => {
+    const p = path.join(dir, 'spherecov.yaml');
+    writeFileSync(p, 'columns: { theta: "Pos Theta", phi: "Pos Phi", value: "Level", beam: "CW" }\nquantity: eis\n');
+    const job = loadJobFile(p).job!;
+    const f = path.join(dir, 'SN-7.csv');
+    writeFileSync(f, 'Pos Theta,Pos Phi,CW,Level\n0,0,a,-90.5\n90,0,a,-88\n90,120,a,-87\n90,240,a,-86\n180,0,a,-80\n');
+    const r = await readExportFile(f, { inputRoot: dir, job });
+    expect(r.errors).toEqual([]);
+    expect(r.beams.map((b) => [b.unit, b.beam, b.quantity, b.valueUnit, Array.from(b.values)])).toEqual([['SN-7', 'a', 'eis', 'dBm', [-90.5, -88, -87, -86, -80]]]);
+  });
+});
+
+describe('inspect', () => {
+  it('reports how a folder was understood, as text and as a JSON-able object', async () => {
+    const r = await inspectInput(path.join(FIXTURES, 'io', 'calibrated'));
+    expect(JSON.parse(JSON.stringify(r))).toEqual(r);
+    expect(r.errors).toEqual([]);
+    expect(r.files[0]).toMatchObject({ file: 'power.csv', layout: 'long', delimiter: ',', parser: 'fast', calibrated: true, rows: 168, units: ['DUT-A'] });
+    expect(r.measurements[0].grid).toMatchObject({ kind: 'regular', points: 62, thetaStepDeg: 30, phiStepDeg: 30, fullSphere: true });
+    // full sphere: the weights sum to 4π
+    expectClose(r.measurements[0].grid.solidAngleSr, 4 * Math.PI, 1e-9, 'regular full grid covers 4π');
+    const text = formatInspect(r);
+    expect(text).toContain('file power.csv');
+    expect(text).toContain('layout: long; delimiter: comma; LF; parser: fast');
+    expect(text).toContain('calibrated from received power');
+    expect(text).toMatch(/power_dbm\s+power \[dBm\]/);
+    expect(text).toContain('unit DUT-A at 28 GHz: eirp (dBm), 2 beams from 1 file(s)');
+    expect(text).toContain('grid: regular, 62 points; θ 0–180° step 30°; φ 0–330° step 30°');
+    expect(text).toContain('warning [calibration-applied]: power.csv: received power + 31.000 dB at 28 GHz');
+  });
+});
