@@ -16,12 +16,12 @@ import { runInspect, runLimits } from './commands.js';
 const EXAMPLES = `
 Examples:
   $ spherecov analyze exports/build-B --out reports/build-B
-  $ spherecov analyze exports/build-B --out reports/build-B --limits fr2-pc3-n257 --jobs 2
+  $ spherecov analyze exports/build-B --out reports/build-B --limits 3gpp-fr2-pc3-n257 --jobs 2
   $ spherecov analyze exports/rx --out reports/rx --quantity eis --coverage-thresholds -88,-85
   $ spherecov analyze exports/build-B --out /tmp/quick --no-pdf --json --quiet > results.json
   $ spherecov inspect exports/build-B/PX-01
   $ spherecov limits
-  $ spherecov limits fr2-pc3-n257
+  $ spherecov limits 3gpp-fr2-pc3-n257
 
 Exit codes: 0 all units analyzed and none failed a limit; 1 a unit failed a limit;
 2 usage error or an input could not be read (the rest is still analyzed and written);
@@ -133,9 +133,9 @@ export async function main(argv: string[], io: BatchIo = defaultIo()): Promise<n
 
 function codeForError(e: unknown, io: BatchIo): number {
   if (e instanceof CommanderError) {
-    // Help and version are "errors" to commander's exitOverride but successful runs for the user.
-    if (e.code === 'commander.helpDisplayed' || e.code === 'commander.version' || e.code === 'commander.help') return 0;
-    return 2;
+    // Asked-for help and --version are "errors" to exitOverride with exitCode 0; help shown
+    // because no command was given, and every parse error, are usage errors.
+    return e.exitCode === 0 ? 0 : 2;
   }
   if (e instanceof UsageError || e instanceof RunError) {
     io.stderr(`spherecov: ${e.message}\n`);

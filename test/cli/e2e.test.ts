@@ -133,6 +133,7 @@ describe('exit codes', () => {
       ['analyze', path.join(FIX, 'pass'), '--out', tmp(), '--limits', 'no-such-profile'],
       ['analyze', path.join(FIX, 'nowhere'), '--out', tmp()],
       ['frobnicate'],
+      [],
     ]) {
       const r = run(args);
       expect(r.code, args.join(' ')).toBe(2);
@@ -146,6 +147,8 @@ describe('exit codes', () => {
     expect(r.code).toBe(0);
     expect(r.stdout).toContain('Examples:');
     expect(r.stdout).toContain('--coverage-thresholds <list>');
+    expect(run(['--version']).code).toBe(0);
+    expect(run(['help', 'analyze']).code).toBe(0);
   });
 });
 
