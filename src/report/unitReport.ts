@@ -281,7 +281,7 @@ function beamsSection(doc: Doc, r: UnitResult): void {
     { header: 'Best share', width: 56, align: 'right' },
     { header: 'Note', width: 60 },
   ];
-  if (hasRemoval) cols.push({ header: 'Removal: Δ pct (dB)', width: 58, align: 'right' }, { header: 'Δ cov. (pt)', width: 46, align: 'right' });
+  if (hasRemoval) cols.push({ header: 'Δ pct dB', width: 58, align: 'right' }, { header: 'Δ cov pt', width: 46, align: 'right' });
   table(doc, cols, r.beams.map((b) => {
     const row = [b.id, fmt(b.peak.value), `${fmt(b.peak.thetaDeg, 1)}°`, `${fmt(b.peak.phiDeg, 1)}°`, fmt(b.trpDbm), pct(b.bestShare), b.bestShare === 0 || b.neverBest ? 'never best' : ''];
     if (hasRemoval) row.push(fmt(b.removal?.percentileLossDb), b.removal?.coverageLoss == null ? '—' : fmt(100 * b.removal.coverageLoss, 1));
@@ -289,7 +289,7 @@ function beamsSection(doc: Doc, r: UnitResult): void {
   }), { fontSize: 7.4, emphasis: (k) => r.beams[k].bestShare === 0 });
   const trpNote = r.grid.fullSphere ? 'TRP from the solid-angle-weighted power mean over 4π.' : 'TRP is not reported: the grid does not cover the full sphere.';
   note(doc, `Peak: the beam's best value and its direction. Best share: fraction of 4π where the beam is the best one. ${trpNote}` +
-    (hasRemoval ? ' Removal: how much the judged percentile and the coverage share drop if that beam is taken out of the codebook.' : ''));
+    (hasRemoval ? ' Δ pct / Δ cov: how much the judged percentile (dB) and the coverage share (percentage points) drop if that beam is taken out of the codebook.' : ''));
   if (r.subset) note(doc, `Smallest subset keeping the ${fmt(r.subset.levelPct, 0)} % value within ${fmt(r.subset.toleranceDb, 1)} dB: ${r.subset.beams.length} beams (${r.subset.beams.join(', ')}).`);
 }
 
@@ -324,7 +324,7 @@ function referenceSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: R
     note(doc, `This unit's total scan pattern minus the reference's, per direction (same projection). ${input.result.quantity === 'eis' ? 'For EIS a negative difference is better.' : 'Positive: this unit is stronger.'} Thin line: zero difference.`);
   }
   const w = contentWidth(doc);
-  table(doc, [{ header: 'Metric', width: w - 110 }, { header: 'Δ (this − reference)', width: 110, align: 'right' }], Object.entries(ref.deltas).map(([k, v]) => [k, fmt(v)]), { fontSize: 7.4 });
+  table(doc, [{ header: 'Metric', width: w - 110 }, { header: 'Δ (this − reference)', width: 110, align: 'right' }], Object.entries(ref.deltas).map(([k, v]) => [k, fmt(v, /coverage/i.test(k) ? 4 : 2)]), { fontSize: 7.4 });
 }
 
 function trendSection(doc: Doc, r: UnitResult): void {
@@ -333,7 +333,7 @@ function trendSection(doc: Doc, r: UnitResult): void {
   heading(doc, 'Metrics versus frequency', 40);
   const keys = [...new Set(trend.flatMap((t) => Object.keys(t)).filter((k) => k !== 'frequencyHz'))].slice(0, 7);
   const w = contentWidth(doc);
-  const kw = (w - 80) / Math.max(1, keys.length);
+  const kw = Math.min(80, (w - 80) / Math.max(1, keys.length));
   table(doc, [{ header: 'Frequency', width: 80 }, ...keys.map((k) => ({ header: k, width: kw, align: 'right' as const }))],
     trend.map((t) => [fmtFrequency(t.frequencyHz), ...keys.map((k) => fmt(t[k] as number | null))]), { fontSize: 7.2 });
 }
