@@ -62,3 +62,10 @@ export {
   referenceDeltas, tspDifference, frequencyTrend, pointingDrift,
 } from './analysis/index.js';
 export type { FrequencyTrendRow, BeamDrift } from './analysis/index.js';
+
+// report: unit and build PDFs, settings, thumbnails, the equal-area projection
+export {
+  renderUnitPdf, renderBuildPdf, unitMapThumbnail, cdfCurve, loadReportSettings, ReportSettingsError, unitKey,
+  hammerForward, hammerInverse, contourThreshold, CAUTION,
+} from './report/index.js';
+export type { BuildReportInput, MapThumbnail, ReportSettings, ReportSections, UnitReportInput, CdfCurve } from './report/index.js';
