@@ -80,3 +80,20 @@ describe('export writers', () => {
     }
   });
 });
+
+describe('writeExport on an unprintable value', () => {
+  it('throws and leaves no partial file', async () => {
+    const { stat } = await import('node:fs/promises');
+    const dir = await mkdtemp(join(tmpdir(), 'sim-writer-'));
+    try {
+      const big = regularGrid({ thetaStepDeg: 1, phiStepDeg: 1 });
+      const vals = new Float64Array(big.thetaDeg.length);
+      vals[vals.length - 1] = NaN; // after several 64 KiB chunks have been written
+      const path = join(dir, 'bad.csv');
+      await expect(writeExport(path, { grid: big, beams: [{ id: '1', valuesDb: vals }] }, { layout: 'long' })).rejects.toThrow(/cannot be printed/);
+      await expect(stat(path)).rejects.toThrow(/ENOENT/);
+    } finally {
+      await rm(dir, { recursive: true, force: true });
+    }
+  });
+});

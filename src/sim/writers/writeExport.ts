@@ -1,5 +1,5 @@
 import { createWriteStream } from 'node:fs';
-import { mkdir } from 'node:fs/promises';
+import { mkdir, rm } from 'node:fs/promises';
 import { dirname } from 'node:path';
 import { once } from 'node:events';
 import { exportLines } from './exportLines.js';
@@ -21,6 +21,7 @@ export function formatExport(table: ExportTable, opts: ExportOptions): string {
  * Streams one export file to disk (parent folders created), writing in chunks of about
  * 64 KiB and waiting for the stream to drain, so memory stays flat for large exports.
  * Cost: O(file size) time, O(1) memory.
+ * Boundary rule: on an error the partial file is removed.
  * @throws Error from the file system or from exportLines (unprintable values).
  * @example
  * await writeExport('/tmp/x/beam_0.csv', table, { layout: 'long' });
@@ -41,6 +42,7 @@ export async function writeExport(path: string, table: ExportTable, opts: Export
     await once(out, 'finish');
   } catch (err) {
     out.destroy();
+    await rm(path, { force: true }); // no half-written export left behind
     throw err;
   }
 }
