@@ -62,9 +62,15 @@ export class OutputWriter {
     this.known = new Set(previous);
   }
 
-  /** Open (create) the output folder and read the previous run's manifest. */
+  /**
+   * Open (create) the output folder and read the previous run's manifest. Call with the lock
+   * held: temporary files left by an earlier run (killed before it could clean up) are removed.
+   */
   static async open(dir: string, runId: string): Promise<OutputWriter> {
     await mkdir(dir, { recursive: true });
+    for (const f of await readdir(dir)) {
+      if (f.startsWith(TEMP_MARK)) await rm(path.join(dir, f), { force: true });
+    }
     let previous: string[] = [];
     try {
       const m = JSON.parse(await readFile(path.join(dir, MANIFEST_NAME), 'utf8')) as Partial<Manifest>;
@@ -89,6 +95,29 @@ export class OutputWriter {
       await this.saveManifest([...this.known], false);
     }
     await this.atomic(name, data);
+    this.written.add(name);
+  }
+
+  /**
+   * Park finished bytes in a temporary file now (so they need not stay in memory) and give
+   * them their final name later with `commit`. The spool file is removed on interrupt.
+   */
+  async spool(data: Uint8Array): Promise<string> {
+    const tmp = path.join(this.dir, `${TEMP_MARK}${this.runId}-${this.seq++}-spool`);
+    this.temps.add(tmp);
+    await writeFile(tmp, data);
+    return tmp;
+  }
+
+  /** Give a spooled file its final name (a rename: atomic), recording it like `write`. */
+  async commit(spooled: string, name: string): Promise<void> {
+    if (!isPlainName(name)) throw new Error(`refusing to write '${name}': not a plain file name`);
+    if (!this.known.has(name)) {
+      this.known.add(name);
+      await this.saveManifest([...this.known], false);
+    }
+    await rename(spooled, path.join(this.dir, name));
+    this.temps.delete(spooled);
     this.written.add(name);
   }
 

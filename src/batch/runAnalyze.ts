@@ -4,6 +4,7 @@
 import os from 'node:os';
 import path from 'node:path';
 import { existsSync } from 'node:fs';
+import { mkdir } from 'node:fs/promises';
 import type { InputError, Quantity, ResultsFile, UnitResult, Warning } from '../types.js';
 import type { JobSpec } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
@@ -161,11 +162,13 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const tasks = [...groups.keys()].sort(byCodePoint).map((k) => makeTask(k, groups.get(k) as string[]));
 
   let writer: OutputWriter;
-  let release: () => void;
+  let release: () => void = () => undefined;
   try {
-    writer = await OutputWriter.open(outDir, `${process.pid}-${Date.now().toString(36)}`);
+    await mkdir(outDir, { recursive: true });
     release = acquireLock(outDir);
+    writer = await OutputWriter.open(outDir, `${process.pid}-${Date.now().toString(36)}`);
   } catch (e) {
+    release();
     if (e instanceof LockBusyError) throw new RunError(e.message);
     throw new RunError(`cannot write to the output folder '${opts.outDir}': ${(e as Error).message}`);
   }
@@ -174,6 +177,8 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const pool = new TaskPool();
   let interrupted = false;
   let stage = 'analyzing';
+  const spooled = new Map<UnitOutput, string>();
+  const spooling: Promise<void>[] = [];
   const onSigint = () => {
     interrupted = true;
     void pool.terminate();
@@ -183,8 +188,18 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     const outputs = await pool.run(tasks, jobs, {
       aborted: () => interrupted,
       onStart: (t) => progress.start(t.key),
-      onDone: () => progress.finish(),
+      onDone: (_t, out) => {
+        progress.finish();
+        // PDFs go to spool files as they arrive: memory stays bounded by one unit's report.
+        for (const u of out.units) {
+          if (!u.pdf) continue;
+          const bytes = u.pdf;
+          u.pdf = null;
+          spooling.push(writer.spool(bytes).then((p) => void spooled.set(u, p)));
+        }
+      },
     });
+    await Promise.all(spooling);
     if (interrupted) throw new InterruptedError('stop');
     for (const comp of collidingGroups(outputs)) {
       const files = comp.flatMap((k) => groups.get(k) as string[]).sort((a, b) => byCodePoint(toPosix(a), toPosix(b)));
@@ -235,8 +250,11 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     if (pdf) {
       const stems = uniqueStems(units.map((u) => (u.frequencyHz === null ? u.unit : `${u.unit}_${frequencyToken(u.frequencyHz)}`)));
       for (let i = 0; i < unitOutputs.length; i++) {
+        const file = spooled.get(unitOutputs[i]);
+        if (interrupted) throw new InterruptedError('stop');
         const bytes = unitOutputs[i].pdf;
-        if (bytes) await write(`${stems[i]}.pdf`, bytes);
+        if (file) await writer.commit(file, `${stems[i]}.pdf`);
+        else if (bytes) await write(`${stems[i]}.pdf`, bytes);
       }
       const thumbnails: Record<string, MapThumbnail> = {};
       const cdfs: Record<string, CdfCurve> = {};

@@ -43,6 +43,25 @@ describe('OutputWriter', () => {
     expect(existsSync(path.join(dir, 'orphan.pdf'))).toBe(false);
   });
 
+  it('spools bytes and commits them under their final name; sweeps temporary files of a killed run', async () => {
+    writeFileSync(path.join(dir, '.spherecov-tmp-dead-0-U-01.pdf'), 'half');
+    const w = await OutputWriter.open(dir, 'r1');
+    expect(existsSync(path.join(dir, '.spherecov-tmp-dead-0-U-01.pdf'))).toBe(false);
+    const tmp = await w.spool(new Uint8Array([37, 80, 68, 70]));
+    expect(path.basename(tmp).startsWith('.spherecov-tmp-r1')).toBe(true);
+    await w.commit(tmp, 'U-01.pdf');
+    await w.finish();
+    expect(readFileSync(path.join(dir, 'U-01.pdf'), 'utf8')).toBe('%PDF');
+    expect(readdirSync(dir).sort()).toEqual([MANIFEST_NAME, 'U-01.pdf']);
+  });
+
+  it('removes this run\'s temporary files after an interrupt', async () => {
+    const w = await OutputWriter.open(dir, 'r1');
+    await w.spool(new Uint8Array([1]));
+    await w.removeTemps();
+    expect(readdirSync(dir)).toEqual([]);
+  });
+
   it('refuses names with folders', async () => {
     const w = await OutputWriter.open(dir, 'r1');
     await expect(w.write('../x.txt', 'no')).rejects.toThrow(/not a plain file name/);
