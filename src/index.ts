@@ -69,3 +69,12 @@ export {
   hammerForward, hammerInverse, contourThreshold, CAUTION,
 } from './report/index.js';
 export type { BuildReportInput, MapThumbnail, ReportSettings, ReportSections, UnitReportInput, CdfCurve } from './report/index.js';
+
+// batch: the whole analyze run (discover → analyze units in parallel → write outputs)
+export { runAnalyze } from './batch/runAnalyze.js';
+export type { AnalyzeOptions, BatchIo } from './batch/options.js';
+export { DEFAULT_PERCENTILES_PCT } from './batch/options.js';
+export { exitCode } from './batch/exitCode.js';
+export { RunError, InterruptedError } from './batch/errors.js';
+export { neutralizeCell } from './batch/csv.js';
+export { sanitizeStem } from './batch/sanitize.js';
