@@ -11,8 +11,8 @@ const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
 const KEY_MEMO = 256;
 
 /**
- * Streaming byte-level reader for plain numeric rows: reads the file in 1 MiB chunks into one
- * reused buffer, splits lines with memchr-speed `indexOf`, parses numbers from the bytes, and
+ * Streaming byte-level reader for plain numeric rows: reads the file in 1 MiB chunks into two
+ * alternating buffers (the next read overlaps parsing), splits lines with memchr-speed `indexOf`, parses numbers from the bytes, and
  * hands every row it does not fully understand (spaces, NaN, exotic numbers, wrong field count)
  * to the shared text routine, so results equal the general path's exactly.
  *
@@ -31,6 +31,7 @@ export async function fastTokenize(
   startLine: number,
   t: TokenContext,
   hash: Hash,
+  chunkBytes = CHUNK,
 ): Promise<'done' | 'quote'> {
   const kinds = t.fields.kinds;
   const slots = t.fields.slots;
@@ -41,12 +42,10 @@ export async function fastTokenize(
   const keyIds = t.keyIds;
   const memo = Array.from({ length: t.fields.keyCount }, () => ({ bytes: Buffer.alloc(KEY_MEMO), len: -1, id: -1 }));
 
-  let buf = Buffer.allocUnsafe(CHUNK);
-  let carry = 0;
   let filePos = 0;
   let line = startLine;
   let skipTo = dataStart;
-  let lb: Buffer = buf;
+  let lb: Buffer = Buffer.alloc(0);
   let ls = 0;
   let le = 0;
   let cached: RowLocator | null = null;
@@ -165,50 +164,60 @@ export async function fastTokenize(
     return true;
   }
 
+  // Double buffering: the next chunk is read (thread pool) while this one is parsed; a line cut
+  // by a chunk boundary is stitched from the kept tail and the next chunk's first line.
+  const bufs = [Buffer.allocUnsafe(chunkBytes), Buffer.allocUnsafe(chunkBytes)];
+  let which = 0;
+  let pending = fh.read(bufs[0], 0, chunkBytes, 0);
+  let tail: Buffer | null = null;
+  const lineAt = (view: Buffer, i: number, nl: number): boolean => {
+    let e = nl;
+    if (e > i && view[e - 1] === 13) e--;
+    if (e > i && view[i] !== 35 && !fastLine(view, i, e)) {
+      if (view.subarray(i, e).includes(34)) return false;
+      const fields = view.toString('utf8', i, e).split(t.delimiter);
+      processTextRow(fields, line, splitLocator(fields, t.delimiter), t);
+    }
+    line++;
+    return true;
+  };
   for (;;) {
-    const { bytesRead } = await fh.read(buf, carry, buf.length - carry, filePos);
-    if (bytesRead > 0) hash.update(buf.subarray(carry, carry + bytesRead));
+    const { bytesRead } = await pending;
+    const cur = bufs[which];
     filePos += bytesRead;
-    const end = carry + bytesRead;
     const eof = bytesRead === 0;
-    const view = buf.subarray(0, end);
-    let i = 0;
+    if (!eof) {
+      which ^= 1;
+      pending = fh.read(bufs[which], 0, chunkBytes, filePos);
+      hash.update(cur.subarray(0, bytesRead));
+    }
+    let view = cur.subarray(0, bytesRead);
     if (skipTo > 0) {
-      const skip = Math.min(skipTo, end);
-      i = skip;
+      const skip = Math.min(skipTo, view.length);
       skipTo -= skip;
-      if (skipTo > 0) {
-        carry = 0;
-        if (eof) break;
+      view = view.subarray(skip);
+      if (skipTo > 0) continue;
+    }
+    let i = 0;
+    if (tail !== null) {
+      const nl = view.indexOf(10);
+      if (nl < 0 && !eof) {
+        tail = Buffer.concat([tail, view]);
         continue;
       }
-    }
-    while (i < end) {
-      let nl = view.indexOf(10, i);
-      if (nl < 0) {
-        if (!eof) break;
-        nl = end;
-      }
-      let e = nl;
-      if (e > i && view[e - 1] === 13) e--;
-      if (e > i && view[i] !== 35 && !fastLine(view, i, e)) {
-        const sub = view.subarray(i, e);
-        if (sub.includes(34)) return 'quote';
-        const fields = view.toString('utf8', i, e).split(t.delimiter);
-        processTextRow(fields, line, splitLocator(fields, t.delimiter), t);
-      }
-      line++;
-      i = nl + 1;
+      const stitched = eof ? tail : Buffer.concat([tail, view.subarray(0, nl)]);
+      tail = null;
+      if (!lineAt(stitched, 0, stitched.length)) return 'quote';
+      i = eof ? 0 : nl + 1;
     }
     if (eof) break;
-    carry = end - i;
-    if (carry > 0) {
-      if (carry === buf.length) {
-        const bigger = Buffer.allocUnsafe(buf.length * 2);
-        buf.copy(bigger, 0, 0, carry);
-        buf = bigger;
-      } else buf.copyWithin(0, i, end);
+    for (;;) {
+      const nl = view.indexOf(10, i);
+      if (nl < 0) break;
+      if (!lineAt(view, i, nl)) return 'quote';
+      i = nl + 1;
     }
+    if (i < view.length) tail = Buffer.from(view.subarray(i));
   }
   return 'done';
 }

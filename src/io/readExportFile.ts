@@ -100,7 +100,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       };
       if (useFast) {
         const hash = createHash('sha256');
-        const outcome = await fastTokenize(fh!, sniff.dataByteStart, sniff.headerLine + 1, t, hash);
+        const outcome = await fastTokenize(fh!, sniff.dataByteStart, sniff.headerLine + 1, t, hash, ctx.chunkBytes);
         if (outcome === 'quote') return null;
         return { errors, keys, sink, sha: hash.digest('hex') };
       }

@@ -57,6 +57,8 @@ export interface ReadContext {
   quantityOverride?: Quantity;
   /** Force a parser path (tests and benchmarks); default 'auto'. */
   parser?: 'auto' | 'fast' | 'general';
+  /** Fast-path chunk size in bytes (tests use tiny chunks to exercise lines cut by chunk boundaries). */
+  chunkBytes?: number;
 }
 
 /** One beam of one unit (at one frequency) as found in one file, before grid building. */

@@ -25,6 +25,11 @@ describe('fast and general parser paths give identical results on every fixture'
       const fast = await readExportFile(f, { inputRoot: root, job, parser: 'fast' });
       const general = await readExportFile(f, { inputRoot: root, job, parser: 'general' });
       expect(comparable(fast)).toEqual(comparable(general));
+      // tiny chunks: nearly every line is cut by a chunk boundary and stitched
+      for (const chunkBytes of [7, 64]) {
+        const small = await readExportFile(f, { inputRoot: root, job, parser: 'fast', chunkBytes });
+        expect(comparable(small)).toEqual(comparable(general));
+      }
       for (let k = 0; k < fast.beams.length; k++) {
         for (let i = 0; i < fast.beams[k].values.length; i++) {
           expect(Object.is(fast.beams[k].values[i], general.beams[k].values[i])).toBe(true);
