@@ -125,20 +125,24 @@ export function table(doc: Doc, cols: Column[], rows: string[][], opts: { fontSi
   ensureSpace(doc, 2 * rowH + 2);
   drawHeader();
   rows.forEach((row, r) => {
-    if (doc.y + rowH > bottomY(doc)) {
+    // Long cells (check names, file paths) wrap inside their column; the row grows to fit them.
+    doc.font(opts.emphasis?.(r) ? 'B' : 'R').fontSize(fs);
+    const cellH = cols.map((c, k) => doc.heightOfString(row[k] ?? '', { width: c.width - 6 }));
+    const h = Math.max(rowH, Math.max(...cellH) + 5.2);
+    if (doc.y + h > bottomY(doc)) {
       doc.addPage();
       doc.y = MARGIN.top;
       drawHeader();
     }
     const y = doc.y;
-    if (r % 2 === 1) doc.rect(x0, y, total, rowH).fill('#f7f7f7');
+    if (r % 2 === 1) doc.rect(x0, y, total, h).fill('#f7f7f7');
     doc.font(opts.emphasis?.(r) ? 'B' : 'R').fontSize(fs).fillColor(INK);
     let x = x0;
     cols.forEach((c, k) => {
-      doc.text(row[k] ?? '', x + 3, y + 2.6, { width: c.width - 6, align: c.align ?? 'left', lineBreak: false, ellipsis: true });
+      doc.text(row[k] ?? '', x + 3, y + 2.6, { width: c.width - 6, align: c.align ?? 'left' });
       x += c.width;
     });
-    doc.y = y + rowH;
+    doc.y = y + h;
   });
   doc.moveTo(x0, doc.y).lineTo(x0 + total, doc.y).lineWidth(0.5).strokeColor(RULE).stroke();
   doc.font('R').fontSize(9);
