@@ -116,10 +116,24 @@ export function sniffHead(file: string, head: Buffer, wholeFile: boolean): HeadI
     headerText: header.text,
     headerCells,
     headerCellCols,
-    dataByteStart: (bom ? 3 : 0) + Buffer.byteLength(text.slice(0, header.next)),
+    dataByteStart: (bom ? 3 : 0) + byteOffsetOfLine(body, text, header.next),
     dataCharStart: header.next,
     quoted: dataPart.includes('"'),
   };
+}
+
+/**
+ * Byte offset in `body` of the text offset `charPos`, which is 0 or just after a '\n'. Counted by
+ * newline bytes, because invalid UTF-8 (a Latin-1 'ü') decodes to U+FFFD and re-encoding the
+ * text would give a different length; 0x0A is never part of a multi-byte sequence.
+ */
+function byteOffsetOfLine(body: Buffer, text: string, charPos: number): number {
+  if (charPos >= text.length) return body.length;
+  let lines = 0;
+  for (let i = text.indexOf('\n'); i >= 0 && i < charPos; i = text.indexOf('\n', i + 1)) lines++;
+  let b = 0;
+  for (let k = 0; k < lines; k++) b = body.indexOf(10, b) + 1;
+  return b;
 }
 
 function nthLineEnd(text: string, from: number, n: number): number {
