@@ -1,0 +1,133 @@
+/**
+ * Issue 8, properties 2 and 3: interrupted runs and two runs into one output folder.
+ *
+ * SIGKILL at seeded random points of a multi-unit batch (some timed, some right after the n-th
+ * output file appears, so the writing stage is hit too): afterwards no file under a final name
+ * is partial (each equals the reference run's file byte for byte, PDFs whole, JSON parses), and
+ * a re-run completes with the reference results.json and no leftovers. SIGINT while writing
+ * stops with exit 130 and says how far it got (the analyzing-stage SIGINT case is in
+ * test/cli/e2e.test.ts). Two concurrent runs: one refuses in plain words, the other's outputs
+ * are intact.
+ */
+import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { ensureBuilt } from '../cli/buildOnce.js';
+import {
+  analyzeArgs, DATE, expectNoPartialOutputs, finalFiles, LOCK, multiUnitInput, pdfPages, prng, runAsync, runSync, TEMP_MARK, tmp,
+} from './cliHarness.js';
+import { recordFigure, SOAK } from './figures.js';
+
+const UNITS = SOAK ? 12 : 4;
+const KILLS = SOAK ? 40 : 5;
+
+let input: string;
+let ref: string;
+let refMs: number;
+
+beforeAll(() => {
+  ensureBuilt();
+  input = multiUnitInput(UNITS);
+  ref = tmp('ref');
+  const r = runSync(analyzeArgs(input, ref, ['--jobs', '2']));
+  expect(r.stderr).toBe('');
+  expect(r.code).toBe(0);
+  refMs = r.ms;
+}, 180_000);
+
+/** Wait until `n` final outputs exist in `out` (polling), or the child ends. */
+async function afterFiles(out: string, n: number, ended: () => boolean): Promise<void> {
+  while (!ended()) {
+    try {
+      if (finalFiles(out).length >= n) return;
+    } catch {
+      // the folder may not exist yet
+    }
+    await new Promise((r) => setTimeout(r, 3));
+  }
+}
+
+describe('SIGKILL at random points', () => {
+  it(`never leaves a partial output; a re-run gives the reference results (${KILLS} kills, ${UNITS} units)`, async () => {
+    const rnd = prng(8_003);
+    const out = tmp('kill');
+    let killed = 0;
+    let killedWhileWriting = 0;
+    for (let k = 0; k < KILLS; k++) {
+      const { child, done } = runAsync(analyzeArgs(input, out, ['--jobs', '2']));
+      let ended = false;
+      void done.then(() => (ended = true));
+      if (rnd() < 0.5) {
+        await new Promise((r) => setTimeout(r, (0.1 + 0.9 * rnd()) * refMs));
+      } else {
+        // Right after the n-th output file landed (n ≥ 1): the middle of the writing stage.
+        await afterFiles(out, 1 + Math.floor(rnd() * (UNITS + 2)), () => ended);
+        await new Promise((r) => setTimeout(r, rnd() * 30));
+      }
+      const writing = finalFiles(out).length > 0;
+      child.kill('SIGKILL');
+      const r = await done;
+      if (r.signal === 'SIGKILL') {
+        killed++;
+        if (writing) killedWhileWriting++;
+      } else {
+        expect(r.code).toBe(0);
+      }
+      expectNoPartialOutputs(out, ref);
+    }
+    recordFigure('kill.killsSurvived', killed);
+    recordFigure('kill.killedWhileWriting', killedWhileWriting);
+    expect(killed).toBeGreaterThanOrEqual(Math.ceil(KILLS / 2));
+
+    const again = runSync(analyzeArgs(input, out, ['--jobs', '2']));
+    expect(again.stderr).toBe('');
+    expect(again.code).toBe(0);
+    expect(readFileSync(path.join(out, 'results.json'), 'utf8')).toBe(readFileSync(path.join(ref, 'results.json'), 'utf8'));
+    expect(finalFiles(out)).toEqual(finalFiles(ref));
+    expectNoPartialOutputs(out, ref);
+    // Leftovers of the killed runs (temporary files, the dead run's lock) are gone.
+    expect(readdirSync(out).filter((f) => f.startsWith(TEMP_MARK) || f === LOCK)).toEqual([]);
+    for (const f of finalFiles(out).filter((x) => x.endsWith('.pdf'))) {
+      expect(await pdfPages(readFileSync(path.join(out, f)))).toBeGreaterThan(0);
+    }
+  }, 300_000);
+});
+
+describe('SIGINT while writing', () => {
+  it('exit 130, says how many files were replaced, no temporary files, lock released, nothing partial', async () => {
+    const out = tmp('int');
+    const { child, done } = runAsync(analyzeArgs(input, out, ['--jobs', '2']));
+    let ended = false;
+    void done.then(() => (ended = true));
+    await afterFiles(out, 1, () => ended);
+    child.kill('SIGINT');
+    const r = await done;
+    expect(r.code).toBe(130);
+    expect(r.stderr).toMatch(/interrupted while writing: \d+ file\(s\) replaced .*; run again to complete/);
+    expect(r.stderr).not.toMatch(/^\s+at /m);
+    expect(readdirSync(out).filter((f) => f.startsWith(TEMP_MARK) || f === LOCK)).toEqual([]);
+    expect(finalFiles(out)).not.toContain('results.json');
+    expectNoPartialOutputs(out, ref);
+  }, 120_000);
+});
+
+describe('two runs into the same output folder', () => {
+  for (const stale of [false, true]) {
+    it(`the second refuses in plain words and the first's outputs are intact${stale ? ' (a dead run left a stale lock)' : ''}`, async () => {
+      const out = tmp('two');
+      if (stale) writeFileSync(path.join(out, LOCK), JSON.stringify({ pid: 2 ** 22 + 12_345, startedAt: DATE }) + '\n');
+      const a = runAsync(analyzeArgs(input, out, ['--jobs', '1']));
+      const b = runAsync(analyzeArgs(input, out, ['--jobs', '1']));
+      const [ra, rb] = await Promise.all([a.done, b.done]);
+      const codes = [ra.code, rb.code].sort();
+      expect(codes).toEqual([0, 2]);
+      const loser = ra.code === 2 ? ra : rb;
+      expect(loser.stderr).toMatch(/^spherecov: another spherecov run \(pid \d+\) is writing to '.+'; wait for it to finish, or choose another --out\n$/);
+      expect(readFileSync(path.join(out, 'results.json'), 'utf8')).toBe(readFileSync(path.join(ref, 'results.json'), 'utf8'));
+      expect(finalFiles(out)).toEqual(finalFiles(ref));
+      expectNoPartialOutputs(out, ref);
+      expect(readdirSync(out).filter((f) => f.startsWith(TEMP_MARK) || f === LOCK)).toEqual([]);
+      rmSync(out, { recursive: true, force: true });
+    }, 120_000);
+  }
+});
