@@ -93,6 +93,20 @@ describe('SIGKILL at random points', () => {
   }, 300_000);
 });
 
+describe('leftovers of a killed run', () => {
+  it('a re-run removes the temporary files a SIGKILLed run left (they never carry a final name)', () => {
+    const out = tmp('left');
+    // What a run killed inside writeFile leaves: a half-written temporary beside the outputs.
+    const left = `${TEMP_MARK}4242-kzq1-3-R-01_28GHz.pdf`;
+    writeFileSync(path.join(out, left), '%PDF-1.3\n(half');
+    writeFileSync(path.join(out, LOCK), JSON.stringify({ pid: 2 ** 22 + 4242 }) + '\n');
+    const r = runSync(analyzeArgs(input, out, ['--jobs', '2']));
+    expect(r.code).toBe(0);
+    expect(readdirSync(out).filter((f) => f.startsWith(TEMP_MARK) || f === LOCK)).toEqual([]);
+    expectNoPartialOutputs(out, ref);
+  }, 120_000);
+});
+
 describe('SIGINT while writing', () => {
   it('exit 130, says how many files were replaced, no temporary files, lock released, nothing partial', async () => {
     const out = tmp('int');
