@@ -14,6 +14,7 @@ import { LongSink, type LongGroup } from './longSink.js';
 import { MatrixSink } from './matrixSink.js';
 import { parseNumberText } from './numberText.js';
 import { pathIdentity } from './pathIdentity.js';
+import { MAX_SAMPLES_PER_FILE, SampleLimit } from './sampleLimit.js';
 import { HEAD_BYTES, sniffHead, type HeadInfo } from './sniffHead.js';
 import type { TokenContext } from './textRow.js';
 import type { FileInfo, FileReadResult, RawBeam, ReadContext } from './types.js';
@@ -94,8 +95,10 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       const errors = new ErrorList(file);
       const keys = new KeyTable(plan.fields.keyCount);
       const sink = plan.layout === 'long' ? new LongSink(plan, file, errors, keys) : new MatrixSink(plan, file, errors, sniff.headerLine + 1);
+      const perRow = plan.layout === 'matrix' ? plan.colAnglesRaw.length : 1;
+      const limited = new SampleLimit(sink, perRow, ctx.maxSamples ?? MAX_SAMPLES_PER_FILE, file, errors);
       const t: TokenContext = {
-        file, fields: plan.fields, delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, errors, keys, sink,
+        file, fields: plan.fields, delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, errors, keys, sink: limited,
         nums: new Float64Array(Math.max(1, plan.fields.numCount)), keyIds: new Int32Array(Math.max(1, plan.fields.keyCount)),
       };
       if (useFast) {

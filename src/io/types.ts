@@ -57,6 +57,8 @@ export interface ReadContext {
   quantityOverride?: Quantity;
   /** Force a parser path (tests and benchmarks); default 'auto'. */
   parser?: 'auto' | 'fast' | 'general';
+  /** Most samples one file may hold (default MAX_SAMPLES_PER_FILE; tests set it low). */
+  maxSamples?: number;
   /** Fast-path chunk size in bytes (tests use tiny chunks to exercise lines cut by chunk boundaries). */
   chunkBytes?: number;
 }

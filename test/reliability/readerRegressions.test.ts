@@ -24,3 +24,24 @@ describe('reader regressions found by fuzzing', () => {
     expect(general.beams.map((b) => Array.from(b.values))).toEqual([[1.5, 2.5]]);
   });
 });
+
+describe('a file with more samples than the tool supports', () => {
+  it('is refused while streaming, with the line where the limit was passed (long and matrix layouts, both paths)', async () => {
+    const long = path.join(dir, 'too_many.csv');
+    writeFileSync(long, ['theta_deg,phi_deg,beam,eirp_dbm', ...Array.from({ length: 12 }, (_, i) => `${i * 10},0,0,1`)].join('\n') + '\n');
+    for (const parser of ['fast', 'general'] as const) {
+      const r = await readExportFile(long, { inputRoot: dir, parser, maxSamples: 10 });
+      expect(r.errors.map((e) => e.message)).toEqual([
+        'too_many.csv:12:1: data: found more than 10 samples, expected at most 10 samples (rows × value columns) in one file; split the export by beam or unit',
+      ]);
+      expect(r.beams).toEqual([]);
+      expect((await readExportFile(long, { inputRoot: dir, parser, maxSamples: 12 })).errors).toEqual([]);
+    }
+    const matrix = path.join(dir, 'too_many_matrix.csv');
+    writeFileSync(matrix, ['# quantity: eirp dBm', 'theta\\phi,0,90,180,270', '0,1,1,1,1', '90,1,1,1,1', '180,1,1,1,1'].join('\n') + '\n');
+    const m = await readExportFile(matrix, { inputRoot: dir, maxSamples: 11 });
+    expect(m.errors.map((e) => e.message)).toEqual([
+      'too_many_matrix.csv:5:1: data: found more than 11 samples, expected at most 11 samples (rows × value columns) in one file; split the export by beam or unit',
+    ]);
+  });
+});

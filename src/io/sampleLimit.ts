@@ -1,0 +1,40 @@
+import { ErrorList, inputError } from './inputError.js';
+import type { RowLocator, RowSink } from './rowSink.js';
+
+/**
+ * Most samples (rows × value columns) one file may hold: 10⁸ samples are 800 MB of float64
+ * values before angles and grid, so a larger file is refused while it streams, before memory
+ * runs out, instead of failing later in an allocation. A 1 GB long-layout export holds about
+ * 4–7·10⁷ samples (15–24 bytes a row).
+ */
+export const MAX_SAMPLES_PER_FILE = 100_000_000;
+
+/**
+ * Row sink guard: passes rows on until `max` samples, then records one error (at the first row
+ * over the limit) and drops the rest, so memory stays bounded; reading still ends normally.
+ * Cost O(1) a row.
+ */
+export class SampleLimit implements RowSink {
+  private samples = 0;
+  private tripped = false;
+
+  constructor(
+    private readonly inner: RowSink,
+    private readonly perRow: number,
+    private readonly max: number,
+    private readonly file: string,
+    private readonly errors: ErrorList,
+  ) {}
+
+  row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {
+    if (this.tripped) return;
+    if (this.samples + this.perRow > this.max) {
+      this.tripped = true;
+      this.errors.add(inputError(this.file, line, 1, 'data', `more than ${this.max} samples`,
+        `at most ${this.max} samples (rows × value columns) in one file; split the export by beam or unit`, true));
+      return;
+    }
+    this.samples += this.perRow;
+    this.inner.row(line, nums, keys, loc);
+  }
+}
