@@ -2,7 +2,8 @@
 // Where does analyze spend its time? Runs the CLI under `node --cpu-prof` (one profile per thread,
 // workers included) and prints self time by function and by source file, from the samples.
 //
-//   node bench/profile.mjs [FILE] [-- extra analyze options]   (default FILE: the 64-beam export)
+//   node bench/profile.mjs [--pdf] [FILE] [-- extra analyze options]   (default FILE: the 64-beam export;
+//                                          without --pdf the run is --no-pdf)
 //   node bench/profile.mjs --script bench/stage-read.mjs FILE  (profile one stage script instead)
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
@@ -51,7 +52,9 @@ function report(name, profile, top = 20) {
 const argv = process.argv.slice(2);
 const dd = argv.indexOf('--');
 const extra = dd >= 0 ? argv.slice(dd + 1) : [];
-const own = dd >= 0 ? argv.slice(0, dd) : argv;
+const ownAll = dd >= 0 ? argv.slice(0, dd) : argv;
+const withPdf = ownAll.includes('--pdf');
+const own = ownAll.filter((a) => a !== '--pdf');
 const profDir = join(outDir, 'prof');
 rmSync(profDir, { recursive: true, force: true });
 mkdirSync(profDir, { recursive: true });
@@ -63,7 +66,7 @@ else {
     process.stderr.write('no FILE given and no cached 64-beam export: run npm run bench first\n');
     process.exit(2);
   }
-  cmd = [join(repoDir, 'bin/spherecov.js'), 'analyze', file, '--out', join(outDir, 'runs', 'profile'), '--no-pdf', ...extra];
+  cmd = [join(repoDir, 'bin/spherecov.js'), 'analyze', file, '--out', join(outDir, 'runs', 'profile'), ...(withPdf ? [] : ['--no-pdf']), ...extra];
 }
 const t0 = process.hrtime.bigint();
 const r = spawnSync(process.execPath, ['--cpu-prof', '--cpu-prof-dir', profDir, '--cpu-prof-interval', '200', ...cmd], { cwd: repoDir, encoding: 'utf8' });

@@ -18,7 +18,8 @@ def _record():
     out = os.environ.get("BENCH_RSS_FILE")
     if out:
         with open(out, "w") as f:
-            json.dump({"maxRssKiB": resource.getrusage(resource.RUSAGE_SELF).ru_maxrss}, f)
+            ru = resource.getrusage(resource.RUSAGE_SELF)
+            json.dump({"maxRssKiB": ru.ru_maxrss, "cpuS": ru.ru_utime + ru.ru_stime}, f)
 
 
 atexit.register(_record)

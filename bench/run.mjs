@@ -4,7 +4,7 @@
 // peak RSS) in rotating order against the read-and-count floor, and prints one table. It is a
 // report: the exit code is 0 even when a target is missed (2 only for a usage error).
 import { spawnSync } from 'node:child_process';
-import { cpus } from 'node:os';
+import { cpus, loadavg } from 'node:os';
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parseArgs, USAGE, wants } from './lib/args.mjs';
@@ -33,7 +33,7 @@ if (o.help) {
 }
 
 const rows = [];
-const raw = { options: o, startedAt: new Date().toISOString() };
+const raw = { options: o, startedAt: new Date().toISOString(), loadStart: loadavg()[0] };
 const runsDir = join(outDir, 'runs');
 mkdirSync(runsDir, { recursive: true });
 
@@ -86,6 +86,7 @@ const cliRun = async (input, name, extra) => {
 };
 const walls = (rs) => rs.map((r) => (r.ok === false ? NaN : r.wallS));
 const rssMiB = (rs) => median(rs.map((r) => (r.ok === false || r.maxRssKiB === null ? NaN : r.maxRssKiB / MIB)));
+const cpuS = (rs) => median(rs.map((r) => (r.ok === false || r.cpuS === null ? NaN : r.cpuS)));
 const failure = (rs) => rs.find((r) => r.ok === false)?.why ?? '';
 const keep = (r) => (o.keep ? null : rmSync(r.out, { recursive: true, force: true }));
 
@@ -138,7 +139,26 @@ if (wants(o, 'floor') || wants(o, 'read') || wants(o, 'cli')) {
       rows.push(row('cli', 'analyze <file> --no-pdf, wall', median(walls(res.cli)), { unit: 's' }));
       rows.push(row('cli', 'wall / floor (paired)', pairedRatio(walls(res.cli), walls(res.floor)), { target: { op: '<=', limit: 3.5 }, digits: 2 }));
       rows.push(row('cli', 'peak RSS', rssMiB(res.cli), { target: { op: '<=', limit: 150 }, unit: 'MiB', digits: 1 }));
+      rows.push(row('cli', 'CPU time (user + system)', cpuS(res.cli), { unit: 's' }));
       res.cli.slice(0, -1).forEach(keep);
+    }
+  }
+  if (wants(o, 'cli') && have.read && have.measure) {
+    log('cli breakdown: one unit phase by phase, in-process …');
+    const u = (await stageRun('stage-unit.mjs', [long.path])).result;
+    raw.unitPhases = u;
+    if (u.error) rows.push(row('phases', 'one unit, in-process', null, { note: `failed: ${u.error}` }));
+    else {
+      const phases = [
+        ['readS', 'readExportFile'],
+        ['assembleS', 'assembleMeasurements'],
+        ['metricsS', 'computeMetrics'],
+        ['removalS', 'beamRemoval (analysis)'],
+        ['holesS', 'findHoles (analysis)'],
+        ['subsetS', `greedySubset (analysis, ${u.subsetSteps ?? '?'} beams picked)`],
+      ].filter(([k]) => u[k] !== undefined);
+      const total = phases.reduce((acc, [k]) => acc + u[k], 0);
+      for (const [k, label] of phases) rows.push(row('phases', `${label}, share ${((100 * u[k]) / total).toFixed(0)} %`, u[k], { unit: 's' }));
     }
   }
 }
@@ -198,6 +218,9 @@ if (wants(o, 'build') || wants(o, 'pdf')) {
       rows.push(row('build', `--jobs 1 with PDFs, wall (${bnote})`, median(walls(res.j1)), { unit: 's' }));
       rows.push(row('build', '--jobs 2 / --jobs 1 (paired)', pairedRatio(walls(res.j2), walls(res.j1)), { target: { op: '<=', limit: 0.6 }, digits: 2 }));
       rows.push(row('build', '--jobs 2, peak RSS', rssMiB(res.j2), { unit: 'MiB', digits: 1 }));
+      rows.push(row('build', '--jobs 1, CPU time', cpuS(res.j1), { unit: 's' }));
+      rows.push(row('build', '--jobs 2, CPU time', cpuS(res.j2), { unit: 's' }));
+      rows.push(row('build', '--jobs 2, CPU / wall (cores kept busy)', pairedRatio(res.j2.map((r) => r.cpuS), walls(res.j2)), { digits: 2 }));
       const added = [];
       for (let i = 0; i < o.reps; i++) added.push((res.j1[i].wallS - res.j1nopdf[i].wallS) / n);
       rows.push(row('pdf', 'PDF time added per unit (CLI --jobs 1, with vs --no-pdf, incl. build PDF share)', median(added), { target: { op: '<=', limit: 0.3 }, unit: 's' }));
@@ -265,10 +288,14 @@ if (wants(o, 'peer')) {
 }
 
 // ---- report ----
+raw.loadEnd = loadavg()[0];
+const busy = Math.max(raw.loadStart, raw.loadEnd) > cpus().length;
 const header = [
   `spherecov benchmark — ${raw.startedAt}`,
   `node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? '?'}), ${o.reps} rep(s) per process, rotating order; medians`,
   `data: ${generator}; long export ${sizeNote}; peak RSS via process.resourceUsage().maxRSS / getrusage in the child`,
+  `load average (1 min) at start ${raw.loadStart.toFixed(2)}, at end ${raw.loadEnd.toFixed(2)} on ${cpus().length} cores`,
+  busy ? 'BUSY MACHINE: other processes competed for the cores during this run; wall times and the --jobs ratio are inflated — re-run on a quiet machine before trusting a miss' : '',
   o.quick ? 'QUICK RUN: smaller files, one repetition — the targets are for the full-size files, so these statuses are indicative only' : '',
 ].filter(Boolean);
 const text = `${header.join('\n')}\n\n${renderTable(rows)}\n${comparison ? `\n${comparison}\n` : ''}`;

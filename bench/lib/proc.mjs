@@ -16,7 +16,8 @@ process.on('exit', () => rmSync(scratch, { recursive: true, force: true }));
 
 /**
  * Spawn `node <args>` (kind 'node') or `/usr/bin/python3 <script> <args>` (kind 'python').
- * Resolves to { wallS, maxRssKiB | null, code, signal, stdout, stderr }; never rejects on a
+ * Resolves to { wallS, maxRssKiB | null, cpuS | null, code, signal, stdout, stderr } (cpuS: user +
+ * system CPU seconds of the whole child, all threads); never rejects on a
  * non-zero exit (the caller decides), rejects only when the program cannot be started.
  */
 export function runMeasured(kind, args, { cwd, env, timeoutMs = 600_000 } = {}) {
@@ -46,8 +47,9 @@ export function runMeasured(kind, args, { cwd, env, timeoutMs = 600_000 } = {}) 
     child.on('close', (code, signal) => {
       clearTimeout(timer);
       let maxRssKiB = null;
+      let cpuS = null;
       try {
-        maxRssKiB = JSON.parse(readFileSync(rssFile, 'utf8')).maxRssKiB;
+        ({ maxRssKiB, cpuS = null } = JSON.parse(readFileSync(rssFile, 'utf8')));
         rmSync(rssFile, { force: true });
       } catch {
         // no file: the child died before its exit hook (crash, signal); RSS stays unknown
@@ -55,6 +57,7 @@ export function runMeasured(kind, args, { cwd, env, timeoutMs = 600_000 } = {}) 
       resolvePromise({
         wallS: Number((t1 ?? process.hrtime.bigint()) - t0) / 1e9,
         maxRssKiB,
+        cpuS,
         code,
         signal,
         stdout: Buffer.concat(out).toString('utf8'),

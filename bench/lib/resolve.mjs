@@ -15,6 +15,9 @@ export const EXPORTS = {
   buildSphereGrid: ['dist/sphere/buildGrid.js', 'dist/sphere/index.js', 'dist/index.js'],
   mergeSamples: ['dist/sphere/mergeSamples.js', 'dist/sphere/index.js', 'dist/index.js'],
   createMeasurement: ['dist/measurement.js', 'dist/index.js'],
+  beamRemoval: ['dist/analysis/beamRemoval.js', 'dist/analysis/index.js', 'dist/index.js'],
+  findHoles: ['dist/analysis/findHoles.js', 'dist/analysis/index.js', 'dist/index.js'],
+  greedySubset: ['dist/analysis/greedySubset.js', 'dist/analysis/index.js', 'dist/index.js'],
   renderUnitPdf: ['dist/report/renderUnitPdf.js', 'dist/report/index.js', 'dist/index.js'],
   loadReportSettings: ['dist/report/loadReportSettings.js', 'dist/report/settings.js', 'dist/report/index.js', 'dist/index.js'],
 };
