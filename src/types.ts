@@ -147,6 +147,8 @@ export interface BeamMetrics {
   trpDbm: number | null;
   /** Fraction of 4π where this beam is the best one. */
   bestShare: number;
+  /** Main-lobe pointing direction, finer than the grid (−3 dB centroid; src/coverage/beamPointing.ts). */
+  pointing?: Direction;
 }
 
 export interface CoverageMetrics {
@@ -259,6 +261,8 @@ export interface UnitResult {
   subset?: BeamSubset | null;
   reference?: { unit: string; deltas: Record<string, number | null> } | null;
   frequencyTrend?: ({ frequencyHz: number } & Record<string, number | null>)[] | null;
+  /** Per beam, how far its peak direction moves across the measured frequencies (issue 9). */
+  pointingDrift?: { beam: string; driftDeg: number; flagged: boolean; betweenHz: [number, number] | null }[] | null;
 }
 
 /** Per frequency and metric across the units of a build. */

@@ -15,7 +15,8 @@ export interface BeamDrift {
 
 /**
  * How far each beam's peak direction moves across the measured band: the maximum over all
- * frequency pairs of the great-circle angle between the peak directions (Eq. 1) (core
+ * frequency pairs of the great-circle angle between the pointing directions (the main-lobe
+ * centroid `pointing` when present, else the peak sample) (Eq. 1) (core
  * `angularDistanceDeg`, atan2 form). A beam measured at one frequency drifts 0°. Beams are
  * matched by id and listed in order of first appearance. With phase-shifter steering fixed at
  * f₀ a linear array's beam squints as sin θ = (f₀/f)·sin θ₀ (θ from broadside; Mailloux,
@@ -37,7 +38,7 @@ export function pointingDrift(perFrequencyBeams: { frequencyHz: number; beams: B
     let betweenHz: [number, number] | null = null;
     for (let a = 0; a < list.length; a++) {
       for (let b = a + 1; b < list.length; b++) {
-        const d = angularDistanceDeg(list[a].beam.peak, list[b].beam.peak); // Eq. 1
+        const d = angularDistanceDeg(list[a].beam.pointing ?? list[a].beam.peak, list[b].beam.pointing ?? list[b].beam.peak); // Eq. 1
         if (betweenHz === null || d > driftDeg) {
           driftDeg = d;
           const [fa, fb] = [list[a].frequencyHz, list[b].frequencyHz];

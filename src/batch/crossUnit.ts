@@ -6,6 +6,10 @@
 import type { CoverageMetrics, UnitResult } from '../types.js';
 import { referenceDeltas } from '../analysis/referenceDeltas.js';
 import { frequencyTrend } from '../analysis/frequencyTrend.js';
+import { pointingDrift } from '../analysis/pointingDrift.js';
+
+/** A beam whose peak direction moves more than this across the measured band is flagged (our default). */
+export const MAX_POINTING_DRIFT_DEG = 5;
 
 /** The metrics part of a unit result, in the shape the analysis functions take. */
 export function metricsOf(u: UnitResult): CoverageMetrics {
@@ -15,7 +19,9 @@ export function metricsOf(u: UnitResult): CoverageMetrics {
 /**
  * reference: every unit gets `reference = { unit, deltas }` against the reference unit at the
  * same frequency (null when the reference has no measurement there, or for the reference
- * itself). frequencyTrend: set on every unit result of a unit with two or more frequencies.
+ * itself). frequencyTrend and pointingDrift: set on every unit result of a unit with two or more
+ * frequencies. Idempotent: the unit tasks run it on their own units before rendering PDFs, and
+ * the main thread runs it again over the whole build.
  * @returns a plain-words problem when the reference unit is not among the results, else null.
  */
 export function crossUnitExtras(units: UnitResult[], reference: string | undefined): string | null {
@@ -34,7 +40,12 @@ export function crossUnitExtras(units: UnitResult[], reference: string | undefin
     const withF = list.filter((u): u is UnitResult & { frequencyHz: number } => u.frequencyHz !== null);
     if (withF.length < 2) continue;
     const trend = frequencyTrend(withF.map((u) => ({ frequencyHz: u.frequencyHz, metrics: metricsOf(u) })));
-    for (const u of list) u.frequencyTrend = trend as UnitResult['frequencyTrend'];
+    const drift = pointingDrift(withF.map((u) => ({ frequencyHz: u.frequencyHz, beams: u.beams })), MAX_POINTING_DRIFT_DEG)
+      .map(({ beam, driftDeg, flagged, betweenHz }) => ({ beam, driftDeg, flagged, betweenHz }));
+    for (const u of list) {
+      u.frequencyTrend = trend as UnitResult['frequencyTrend'];
+      u.pointingDrift = drift;
+    }
   }
   return problem;
 }

@@ -21,8 +21,8 @@ import { InterruptedError, RunError, formatInputError as formatError } from './e
 import { discoverInputs, groupKey, toPosix, byCodePoint } from './discover.js';
 import { OutputWriter, outputDirProblem } from './outputDir.js';
 import { acquireLock, LockBusyError } from './lock.js';
-import { TaskPool } from './pool.js';
-import type { TaskInput, TaskOutput, UnitOutput } from './unitTask.js';
+import { TaskPool, type PoolHooks } from './pool.js';
+import type { ReferencePattern, TaskInput, TaskOutput, UnitOutput } from './unitTask.js';
 import { warningText } from './unitTask.js';
 import { Progress } from './progress.js';
 import { summaryCsv, buildStatsCsv } from './summaryCsv.js';
@@ -157,7 +157,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   }
   const makeTask = (key: string, files: string[]): TaskInput => ({
     key, files, inputRoot: discovery.root, job, quantityOverride: opts.quantity, percentilesPct, thresholds, relativeDb,
-    limitSet, report, generatedAt, toolVersion: TOOL_VERSION,
+    limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference,
   });
   const tasks = [...groups.keys()].sort(byCodePoint).map((k) => makeTask(k, groups.get(k) as string[]));
 
@@ -185,7 +185,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   };
   process.on('SIGINT', onSigint);
   try {
-    const outputs = await pool.run(tasks, jobs, {
+    const hooks: PoolHooks = {
       aborted: () => interrupted,
       onStart: (t) => progress.start(t.key),
       onDone: (_t, out) => {
@@ -198,12 +198,26 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
           spooling.push(writer.spool(bytes).then((p) => void spooled.set(u, p)));
         }
       },
-    });
+    };
+    // The reference unit's group (a folder or file stem named like the unit) runs first, so the
+    // other units' PDFs can draw their difference maps; without such a group the deltas are
+    // still computed below, only the maps are missing.
+    const refIndex = reference === undefined ? -1 : tasks.findIndex((t) => t.key === reference);
+    const outputs: TaskOutput[] = [];
+    let referencePatterns: ReferencePattern[] | undefined;
+    if (refIndex >= 0) {
+      const [refOut] = await pool.run([{ ...tasks[refIndex], exportReference: true }], 1, hooks);
+      referencePatterns = refOut.referencePatterns;
+      delete refOut.referencePatterns;
+      outputs.push(refOut);
+    }
+    const rest = tasks.filter((_t, i) => i !== refIndex).map((t) => (referencePatterns ? { ...t, referencePatterns } : t));
+    if (!interrupted) outputs.push(...(await pool.run(rest, jobs, hooks)));
     await Promise.all(spooling);
     if (interrupted) throw new InterruptedError('stop');
     for (const comp of collidingGroups(outputs)) {
       const files = comp.flatMap((k) => groups.get(k) as string[]).sort((a, b) => byCodePoint(toPosix(a), toPosix(b)));
-      const [merged] = await pool.run([makeTask(comp.join('+'), files)], 1);
+      const [merged] = await pool.run([{ ...makeTask(comp.join('+'), files), referencePatterns }], 1);
       for (let i = outputs.length - 1; i >= 0; i--) if (comp.includes(outputs[i].key)) outputs.splice(i, 1);
       outputs.push(merged);
     }

@@ -3,7 +3,7 @@
  * assemble the measurements, compute and judge each one, run the per-unit analysis and render
  * the unit PDFs. Input and output are plain data (structured-clone safe).
  */
-import type { BeamRemoval, InputError, Measurement, Quantity, SourceFile, UnitResult, Warning } from '../types.js';
+import type { BeamRemoval, InputError, Measurement, Quantity, SourceFile, SphereGrid, TotalScanPattern, UnitResult, Warning } from '../types.js';
 import type { JobSpec, RawBeam } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { readExportFile } from '../io/readExportFile.js';
@@ -14,9 +14,13 @@ import { frequencyInRange } from '../limits/frequencyInRange.js';
 import { findHoles } from '../analysis/findHoles.js';
 import { beamRemoval } from '../analysis/beamRemoval.js';
 import { greedySubset } from '../analysis/greedySubset.js';
+import { referenceDeltas } from '../analysis/referenceDeltas.js';
+import { tspDifference } from '../analysis/tspDifference.js';
+import { crossUnitExtras, metricsOf } from './crossUnit.js';
 import type { CdfCurve } from '../report/cdfCurve.js';
 import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';
 import { gridSummary } from './gridSummary.js';
+import { collapseWarnings } from './collapseWarnings.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -34,6 +38,20 @@ export interface TaskInput {
   report: ReportSettings | null;
   generatedAt: string;
   toolVersion: string;
+  /** Name of the reference unit, when the run has one. */
+  reference?: string;
+  /** The reference unit's patterns (one per frequency), for difference maps in the unit PDFs. */
+  referencePatterns?: ReferencePattern[];
+  /** Return this group's reference-unit patterns (the run analyzes the reference group first). */
+  exportReference?: boolean;
+}
+
+/** A reference unit's total scan pattern on its grid, with its result (plain data, cloneable). */
+export interface ReferencePattern {
+  frequencyHz: number | null;
+  grid: SphereGrid;
+  tsp: TotalScanPattern;
+  result: UnitResult;
 }
 
 export interface UnitOutput {
@@ -49,6 +67,8 @@ export interface TaskOutput {
   errors: InputError[];
   /** Warnings that belong to a file but no measurement (e.g. a file that failed). */
   warnings: Warning[];
+  /** With TaskInput.exportReference: the reference unit's patterns found in this group. */
+  referencePatterns?: ReferencePattern[];
 }
 
 /** Warning as one line for results.json: `file:line: message` when the warning names a file. */
@@ -72,8 +92,8 @@ function analysisLevel(ls: LimitSet | null): number {
   return pct && pct.kind === 'percentile' ? pct.levelPct : 50;
 }
 
-/** Analyze one measurement (already assembled): metrics, verdict, analysis extras, PDF. */
-export async function analyzeMeasurement(m: Measurement, input: TaskInput): Promise<UnitOutput> {
+/** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis. */
+export function measureUnit(m: Measurement, input: TaskInput): { result: UnitResult; tsp: TotalScanPattern } {
   const { tsp, metrics } = computeMetrics(m, {
     percentilesPct: input.percentilesPct,
     thresholds: input.thresholds,
@@ -122,6 +142,17 @@ export async function analyzeMeasurement(m: Measurement, input: TaskInput): Prom
     holes: hT === null ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
     subset: greedySubset(m.grid, beamValues, beamIds, m.quantity, level),
   };
+  return { result, tsp };
+}
+
+/** The report outputs of one measured unit: PDF, summary thumbnail and CDF curve (none with --no-pdf). */
+export async function renderUnit(
+  m: Measurement,
+  result: UnitResult,
+  tsp: TotalScanPattern,
+  input: TaskInput,
+  referenceDelta?: Float64Array,
+): Promise<UnitOutput> {
   if (!input.report) return { result, thumbnail: null, cdf: null, pdf: null };
   // The report modules (pdfkit, fonts) load only when PDFs are wanted: --no-pdf stays lean.
   const [{ renderUnitPdf }, { unitMapThumbnail }, { cdfCurve }] = await Promise.all([
@@ -130,7 +161,7 @@ export async function analyzeMeasurement(m: Measurement, input: TaskInput): Prom
     import('../report/cdfCurve.js'),
   ]);
   const buf = await renderUnitPdf(
-    { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion },
+    { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta },
     input.report,
   );
   return {
@@ -171,16 +202,30 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
   const usable = groupFailed ? [] : beams.filter((b) => !failedUnits.has(b.unit));
   const assembled = assembleMeasurements(usable, sources);
   errors.push(...assembled.errors);
-  const units: UnitOutput[] = [];
-  for (const m of assembled.measurements) {
+  const measured = assembled.measurements.map((m) => {
     const own = new Set(usable.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz).map((b) => b.file));
     const extra = [...own].sort().flatMap((f) => fileWarnings.get(f) ?? []);
     const known = new Set(m.warnings.map(warningText));
-    const merged = { ...m, warnings: [...m.warnings, ...extra.filter((w) => !known.has(warningText(w)))] };
-    units.push(await analyzeMeasurement(merged, input));
+    const merged = { ...m, warnings: collapseWarnings([...m.warnings, ...extra.filter((w) => !known.has(warningText(w)))]) };
+    return { m: merged, ...measureUnit(merged, input) };
+  });
+  // Extras across this group's own frequencies and against the reference, before the PDFs are drawn.
+  crossUnitExtras(measured.map((u) => u.result), undefined);
+  const units: UnitOutput[] = [];
+  for (const { m, result, tsp } of measured) {
+    const ref = m.unit === input.reference ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
+    let delta: Float64Array | undefined;
+    if (ref && input.reference !== undefined && ref.result.quantity === result.quantity) {
+      result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOf(result), metricsOf(ref.result)) };
+      delta = tspDifference(m.grid, tsp, ref.grid, ref.tsp);
+    }
+    units.push(await renderUnit(m, result, tsp, input, delta));
   }
+  const referencePatterns = input.exportReference
+    ? measured.filter((u) => u.m.unit === input.reference).map((u) => ({ frequencyHz: u.m.frequencyHz, grid: u.m.grid, tsp: u.tsp, result: u.result }))
+    : undefined;
   const leftover = [...fileWarnings.entries()].filter(([f]) => !usable.some((b) => b.file === f)).flatMap(([, w]) => w);
-  return { key: input.key, units, errors, warnings: [...leftover, ...assembled.warnings] };
+  return { key: input.key, units, errors, warnings: [...leftover, ...assembled.warnings], referencePatterns };
 }
 
 /**

@@ -1,6 +1,7 @@
 import type { CoverageMetrics, Measurement, TotalScanPattern } from '../types.js';
 import { isFullSphere } from '../sphere/isFullSphere.js';
 import { beamPeak } from './beamPeak.js';
+import { beamPointing, gridVectors } from './beamPointing.js';
 import { bestShares } from './bestShares.js';
 import { coverageAt, relativeCoverage } from './coverageEfficiency.js';
 import { coverageCurve } from './coverageCurve.js';
@@ -34,6 +35,8 @@ export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: Tota
   const cdf = weightedCdf(tsp.values, grid.weightSr);
   const full = isFullSphere(grid);
   const shares = bestShares(tsp.bestBeam, grid.weightSr, m.beams.length, grid.solidAngleSr);
+  let vec: ReturnType<typeof gridVectors> | null = null;
+  const vectors = () => (vec ??= gridVectors(grid));
   const metrics: CoverageMetrics = {
     peak: beamPeak(tsp.values, grid, quantity),
     percentiles: opts.percentilesPct.map((levelPct) => ({ levelPct, value: percentile(cdf, levelPct, quantity) })),
@@ -41,12 +44,22 @@ export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: Tota
     relativeCoverage: relativeCoverage(cdf, opts.relativeDb, quantity),
     curve: coverageCurve(cdf, quantity, opts.curveStepDb),
     solidAngleSr: grid.solidAngleSr,
-    beams: m.beams.map((b, k) => ({
-      id: b.id,
-      peak: beamPeak(b.values, grid, quantity),
-      trpDbm: quantity === 'eis' ? null : beamTrpDbm(b.values, grid.weightSr, full),
-      bestShare: shares[k],
-    })),
+    beams: m.beams.map((b, k) => {
+      const peak = beamPeak(b.values, grid, quantity);
+      return {
+        id: b.id,
+        peak,
+        trpDbm: quantity === 'eis' ? null : beamTrpDbm(b.values, grid.weightSr, full),
+        bestShare: shares[k],
+        pointing: beamPointing(b.values, grid, vectors(), quantity, peakIndexOf(b.values, peak.value)),
+      };
+    }),
   };
   return { tsp, metrics };
+}
+
+/** Index of the first sample equal to the peak value (beamPeak's tie rule: first in canonical order). */
+function peakIndexOf(values: Float64Array, peak: number): number {
+  for (let i = 0; i < values.length; i++) if (values[i] === peak) return i;
+  return 0;
 }

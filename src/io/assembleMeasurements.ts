@@ -1,3 +1,4 @@
+import { compareBeamIds } from './compareBeamIds.js';
 import { createMeasurement } from '../measurement.js';
 import { buildSphereGrid, type GridBuild } from '../sphere/buildGrid.js';
 import { mergeSamples } from '../sphere/mergeSamples.js';
@@ -150,7 +151,7 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     if (d.count > 0) {
       const code = d.maxDiffDb > 0 ? 'duplicate-differs' : 'duplicate-merged';
       const diff = d.maxDiffDb > 0 ? ` with values up to ${d.maxDiffDb.toFixed(2)} dB apart (at ${d.at})` : ' with equal values';
-      warnings.push(warning(code, `${b.file}: beam '${b.beam}': ${d.count} row${d.count === 1 ? '' : 's'} repeat${d.count === 1 ? 's' : ''} a direction${diff}; merged by power average`, { file: b.file, line: b.firstLine }));
+      warnings.push(warning(code, `beam '${b.beam}': ${d.count} row${d.count === 1 ? '' : 's'} repeat${d.count === 1 ? 's' : ''} a direction${diff}; merged by power average`, { file: b.file, line: b.firstLine }));
     }
   }
   for (const s of sets) {
@@ -176,10 +177,10 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
         continue;
       }
       patterns.set(b, { id: b.beam, values: r.values });
-      warnings.push(warning('beam-resampled', `${b.file}: beam '${b.beam}' measured on another grid (${gridText(own)}) resampled (${r.method}, up to ${r.maxDistanceDeg.toFixed(2)}° from data) onto the unit grid (${gridText(build)})`, { file: b.file, line: b.firstLine }));
+      warnings.push(warning('beam-resampled', `beam '${b.beam}' measured on another grid (${gridText(own)}) resampled (${r.method}, up to ${r.maxDistanceDeg.toFixed(2)}° from data) onto the unit grid (${gridText(build)})`, { file: b.file, line: b.firstLine }));
     }
   }
-  const beamsOut = kept.filter((b) => patterns.has(b)).map((b) => patterns.get(b)!);
+  const beamsOut = kept.filter((b) => patterns.has(b)).map((b) => patterns.get(b)!).sort((x, y) => compareBeamIds(x.id, y.id));
   if (ref.frequencyHz === null) warnings.push(warning('frequency-missing', `${what}: no frequency found`, { file: ref.file }));
   const files = new Set(kept.map((b) => b.file));
   const metadata: Record<string, string> = {};

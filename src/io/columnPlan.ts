@@ -128,7 +128,7 @@ function resolveQuantity(
   if (fromColumns) return fromColumns;
   if (meta.quantity) return meta.quantity;
   warnings.push(
-    warning('quantity-assumed', `${ctx.file}: no quantity named; assumed eirp (dBm)`, { file: ctx.file }),
+    warning('quantity-assumed', `no quantity named; assumed eirp (dBm)`, { file: ctx.file }),
   );
   return 'eirp';
 }
@@ -231,7 +231,7 @@ export function planColumns(cells: string[], ctx: PlanContext): ColumnPlanResult
   }
   for (const i of valueLike) {
     if (!valueFields.includes(i)) {
-      warnings.push(warning('column-ignored', `${ctx.file}: column '${cells[i].trim()}' ignored (a total value column is used)`, { file: ctx.file }));
+      warnings.push(warning('column-ignored', `column '${cells[i].trim()}' ignored (a total value column is used)`, { file: ctx.file }));
       roles[i] = null;
     }
   }
@@ -286,7 +286,7 @@ export function planColumns(cells: string[], ctx: PlanContext): ColumnPlanResult
   const columns: ColumnInfo[] = cells.map((c, i) => ({ index: i, name: c.trim(), role: fp.kinds[i] === SKIP ? null : roles[i], unit: parsed[i].unit }));
   for (const c of columns) {
     if (c.role === null && !valueLike.includes(c.index)) {
-      warnings.push(warning('column-ignored', `${ctx.file}: column '${c.name}' not used`, { file: ctx.file }));
+      warnings.push(warning('column-ignored', `column '${c.name}' not used`, { file: ctx.file }));
     }
   }
   return {

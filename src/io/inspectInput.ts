@@ -89,9 +89,13 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
 const n4 = (x: number): string => String(Number(x.toFixed(4)));
 const ghz = (f: number | null): string => (f === null ? 'none' : `${n4(f / 1e9)} GHz`);
 
-function listErrors(out: string[], errors: InputError[], warnings: Warning[], indent: string): void {
+/** Errors and warnings of a file (showFile false: they are listed under the file already) or of a unit. */
+function listErrors(out: string[], errors: InputError[], warnings: Warning[], indent: string, showFile = false): void {
   for (const e of errors) out.push(`${indent}error: ${e.message}`);
-  for (const w of warnings) out.push(`${indent}warning [${w.code}]: ${w.message}`);
+  for (const w of warnings) {
+    const where = showFile && w.file ? `${w.file}${w.line ? `:${w.line}` : ''}: ` : '';
+    out.push(`${indent}warning [${w.code}]: ${where}${w.message}`);
+  }
 }
 
 /** Plain-text rendering of an inspect report (stdout of `spherecov inspect`). */
@@ -120,7 +124,7 @@ export function formatInspect(r: InspectReport): string {
     out.push('', `unit ${m.unit} at ${ghz(m.frequencyHz)}: ${m.quantity} (${m.valueUnit}), ${m.beams.length} beams from ${m.files.length} file(s)`);
     out.push(`  grid: ${g.kind}, ${g.points} points; θ ${n4(g.thetaRangeDeg[0])}–${n4(g.thetaRangeDeg[1])}° step ${g.thetaStepDeg === null ? 'varies' : `${n4(g.thetaStepDeg)}°`}; φ ${n4(g.phiRangeDeg[0])}–${n4(g.phiRangeDeg[1])}° step ${g.phiStepDeg === null ? 'varies' : `${n4(g.phiStepDeg)}°`}`);
     out.push(`  measured solid angle: ${g.solidAngleSr.toFixed(4)} sr (${((100 * g.solidAngleSr) / (4 * Math.PI)).toFixed(1)} % of 4π${g.fullSphere ? ', full sphere' : ''}); samples merged: ${g.duplicatesMerged}`);
-    listErrors(out, [], m.warnings, '  ');
+    listErrors(out, [], m.warnings, '  ', true);
   }
   const nErr = r.errors.length;
   out.push('', `${r.files.length} file(s), ${r.measurements.length} unit/frequency measurement(s), ${nErr} error(s), ${r.warnings.length} warning(s)`);

@@ -167,13 +167,19 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
     }
     info.identity = identity;
     if (identity.unit === 'folder' || identity.unit === 'file-name' || identity.beam === 'file-name') {
-      result.warnings.push(warning('identity-from-path', `${file}: unit '${beams[0].unit}' (${identity.unit}), beam '${beams[0].beam}' (${identity.beam}) taken from the path`, { file }));
+      const fromPath = [
+        identity.unit === 'folder' || identity.unit === 'file-name' ? `unit '${beams[0].unit}' from the ${identity.unit === 'folder' ? 'folder name' : 'file name'}` : null,
+        identity.beam === 'file-name' ? `beam '${beams[0].beam}' from the file name` : null,
+      ].filter((t) => t !== null);
+      result.warnings.push(warning('identity-from-path', `${fromPath.join(', ')}`, { file }));
     }
     if (plan.fileValueUnit === 'mW' || plan.fileValueUnit === 'W') {
-      result.warnings.push(warning('unit-converted', `${file}: values in ${plan.fileValueUnit} converted to dBm`, { file }));
+      result.warnings.push(warning('unit-converted', `values in ${plan.fileValueUnit} converted to dBm`, { file }));
     }
     if (plan.angleConvention === 'az-el' || plan.angleUnit === 'rad') {
-      result.warnings.push(warning('angle-convention', `${file}: ${plan.angleConvention === 'az-el' ? 'azimuth/elevation' : 'theta/phi'} in ${plan.angleUnit === 'rad' ? 'radians' : 'degrees'} converted to theta/phi in degrees (theta = 90 - el, phi = az)`, { file }));
+      result.warnings.push(warning('angle-convention', plan.angleConvention === 'az-el'
+        ? `azimuth/elevation in ${plan.angleUnit === 'rad' ? 'radians' : 'degrees'} converted to θ/φ in degrees (θ = 90° − el, φ = az mod 360°)`
+        : 'θ/φ in radians converted to degrees', { file }));
     }
     if (plan.layout === 'long' && plan.power) {
       const cal = applyCalibration(beams, plan, ctx, file);
@@ -256,7 +262,7 @@ function longBeams(
     if (errors.length) return { errors };
   }
   if (assumed) {
-    warnings.push(warning('frequency-unit-assumed', `${file}: frequency column without a unit; values below 1000 read as GHz, below 10^6 as MHz, else Hz`, { file }));
+    warnings.push(warning('frequency-unit-assumed', `frequency column without a unit; values below 1000 read as GHz, below 10^6 as MHz, else Hz`, { file }));
   }
   return { beams };
 }
@@ -292,7 +298,7 @@ function applyCalibration(beams: RawBeam[], plan: LongPlan, ctx: ReadContext, fi
     b.values = v;
     if (!done.has(b.frequencyHz)) {
       done.add(b.frequencyHz);
-      warnings.push(warning('calibration-applied', `${file}: received power + ${off.toFixed(3)} dB at ${b.frequencyHz / 1e9} GHz (job file calibration) gives EIRP`, { file }));
+      warnings.push(warning('calibration-applied', `received power + ${off.toFixed(3)} dB at ${b.frequencyHz / 1e9} GHz (job file calibration) gives EIRP`, { file }));
     }
   }
   return { errors, warnings };

@@ -16,7 +16,7 @@ describe('bad inputs give their exact error (table in fixtures/bad/expected.json
         const errors = [...got.jobErrors, ...got.files.flatMap((f) => f.errors), ...got.errors];
         expect(errors.map((e) => e.message)).toEqual(want.errors);
         const warnings = [...got.files.flatMap((f) => f.warnings), ...got.warnings].filter((w) => !ROUTINE.includes(w.code));
-        expect(warnings.map((w) => `${w.code}: ${w.message}`)).toEqual(want.warnings);
+        expect(warnings.map((w) => `${w.code}: ${w.file}: ${w.message}`)).toEqual(want.warnings);
         for (const e of errors) {
           // grammar: <file>:<line>:<col>: <column name>: found …, expected …
           expect(e.message).toMatch(/^[^:]+:\d+:\d+: [^:]+: found .+, expected .+/);

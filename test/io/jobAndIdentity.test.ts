@@ -104,6 +104,6 @@ describe('inspect', () => {
     expect(text).toMatch(/power_dbm\s+power \[dBm\]/);
     expect(text).toContain('unit DUT-A at 28 GHz: eirp (dBm), 2 beams from 1 file(s)');
     expect(text).toContain('grid: regular, 62 points; θ 0–180° step 30°; φ 0–330° step 30°');
-    expect(text).toContain('warning [calibration-applied]: power.csv: received power + 31.000 dB at 28 GHz');
+    expect(text).toContain('warning [calibration-applied]: received power + 31.000 dB at 28 GHz');
   });
 });
