@@ -172,6 +172,16 @@ export function planColumns(cells: string[], ctx: PlanContext): ColumnPlanResult
     if (VALUE_ROLES.includes(role)) quantities[idx] = roleOfName(parsed[idx].base)?.quantity;
   }
   if (errors.length) return fail(errors);
+  // One column per role: with two θ (or beam, …) columns any choice would be a guess.
+  for (let i = 0; i < roles.length; i++) {
+    const role = roles[i];
+    if (role === null || role === 'value' || role === 'power') continue;
+    const first = roles.indexOf(role);
+    if (first < i) {
+      const name = cells[i].trim();
+      return fail([inputError(ctx.file, ctx.headerLine, col(i), name, name, `one column per role (a ${role} column is already '${cells[first].trim()}', column ${first + 1})`)]);
+    }
+  }
 
   const find = (role: ColumnRole): number => roles.indexOf(role);
   let angleConvention: 'theta-phi' | 'az-el';

@@ -5,6 +5,9 @@ import { classBoundaries, rasterizeGrid, type MapRaster } from './mapRaster.js';
 import { paintPng } from './paintMap.js';
 
 /** A value → colour scale with best at t = 1 (top of the bar) for every quantity. */
+/** Differences to the reference beyond ± this many dB are outlined on the difference map. */
+export const DELTA_OUTLINE_DB = 1;
+
 export interface ValueScale {
   lo: number;
   hi: number;
@@ -96,7 +99,12 @@ export function buildUnitMaps(
       return p < 0 || !Number.isFinite(delta[p]) ? null : divergingAt(0.5 + delta[p] / (2 * deltaMaxDb));
     }, outside);
     const cls = new Int32Array(point.length);
-    for (let k = 0; k < point.length; k++) cls[k] = point[k] < 0 || !Number.isFinite(delta[point[k]]) ? -1 : delta[point[k]] >= 0 ? 1 : 0;
+    // Outline where the units differ by more than the repeatability of an OTA measurement
+    // (about ±1 dB, common practice); a zero-difference line would only trace the noise.
+    for (let k = 0; k < point.length; k++) {
+      const d = point[k] < 0 ? NaN : delta[point[k]];
+      cls[k] = !Number.isFinite(d) ? -1 : d >= DELTA_OUTLINE_DB ? 2 : d <= -DELTA_OUTLINE_DB ? 0 : 1;
+    }
     deltaEdges = classBoundaries(cls, width, height);
   }
   return { raster, tspPng, scale, bestPng, bestEdges, contour, deltaPng, deltaMaxDb, deltaEdges };

@@ -4,11 +4,12 @@ import { WARNINGS } from '../warnings.js';
 import { cdfCurve, type CdfCurve } from './cdfCurve.js';
 import { colorAt, divergingAt } from './colorMap.js';
 import { directionToPage, drawBoundaries, drawColorBar, drawMapFrame, mapLabel, unmeasuredSwatch, type MapBox } from './drawMap.js';
-import { fmt, fmtFrequency, pct, quantityLabel, verdictText } from './format.js';
+import { fmt, fmtFrequency, niceRange, pct, quantityLabel, verdictText } from './format.js';
 import { addFooters, contentWidth, createDoc, ensureSpace, finish, heading, INK, keyValues, MARGIN, MUTED, note, table, type Column, type Doc } from './pdfDoc.js';
 import { drawCdfPlot, drawCoveragePlot, type LimitMark } from './plots.js';
 import type { ReportSettings, UnitReportInput } from './reportTypes.js';
-import { beamColor, buildUnitMaps, scaleT, type UnitMaps } from './unitMaps.js';
+import { beamColor, buildUnitMaps, DELTA_OUTLINE_DB, scaleT, type UnitMaps } from './unitMaps.js';
+import { drawAxes, px, py, type Axes } from './axes.js';
 
 const PERCENTILE_RULE =
   'step rule: the smallest value whose solid-angle-weighted CDF over 4π reaches p; unmeasured solid angle counts as worst';
@@ -321,21 +322,94 @@ function referenceSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: R
     const d = maps.deltaMaxDb;
     drawColorBar(doc, box.x + box.w + 26, box.y + 6, box.h - 12, divergingAt, [-d, -d / 2, 0, d / 2, d].map((v) => ({ t: 0.5 + v / (2 * d), value: v })), d / 2, 'Δ dB');
     doc.y = box.y + box.h + 14;
-    note(doc, `This unit's total scan pattern minus the reference's, per direction (same projection). ${input.result.quantity === 'eis' ? 'For EIS a negative difference is better.' : 'Positive: this unit is stronger.'} Thin line: zero difference.`);
+    note(doc, `This unit's total scan pattern minus the reference's, per direction (same projection). ${input.result.quantity === 'eis' ? 'For EIS a negative difference is better.' : 'Positive: this unit is stronger.'} Outlined: directions where the difference exceeds ±${DELTA_OUTLINE_DB} dB (about the repeatability of an over-the-air measurement).`);
   }
+  const entries = Object.entries(ref.deltas).map(([k, v]) => [metricLabel(k, input.result.valueUnit), fmtDelta(k, v)]);
+  pairedTable(doc, entries, ['Metric', 'Δ (this − reference)']);
+}
+
+/** Plain-words name of a metricRow key (src/analysis/metricRow.ts) for the tables. */
+function metricLabel(key: string, unit: string): string {
+  let m: RegExpMatchArray | null;
+  if (key === 'peak') return `peak (${unit})`;
+  if ((m = key.match(/^p([\d.]+)$/))) return `${m[1]} %-tile (${unit})`;
+  if ((m = key.match(/^coverage@(.+)$/))) return `coverage ≥ ${m[1]} ${unit}`;
+  if ((m = key.match(/^relativeCoverage@(.+)dB$/))) return `coverage within ${m[1]} dB of peak`;
+  if (key === 'trpBestBeamDbm') return 'TRP of the peak beam (dBm)';
+  if (key === 'trpMaxDbm') return 'highest beam TRP (dBm)';
+  return key;
+}
+
+/** Coverage deltas are fractions of 4π, shown in percentage points; the rest in dB. */
+function fmtDelta(key: string, v: number | null): string {
+  if (v === null) return '—';
+  return /overage/.test(key) ? `${fmt(100 * v, 2)} pt` : `${fmt(v, 2)} dB`;
+}
+
+/** A list of (name, value) pairs set in three side-by-side column pairs to save space. */
+function pairedTable(doc: Doc, entries: string[][], headers: [string, string]): void {
+  const per = 3;
   const w = contentWidth(doc);
-  table(doc, [{ header: 'Metric', width: w - 110 }, { header: 'Δ (this − reference)', width: 110, align: 'right' }], Object.entries(ref.deltas).map(([k, v]) => [k, fmt(v, /coverage/i.test(k) ? 4 : 2)]), { fontSize: 7.4 });
+  const cols: Column[] = [];
+  for (let k = 0; k < per; k++) cols.push({ header: headers[0], width: w / per - 62 }, { header: 'Δ', width: 62, align: 'right' });
+  const rows: string[][] = [];
+  const n = Math.ceil(entries.length / per);
+  for (let r = 0; r < n; r++) rows.push([0, 1, 2].flatMap((k) => entries[r + k * n] ?? ['', '']));
+  table(doc, cols, rows, { fontSize: 7.2 });
 }
 
 function trendSection(doc: Doc, r: UnitResult): void {
   const trend = r.frequencyTrend;
   if (!trend || trend.length === 0) return;
-  heading(doc, 'Metrics versus frequency', 40);
-  const keys = [...new Set(trend.flatMap((t) => Object.keys(t)).filter((k) => k !== 'frequencyHz'))].slice(0, 7);
+  heading(doc, 'Metrics versus frequency', 200);
+  const keys = [...new Set(trend.flatMap((t) => Object.keys(t)).filter((k) => k !== 'frequencyHz'))];
+  const judged = r.checks.find((c) => c.kind === 'percentile') as (CheckResult & { levelPct?: number }) | undefined;
+  const lineKeys = ['peak', judged?.levelPct !== undefined ? `p${judged.levelPct}` : 'p50', 'trpMaxDbm'].filter((k) => keys.includes(k));
+  trendPlot(doc, trend, lineKeys, r.valueUnit);
   const w = contentWidth(doc);
-  const kw = Math.min(80, (w - 80) / Math.max(1, keys.length));
-  table(doc, [{ header: 'Frequency', width: 80 }, ...keys.map((k) => ({ header: k, width: kw, align: 'right' as const }))],
-    trend.map((t) => [fmtFrequency(t.frequencyHz), ...keys.map((k) => fmt(t[k] as number | null))]), { fontSize: 7.2 });
+  const fw = Math.min(80, (w - 190) / trend.length);
+  table(doc, [{ header: 'Metric', width: w - fw * trend.length }, ...trend.map((t) => ({ header: fmtFrequency(t.frequencyHz), width: fw, align: 'right' as const }))],
+    keys.map((k) => [metricLabel(k, r.valueUnit), ...trend.map((t) => {
+      const v = t[k] as number | null;
+      return v === null ? '—' : /overage/.test(k) ? `${fmt(100 * v, 1)} %` : fmt(v);
+    })]), { fontSize: 7.2 });
+  const drift = r.pointingDrift;
+  if (drift && drift.length > 0) {
+    const worst = drift.reduce((a, b) => (b.driftDeg > a.driftDeg ? b : a));
+    const flagged = drift.filter((d) => d.flagged);
+    note(doc, `Beam pointing across the band (main-lobe centroid within 3 dB of each beam's peak, compared between frequencies): ` +
+      `largest drift ${fmt(worst.driftDeg, 1)}° (beam ${worst.beam}); ` +
+      (flagged.length ? `drifting more than the flag angle: ${flagged.map((d) => `${d.beam} (${fmt(d.driftDeg, 1)}°)`).join(', ')}.` : 'no beam drifts more than the flag angle (5°).'));
+  }
+}
+
+/** Selected metrics against frequency, one line each (markers at the measured frequencies). */
+function trendPlot(doc: Doc, trend: NonNullable<UnitResult['frequencyTrend']>, keys: string[], unit: string): void {
+  const vals = trend.flatMap((t) => keys.map((k) => t[k] as number | null)).filter((v): v is number => v !== null);
+  if (vals.length === 0 || trend.length < 2) return;
+  const fs = trend.map((t) => t.frequencyHz / 1e9);
+  const xr = niceRange(Math.min(...fs), Math.max(...fs), 6);
+  const yr = niceRange(Math.min(...vals), Math.max(...vals), 6);
+  const box = { x: MARGIN.left + 44, y: doc.y + 4, w: contentWidth(doc) - 200, h: 130 };
+  const a: Axes = { ...box, xMin: xr.lo, xMax: xr.hi, yMin: yr.lo, yMax: yr.hi };
+  drawAxes(doc, a, xr.ticks, xr.step, yr.ticks, 'frequency (GHz)', unit.startsWith('dB') ? `${unit}` : unit, (v) => fmt(v, 1));
+  const dashes = [[], [4, 2], [1.2, 1.6]];
+  keys.forEach((k, i) => {
+    const pts = trend.map((t) => [px(a, t.frequencyHz / 1e9), t[k] as number | null] as const).filter((p) => p[1] !== null);
+    pts.forEach(([x, v], j) => (j === 0 ? doc.moveTo(x, py(a, v as number)) : doc.lineTo(x, py(a, v as number))));
+    const d = dashes[i % dashes.length];
+    if (d.length) doc.dash(d[0], { space: d[1] });
+    doc.lineWidth(1.1).strokeColor(INK).stroke().undash();
+    for (const [x, v] of pts) doc.circle(x, py(a, v as number), 1.8).fill(INK);
+    const ly = box.y + 8 + i * 14;
+    const lx = box.x + box.w + 14;
+    doc.moveTo(lx, ly + 3).lineTo(lx + 22, ly + 3);
+    if (d.length) doc.dash(d[0], { space: d[1] });
+    doc.lineWidth(1.1).strokeColor(INK).stroke().undash();
+    doc.font('R').fontSize(7.2).fillColor(INK).text(metricLabel(k, unit), lx + 26, ly, { width: 120, lineBreak: false });
+  });
+  doc.y = box.y + box.h + 28;
+  doc.fontSize(9);
 }
 
 function qualitySection(doc: Doc, input: UnitReportInput): void {
