@@ -2,7 +2,7 @@
  * One run at a time per output folder: a lock file holding the owner's pid. A lock whose pid
  * no longer runs is stale (a killed run) and is taken over.
  */
-import { openSync, writeSync, closeSync, readFileSync, rmSync } from 'node:fs';
+import { linkSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
 export const LOCK_NAME = '.spherecov.lock';
@@ -26,10 +26,17 @@ function alive(pid: number): boolean {
 export function acquireLock(dir: string): () => void {
   const file = path.join(dir, LOCK_NAME);
   for (let attempt = 0; attempt < 2; attempt++) {
+    // The lock appears under its name complete or not at all: written to a private file first,
+    // then hard-linked into place (link fails with EEXIST if the name is taken, atomically), so
+    // a competing run can never read a live lock while it is still empty.
+    const tmp = `${file}.${process.pid}.tmp`;
     try {
-      const fd = openSync(file, 'wx');
-      writeSync(fd, JSON.stringify({ pid: process.pid, startedAt: new Date().toISOString() }) + '\n');
-      closeSync(fd);
+      writeFileSync(tmp, JSON.stringify({ pid: process.pid, startedAt: new Date().toISOString() }) + '\n');
+      try {
+        linkSync(tmp, file);
+      } finally {
+        rmSync(tmp, { force: true });
+      }
       let released = false;
       return () => {
         if (released) return;
@@ -42,7 +49,7 @@ export function acquireLock(dir: string): () => void {
       try {
         pid = Number((JSON.parse(readFileSync(file, 'utf8')) as { pid?: unknown }).pid);
       } catch {
-        pid = NaN; // unreadable lock: half-written by a run killed while creating it, so stale
+        pid = NaN; // unreadable lock: not one of ours (ours are complete before they appear), so stale
       }
       if (Number.isInteger(pid) && pid > 0 && pid !== process.pid && alive(pid)) {
         throw new LockBusyError(
