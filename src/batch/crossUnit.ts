@@ -22,11 +22,14 @@ export function metricsOf(u: UnitResult): CoverageMetrics {
  * itself). frequencyTrend and pointingDrift: set on every unit result of a unit with two or more
  * frequencies. Idempotent: the unit tasks run it on their own units before rendering PDFs, and
  * the main thread runs it again over the whole build.
+ * With `external`, the reference came from its own folder and the unit tasks already set the
+ * deltas; they are kept.
  * @returns a plain-words problem when the reference unit is not among the results, else null.
  */
-export function crossUnitExtras(units: UnitResult[], reference: string | undefined): string | null {
+export function crossUnitExtras(units: UnitResult[], reference: string | undefined, external = false): string | null {
   let problem: string | null = null;
-  if (reference !== undefined) {
+  // An external reference (its own folder) is not among the results: the unit tasks set its deltas.
+  if (reference !== undefined && !external) {
     const refs = units.filter((u) => u.unit === reference);
     if (refs.length === 0) problem = `--reference: unit '${reference}' is not among the analyzed units`;
     for (const u of units) {

@@ -3,7 +3,7 @@
  */
 import os from 'node:os';
 import path from 'node:path';
-import { existsSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
 import type { InputError, Quantity, ResultsFile, UnitResult, Warning } from '../types.js';
 import type { JobSpec } from '../io/types.js';
@@ -107,6 +107,38 @@ function collidingGroups(outputs: TaskOutput[]): string[][] {
   return [...comps.values()].filter((c) => c.length > 1);
 }
 
+/** The folder a --reference value names, or null when it names a unit of the build. */
+function referenceFolder(ref: string, input: string): string | null {
+  const inputDir = statSync(input).isDirectory() ? input : path.dirname(input);
+  for (const candidate of [path.resolve(ref), path.resolve(inputDir, ref)]) {
+    if (existsSync(candidate) && statSync(candidate).isDirectory()) return candidate;
+  }
+  return null;
+}
+
+/**
+ * Read and measure a golden unit's exports from their own folder (no PDF for it; it is not part
+ * of the build's results), and return its name and patterns for the difference maps and deltas.
+ * @throws RunError when the folder holds no readable unit, or more than one.
+ */
+async function loadReferenceFolder(
+  dir: string,
+  outDir: string,
+  makeTask: (key: string, files: string[]) => TaskInput,
+  pool: TaskPool,
+): Promise<{ unit: string; patterns: ReferencePattern[] }> {
+  const found = await discoverInputs(dir, [outDir]);
+  if (found.files.length === 0) throw new RunError(`--reference: no export files (.csv, .tsv, .txt) in the folder '${dir}'`);
+  const task: TaskInput = { ...makeTask('reference', found.files), inputRoot: found.root, report: null, exportReference: true, exportAll: true };
+  const [out] = await pool.run([task], 1);
+  const units = [...new Set((out.referencePatterns ?? []).map((p) => p.result.unit))];
+  if (units.length !== 1) {
+    const why = out.errors.length ? ` (${formatError(out.errors[0])})` : '';
+    throw new RunError(`--reference: the folder '${dir}' must hold exactly one unit's exports; found ${units.length === 0 ? 'none readable' : units.join(', ')}${why}`);
+  }
+  return { unit: units[0], patterns: out.referencePatterns as ReferencePattern[] };
+}
+
 /**
  * Analyze a build folder (or one file) and write results.json, summary.csv, build-stats.csv and
  * the PDFs into `opts.outDir`.
@@ -128,7 +160,11 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
   const thresholds = unionSorted(opts.thresholds ?? job?.coverageThresholds, needs.thresholds);
   const relativeDb = unionSorted(opts.relativeDb);
-  const reference = opts.reference ?? job?.reference;
+  const referenceArg = opts.reference ?? job?.reference;
+  // --reference names a unit of this build, or a folder of a golden unit's exports (measured
+  // elsewhere): a path that exists as a folder (as given, or inside the input folder) is a folder.
+  const referenceDir = referenceArg === undefined ? null : referenceFolder(referenceArg, input);
+  let reference = referenceDir === null ? referenceArg : undefined;
   const generatedAt = opts.creationDate ?? new Date().toISOString();
   const pdf = opts.pdf !== false;
   const pageSize = opts.pageSize ?? 'a4';
@@ -157,7 +193,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   }
   const makeTask = (key: string, files: string[]): TaskInput => ({
     key, files, inputRoot: discovery.root, job, quantityOverride: opts.quantity, percentilesPct, thresholds, relativeDb,
-    limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference,
+    limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null,
   });
   const tasks = [...groups.keys()].sort(byCodePoint).map((k) => makeTask(k, groups.get(k) as string[]));
 
@@ -205,7 +241,12 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     const refIndex = reference === undefined ? -1 : tasks.findIndex((t) => t.key === reference);
     const outputs: TaskOutput[] = [];
     let referencePatterns: ReferencePattern[] | undefined;
-    if (refIndex >= 0) {
+    if (referenceDir !== null) {
+      const golden = await loadReferenceFolder(referenceDir, outDir, makeTask, pool);
+      reference = golden.unit;
+      referencePatterns = golden.patterns;
+      for (const t of tasks) t.reference = reference;
+    } else if (refIndex >= 0) {
       const [refOut] = await pool.run([{ ...tasks[refIndex], exportReference: true }], 1, hooks);
       referencePatterns = refOut.referencePatterns;
       delete refOut.referencePatterns;
@@ -228,7 +269,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     const errors: InputError[] = outputs.flatMap((o) => o.errors);
     errors.sort((a, b) => byCodePoint(a.file, b.file) || (a.line ?? 0) - (b.line ?? 0) || (a.column ?? 0) - (b.column ?? 0));
     const looseWarnings: Warning[] = outputs.flatMap((o) => o.warnings);
-    const referenceProblem = crossUnitExtras(units, reference);
+    const referenceProblem = crossUnitExtras(units, reference, referenceDir !== null);
     const build = units.length > 0 ? buildStatistics(units) : null;
 
     const results: ResultsFile = {
@@ -244,6 +285,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         quantityOverride: opts.quantity ?? null,
         jobFile: job ? path.basename(job.source) : null,
         reference: reference ?? null,
+        referenceFolder: referenceDir === null ? null : toPosix(referenceArg as string),
         pdf,
         pageSize,
         skippedLinks: discovery.skippedLinks.map(toPosix),

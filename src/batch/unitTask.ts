@@ -44,6 +44,10 @@ export interface TaskInput {
   referencePatterns?: ReferencePattern[];
   /** Return this group's reference-unit patterns (the run analyzes the reference group first). */
   exportReference?: boolean;
+  /** With exportReference: return every unit of the group (a golden unit's own folder). */
+  exportAll?: boolean;
+  /** The reference comes from its own folder: a build unit of the same name is compared too. */
+  referenceExternal?: boolean;
 }
 
 /** A reference unit's total scan pattern on its grid, with its result (plain data, cloneable). */
@@ -213,7 +217,8 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
   crossUnitExtras(measured.map((u) => u.result), undefined);
   const units: UnitOutput[] = [];
   for (const { m, result, tsp } of measured) {
-    const ref = m.unit === input.reference ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
+    const self = m.unit === input.reference && !input.referenceExternal;
+    const ref = self ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
     let delta: Float64Array | undefined;
     if (ref && input.reference !== undefined && ref.result.quantity === result.quantity) {
       result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOf(result), metricsOf(ref.result)) };
@@ -222,7 +227,7 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     units.push(await renderUnit(m, result, tsp, input, delta));
   }
   const referencePatterns = input.exportReference
-    ? measured.filter((u) => u.m.unit === input.reference).map((u) => ({ frequencyHz: u.m.frequencyHz, grid: u.m.grid, tsp: u.tsp, result: u.result }))
+    ? measured.filter((u) => input.exportAll || u.m.unit === input.reference).map((u) => ({ frequencyHz: u.m.frequencyHz, grid: u.m.grid, tsp: u.tsp, result: u.result }))
     : undefined;
   const leftover = [...fileWarnings.entries()].filter(([f]) => !usable.some((b) => b.file === f)).flatMap(([, w]) => w);
   return { key: input.key, units, errors, warnings: [...leftover, ...assembled.warnings], referencePatterns };
