@@ -107,13 +107,18 @@ function collidingGroups(outputs: TaskOutput[]): string[][] {
   return [...comps.values()].filter((c) => c.length > 1);
 }
 
-/** The folder a --reference value names, or null when it names a unit of the build. */
-function referenceFolder(ref: string, input: string): string | null {
-  const inputDir = statSync(input).isDirectory() ? input : path.dirname(input);
-  for (const candidate of [path.resolve(ref), path.resolve(inputDir, ref)]) {
-    if (existsSync(candidate) && statSync(candidate).isDirectory()) return candidate;
-  }
-  return null;
+/**
+ * The folder a --reference value names, or null when it names a unit of the build. A unit name
+ * wins: a value equal to a group of the build (a unit folder or file stem) is that unit, and so
+ * is a folder inside the input (it is part of the build). Only an existing folder outside the
+ * input is a golden unit measured elsewhere.
+ */
+function referenceFolder(ref: string, input: string, groupKeys: Set<string>): string | null {
+  if (groupKeys.has(ref)) return null;
+  const candidate = path.resolve(ref);
+  const rel = path.relative(input, candidate);
+  const inside = rel === '' || (!rel.startsWith('..') && !path.isAbsolute(rel));
+  return !inside && existsSync(candidate) && statSync(candidate).isDirectory() ? candidate : null;
 }
 
 /**
@@ -160,11 +165,11 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
   const thresholds = unionSorted(opts.thresholds ?? job?.coverageThresholds, needs.thresholds);
   const relativeDb = unionSorted(opts.relativeDb);
+  // --reference names a unit of this build, or a folder of a golden unit's exports measured
+  // elsewhere (resolved once the build's groups are known, below).
   const referenceArg = opts.reference ?? job?.reference;
-  // --reference names a unit of this build, or a folder of a golden unit's exports (measured
-  // elsewhere): a path that exists as a folder (as given, or inside the input folder) is a folder.
-  const referenceDir = referenceArg === undefined ? null : referenceFolder(referenceArg, input);
-  let reference = referenceDir === null ? referenceArg : undefined;
+  let referenceDir: string | null = null;
+  let reference = referenceArg;
   const generatedAt = opts.creationDate ?? new Date().toISOString();
   const pdf = opts.pdf !== false;
   const pageSize = opts.pageSize ?? 'a4';
@@ -195,6 +200,10 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     key, files, inputRoot: discovery.root, job, quantityOverride: opts.quantity, percentilesPct, thresholds, relativeDb,
     limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null,
   });
+  if (referenceArg !== undefined) {
+    referenceDir = referenceFolder(referenceArg, input, new Set(groups.keys()));
+    if (referenceDir !== null) reference = undefined;
+  }
   const tasks = [...groups.keys()].sort(byCodePoint).map((k) => makeTask(k, groups.get(k) as string[]));
 
   let writer: OutputWriter;
