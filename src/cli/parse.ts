@@ -22,7 +22,7 @@ export function parseNumberList(text: string, option: string): number[] {
   return items.map((s) => {
     const v = s === '' ? NaN : Number(s);
     if (!Number.isFinite(v)) {
-      throw new UsageError(`--${option}: found '${s}', expected a number (e.g. --${option} 10,12.5 or -88,-85)`);
+      throw new UsageError(`--${option}: found '${s}', expected a number in a comma-separated list (e.g. --${option} 10,12.5)`);
     }
     return v;
   });
