@@ -49,7 +49,7 @@ export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: Tota
       return {
         id: b.id,
         peak,
-        trpDbm: quantity === 'eis' ? null : beamTrpDbm(b.values, grid.weightSr, full),
+        trpDbm: quantity === 'eis' ? null : beamTrpDbm(b.values, grid.weightSr, full, grid.solidAngleSr),
         bestShare: shares[k],
         pointing: beamPointing(b.values, grid, vectors(), quantity, peakIndexOf(b.values, peak.value)),
       };

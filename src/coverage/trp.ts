@@ -1,3 +1,4 @@
+import { neumaierSum } from '../sphere/neumaierSum.js';
 import { sphereNormSr } from './sphereNormSr.js';
 
 const LN10_OVER_10 = Math.LN10 / 10;
@@ -9,25 +10,29 @@ const LN10_OVER_10 = Math.LN10 / 10;
  * directivity = peak − this value). Only meaningful on a full sphere: returns null otherwise
  * (the caller warns 'trp-partial-sphere'). On a full sphere the divisor is Σw (≈ 4π within
  * 1e-6, sphereNormSr), so an isotropic pattern gives TRP = EIRP exactly on any grid.
- * Neumaier-compensated sum, no allocation. Not defined for EIS (the caller passes null).
- * Cost O(n).
+ * `weightSumSr` is that Σw when the caller already has it (grid.solidAngleSr, the same
+ * Neumaier sum in the same order, so the result is bit-identical); omitted, it is summed here.
+ * Neumaier-compensated sums, no allocation. Not defined for EIS (the caller passes null).
+ * Cost O(n): one exponential a point.
  * @throws RangeError when the lengths differ.
  * @example beamTrpDbm(new Float64Array(n).fill(10), grid.weightSr, true) // 10
  */
-export function beamTrpDbm(values: ArrayLike<number>, weightSr: ArrayLike<number>, fullSphere: boolean): number | null {
+export function beamTrpDbm(
+  values: ArrayLike<number>,
+  weightSr: ArrayLike<number>,
+  fullSphere: boolean,
+  weightSumSr: number = neumaierSum(weightSr),
+): number | null {
   const n = values.length;
   if (weightSr.length !== n) throw new RangeError(`beamTrpDbm: ${n} values but ${weightSr.length} weights`);
   if (!fullSphere) return null;
-  let sum = 0, comp = 0, wSum = 0, wComp = 0;
+  let sum = 0;
+  let comp = 0;
   for (let i = 0; i < n; i++) {
-    const w = weightSr[i];
-    const x = w * Math.exp(values[i] * LN10_OVER_10); // Eq. 1
+    const x = weightSr[i] * Math.exp(values[i] * LN10_OVER_10); // Eq. 1
     const t = sum + x;
     comp += Math.abs(sum) >= Math.abs(x) ? sum - t + x : x - t + sum;
     sum = t;
-    const u = wSum + w;
-    wComp += Math.abs(wSum) >= Math.abs(w) ? wSum - u + w : w - u + wSum;
-    wSum = u;
   }
-  return 10 * Math.log10((sum + comp) / sphereNormSr(wSum + wComp)); // Eq. 1
+  return 10 * Math.log10((sum + comp) / sphereNormSr(weightSumSr)); // Eq. 1
 }

@@ -21,6 +21,14 @@ interface AngleSet {
   beams: RawBeam[];
 }
 
+export interface AssembleOptions {
+  /**
+   * Let assembly reuse the raw beams' value storage for the merged values (the raw `values`
+   * become empty arrays). For callers that do not read raw values afterwards (the batch).
+   */
+  consumeRaw?: boolean;
+}
+
 export interface AssembleResult {
   measurements: Measurement[];
   errors: InputError[];
@@ -45,29 +53,52 @@ function sameGrid(a: GridBuild, b: GridBuild): boolean {
   return true;
 }
 
-/** Rows that literally repeat a direction (same θ and φ as written, not a pole or seam alias). */
-function literalDuplicates(build: GridBuild, b: RawBeam): { count: number; maxDiffDb: number; at: string } {
+/**
+ * Rows that literally repeat a direction (same θ and φ as written, not a pole or seam alias):
+ * pairs (row, first row of its point), found once per angle set since they depend on angles only.
+ */
+function literalDuplicatePairs(build: GridBuild, s: AngleSet): Int32Array {
   const first = new Int32Array(build.grid.thetaDeg.length).fill(-1);
-  let count = 0;
-  let maxDiffDb = 0;
-  let at = '';
-  for (let i = 0; i < b.values.length; i++) {
+  const pairs: number[] = [];
+  for (let i = 0; i < s.thetaDeg.length; i++) {
     const p = build.pointOf[i];
     const j = first[p];
     if (j < 0) {
       first[p] = i;
       continue;
     }
-    if (b.thetaDeg[i] !== b.thetaDeg[j] || b.phiDeg[i] !== b.phiDeg[j]) continue;
-    count++;
-    const d = Math.abs(b.values[i] - b.values[j]);
+    if (s.thetaDeg[i] === s.thetaDeg[j] && s.phiDeg[i] === s.phiDeg[j]) pairs.push(i, j);
+  }
+  return Int32Array.from(pairs);
+}
+
+/** Count and largest value difference of one beam's literal duplicate rows (pairs in row order). */
+function literalDuplicates(pairs: Int32Array, b: RawBeam): { count: number; maxDiffDb: number; at: string } {
+  let maxDiffDb = 0;
+  let at = '';
+  for (let k = 0; k < pairs.length; k += 2) {
+    const i = pairs[k];
+    const d = Math.abs(b.values[i] - b.values[pairs[k + 1]]);
     if (d > maxDiffDb || at === '') {
       if (d >= maxDiffDb) at = `θ ${b.thetaDeg[i]}°, φ ${b.phiDeg[i]}°`;
       maxDiffDb = Math.max(maxDiffDb, d);
     }
   }
-  return { count, maxDiffDb, at };
+  return { count: pairs.length / 2, maxDiffDb, at };
 }
+
+/**
+ * Merge one raw beam onto its grid. Unless its values are in `keep` (not consumable, or
+ * shared), the merged values reuse their storage where the row order allows it (mergeSamples'
+ * in-place route) and the RawBeam's `values` is emptied, so a big export is never held twice.
+ */
+function mergeConsuming(build: GridBuild, b: RawBeam, keep: Set<Float64Array>): Float64Array {
+  const r = mergeSamples(build, b.values, !keep.has(b.values));
+  if (r.inPlace) b.values = EMPTY;
+  return r.values;
+}
+
+const EMPTY = new Float64Array(0);
 
 function gridText(g: GridBuild): string {
   const t = g.grid.thetaDeg;
@@ -83,8 +114,11 @@ function gridText(g: GridBuild): string {
  * (mergeSamples, Eq. 1 there), beams on another grid resampled with a 'beam-resampled' warning
  * or refused beyond MAX_RESAMPLE_DISTANCE_DEG. Problems are errors naming the file; a unit with
  * an error keeps its other beams.
+ * Memory: with `consumeRaw` the raw beams' `values` arrays are consumed — merged in place where
+ * the rows are θ-major (mergeSamples' in-place route) and then emptied — so a large export is
+ * held once, not twice; without it the raw beams are left untouched.
  */
-export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[]): AssembleResult {
+export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[], opts: AssembleOptions = {}): AssembleResult {
   const errors: InputError[] = [];
   const warnings: Warning[] = [];
   const measurements: Measurement[] = [];
@@ -95,8 +129,12 @@ export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[]): A
     if (list) list.push(b);
     else groups.set(key, [b]);
   }
+  // A values array passed for two beams (in any group) must survive the first merge: never merged in place.
+  const shared = new Set<Float64Array>();
+  const seenValues = new Set<Float64Array>();
+  for (const b of beams) (seenValues.has(b.values) || !opts.consumeRaw ? shared : seenValues).add(b.values);
   for (const list of groups.values()) {
-    const m = assembleOne(list, sources, errors);
+    const m = assembleOne(list, sources, errors, shared);
     if (m) {
       measurements.push(m);
       warnings.push(...m.warnings);
@@ -105,7 +143,7 @@ export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[]): A
   return { measurements, errors, warnings };
 }
 
-function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[]): Measurement | null {
+function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[], shared: Set<Float64Array>): Measurement | null {
   const ref = list[0];
   const freqText = ref.frequencyHz === null ? 'no frequency' : `${ref.frequencyHz / 1e9} GHz`;
   const what = `unit '${ref.unit}' (${freqText})`;
@@ -145,9 +183,10 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     return null;
   }
   const patterns = new Map<RawBeam, BeamPattern>();
+  const pairs = literalDuplicatePairs(build, main);
   for (const b of main.beams) {
-    patterns.set(b, { id: b.beam, values: mergeSamples(build, b.values).values });
-    const d = literalDuplicates(build, b);
+    const d = literalDuplicates(pairs, b);
+    patterns.set(b, { id: b.beam, values: mergeConsuming(build, b, shared) });
     if (d.count > 0) {
       const code = d.maxDiffDb > 0 ? 'duplicate-differs' : 'duplicate-merged';
       const diff = d.maxDiffDb > 0 ? ` with values up to ${d.maxDiffDb.toFixed(2)} dB apart (at ${d.at})` : ' with equal values';
@@ -165,7 +204,7 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     }
     const same = sameGrid(own, build);
     for (const b of s.beams) {
-      const merged = mergeSamples(own, b.values).values;
+      const merged = mergeConsuming(own, b, shared);
       if (same) {
         patterns.set(b, { id: b.beam, values: merged });
         continue;

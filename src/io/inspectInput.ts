@@ -71,13 +71,17 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
     beams.push(...r.beams);
   }
   const sources = report.files.map((f) => ({ path: f.file, sha256: f.sha256 }));
-  const asm = assembleMeasurements(beams, sources);
+  // Raw sample counts before assembling, which consumes the raw value arrays.
+  const rawSamples = beams.map((b) => b.values.length);
+  const asm = assembleMeasurements(beams, sources, { consumeRaw: true });
   report.errors.push(...asm.errors);
   report.warnings.push(...asm.warnings);
   for (const m of asm.measurements) {
     const files = m.sources.map((s) => s.path);
-    const raw = beams.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz);
-    const samples = raw.length ? raw.reduce((n, b) => Math.max(n, b.values.length), 0) : 0;
+    let samples = 0;
+    beams.forEach((b, k) => {
+      if (b.unit === m.unit && b.frequencyHz === m.frequencyHz) samples = Math.max(samples, rawSamples[k]);
+    });
     report.measurements.push({
       unit: m.unit, frequencyHz: m.frequencyHz, quantity: m.quantity, valueUnit: m.valueUnit,
       beams: m.beams.map((b) => b.id), files, grid: gridSummary(m.grid, Math.max(0, samples - m.grid.thetaDeg.length)), warnings: m.warnings,

@@ -7,7 +7,7 @@
  */
 export class SampleAccumulator {
   n = 0;
-  values = new Float64Array(1024);
+  values: Float64Array;
   thetaDeg: Float64Array | null = null;
   phiDeg: Float64Array | null = null;
   private views = new Map<number, [Float64Array, Float64Array]>();
@@ -16,6 +16,9 @@ export class SampleAccumulator {
     readonly template: SampleAccumulator | null,
     readonly firstLine: number,
   ) {
+    // A follower usually has the template's length: start there, so it neither grows nor
+    // keeps slack (growth would leave garbage and up to 2× capacity per beam).
+    this.values = new Float64Array(template === null ? 1024 : Math.max(1024, template.n));
     if (template === null) {
       this.thetaDeg = new Float64Array(1024);
       this.phiDeg = new Float64Array(1024);

@@ -73,7 +73,7 @@ export interface RawBeam {
   /** Degrees, θ ∈ [0, 180]; φ as read (degrees, −180..360), normalized by the grid builder. */
   thetaDeg: Float64Array;
   phiDeg: Float64Array;
-  /** dB values (dBm or dBi), one per sample. */
+  /** dB values (dBm or dBi), one per sample. Emptied by assembleMeasurements with consumeRaw. */
   values: Float64Array;
   /** File relative to the input root. */
   file: string;

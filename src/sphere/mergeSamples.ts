@@ -9,7 +9,39 @@ export interface MergedValues {
   maxSpreadDb: number;
   /** Grid points without any finite sample. */
   missing: number;
+  /** True when `values` is a view over the input's storage (`reuseInput` was granted). */
+  inPlace: boolean;
 }
+
+/** Raw order of a build's samples: 2 = pointOf non-decreasing, 1 = pointOf[i] ≤ i, 0 = neither. */
+const orderKinds = new WeakMap<GridBuild, number>();
+
+/**
+ * How a build's raw samples are ordered (one O(n) scan, cached per build): 2 when pointOf is
+ * non-decreasing (θ-major export without a φ = 360 column), 1 when every sample maps to a point
+ * index at most its own (θ-major with a seam column: merging in place is still safe), else 0.
+ */
+export function rawOrderKind(build: GridBuild): 0 | 1 | 2 {
+  let k = orderKinds.get(build);
+  if (k === undefined) {
+    const p = build.pointOf;
+    let sorted = true;
+    let below = true;
+    for (let i = 0; i < p.length && below; i++) {
+      if (p[i] > i) below = false;
+      else if (i > 0 && p[i] < p[i - 1]) sorted = false;
+    }
+    k = !below ? 0 : sorted ? 2 : 1;
+    orderKinds.set(build, k);
+  }
+  return k as 0 | 1 | 2;
+}
+
+/** Scratch for the unordered route, reused across calls (grown, never shrunk; single-threaded). */
+let scratchCount = new Int32Array(0);
+let scratchLo = new Float64Array(0);
+let scratchHi = new Float64Array(0);
+let scratchSum = new Float64Array(0);
 
 /**
  * Maps raw per-sample dB values onto the grid points of `build`.
@@ -20,40 +52,102 @@ export interface MergedValues {
  * ('duplicate-differs') when samples disagree, e.g. by more than 0.5 dB (common practice for
  * positioner repeatability, not a standard's value). Non-finite samples are skipped; a point
  * left without one is NaN and counted in `missing` (the caller must resolve it before
- * createMeasurement).
- * Cost O(n) (exponentials only for coincident samples), four typed arrays, no per-point allocation.
+ * createMeasurement). Both routes sum the linear powers in raw sample order, so they agree
+ * bit for bit.
+ *
+ * `reuseInput`: when every raw sample i maps to a point p ≤ i (an export written θ-major then
+ * φ, with or without a φ = 360 column; rawOrderKind), the merged values are written over the
+ * first m entries of `rawValues` and returned as a view of it (`inPlace`), so no second copy of
+ * the beam exists; `rawValues` is then consumed. Entry p is only written by samples of point
+ * p, all at indices ≥ p, so raw entry p has been read before; no unread sample is overwritten.
+ * Cost O(n), exponentials only for coincident samples; the sorted route needs no scratch, the
+ * other reuses module scratch; each allocates only the output, and only when not in place.
  * @throws RangeError when rawValues does not have one value per raw sample.
  * @example mergeSamples(build, [0, 10] /* one point *\/) // 7.404 dB, spread 10 dB
  */
-export function mergeSamples(build: GridBuild, rawValues: Float64Array): MergedValues {
+export function mergeSamples(build: GridBuild, rawValues: Float64Array, reuseInput = false): MergedValues {
   const { pointOf } = build;
-  if (rawValues.length !== pointOf.length) {
-    throw new RangeError(`mergeSamples: ${rawValues.length} values for ${pointOf.length} samples`);
+  const n = rawValues.length;
+  if (n !== pointOf.length) {
+    throw new RangeError(`mergeSamples: ${n} values for ${pointOf.length} samples`);
   }
   const m = build.grid.thetaDeg.length;
-  const sumLin = new Float64Array(m);
-  const lo = new Float64Array(m).fill(Infinity);
-  const hi = new Float64Array(m).fill(-Infinity);
-  const count = new Int32Array(m);
-  for (let i = 0; i < rawValues.length; i++) {
+  const kind = rawOrderKind(build);
+  const inPlace = reuseInput && kind > 0;
+  if (kind === 2) {
+    const values = inPlace ? rawValues.subarray(0, m) : new Float64Array(m);
+    let maxSpreadDb = 0;
+    let missing = 0;
+    let i = 0;
+    while (i < n) {
+      const p = pointOf[i];
+      let count = 0;
+      let lo = Infinity;
+      let hi = -Infinity;
+      let sumLin = 0;
+      for (; i < n && pointOf[i] === p; i++) {
+        const v = rawValues[i];
+        if (!Number.isFinite(v)) continue;
+        // Linear power only where samples coincide: a single sample keeps its dB value untouched.
+        if (count === 1) sumLin = Math.exp(lo * LN10_OVER_10);
+        if (count >= 1) sumLin += Math.exp(v * LN10_OVER_10);
+        count++;
+        if (v < lo) lo = v;
+        if (v > hi) hi = v;
+      }
+      if (count === 0) {
+        values[p] = NaN;
+        missing++;
+        continue;
+      }
+      values[p] = count === 1 ? lo : 10 * Math.log10(sumLin / count); // Eq. 1
+      if (hi - lo > maxSpreadDb) maxSpreadDb = hi - lo;
+    }
+    return { values, maxSpreadDb, missing, inPlace };
+  }
+  if (scratchCount.length < m) {
+    scratchCount = new Int32Array(m);
+    scratchLo = new Float64Array(m);
+    scratchHi = new Float64Array(m);
+    scratchSum = new Float64Array(m);
+  }
+  const count = scratchCount;
+  const lo = scratchLo;
+  const hi = scratchHi;
+  const sumLin = scratchSum;
+  count.fill(0, 0, m);
+  const values = inPlace ? rawValues.subarray(0, m) : new Float64Array(m);
+  for (let i = 0; i < n; i++) {
     const v = rawValues[i];
     if (!Number.isFinite(v)) continue;
     const p = pointOf[i];
-    // Linear power only where samples coincide: a single sample keeps its dB value untouched.
-    if (count[p] === 1) sumLin[p] = Math.exp(lo[p] * LN10_OVER_10);
-    if (count[p] >= 1) sumLin[p] += Math.exp(v * LN10_OVER_10);
-    count[p]++;
+    const c = count[p];
+    count[p] = c + 1;
+    if (c === 0) {
+      values[p] = v;
+      continue;
+    }
+    if (c === 1) {
+      const first = values[p];
+      lo[p] = first;
+      hi[p] = first;
+      sumLin[p] = Math.exp(first * LN10_OVER_10);
+    }
+    sumLin[p] += Math.exp(v * LN10_OVER_10);
     if (v < lo[p]) lo[p] = v;
     if (v > hi[p]) hi[p] = v;
   }
-  const values = new Float64Array(m);
   let maxSpreadDb = 0;
   let missing = 0;
   for (let p = 0; p < m; p++) {
-    if (count[p] === 0) { values[p] = NaN; missing++; continue; }
-    // One sample keeps its exact value (no dB → linear → dB round-off).
-    values[p] = count[p] === 1 ? lo[p] : 10 * Math.log10(sumLin[p] / count[p]); // Eq. 1
-    if (hi[p] - lo[p] > maxSpreadDb) maxSpreadDb = hi[p] - lo[p];
+    const c = count[p];
+    if (c === 0) {
+      values[p] = NaN;
+      missing++;
+    } else if (c > 1) {
+      values[p] = 10 * Math.log10(sumLin[p] / c); // Eq. 1
+      if (hi[p] - lo[p] > maxSpreadDb) maxSpreadDb = hi[p] - lo[p];
+    }
   }
-  return { values, maxSpreadDb, missing };
+  return { values, maxSpreadDb, missing, inPlace };
 }

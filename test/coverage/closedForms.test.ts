@@ -134,3 +134,13 @@ describe('DFT beams of a ULA cross about 3.9 dB below their peaks', () => {
     });
   }
 });
+
+describe('TRP with the grid solid angle', () => {
+  it('passing grid.solidAngleSr gives the same bits as summing the weights (regular and Voronoi grids)', () => {
+    const a = stepGrid(5);
+    for (const g of [buildSphereGrid(a.theta, a.phi).grid, buildSphereGrid(a.theta, a.phi, { forceScattered: true }).grid]) {
+      const v = Float64Array.from(g.thetaDeg, (t, i) => 10 * Math.sin(t * RAD) + 0.01 * g.phiDeg[i]);
+      expect(Object.is(beamTrpDbm(v, g.weightSr, true, g.solidAngleSr), beamTrpDbm(v, g.weightSr, true))).toBe(true);
+    }
+  });
+});

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildSphereGrid } from '../../src/sphere/buildGrid.js';
-import { mergeSamples } from '../../src/sphere/mergeSamples.js';
+import { mergeSamples, rawOrderKind } from '../../src/sphere/mergeSamples.js';
 import { resampleBeam } from '../../src/sphere/resample.js';
 import { expectClose } from '../helpers/expectClose.js';
 import { combos, fibonacci, range, stepGrid } from './gridFixtures.js';
@@ -57,5 +57,81 @@ describe('resampleBeam', () => {
     const r = resampleBeam(from, vals, to);
     for (let i = 0; i < to.thetaDeg.length; i++) if (to.thetaDeg[i] > 90) expect(r.values[i]).toBe(90);
     expectClose(r.maxDistanceDeg, 90, 1e-9, 'south pole is 90° from the equator row');
+  });
+});
+
+/** The merge as first written (four arrays per call), kept as the bit-for-bit reference. */
+function referenceMerge(pointOf: Int32Array, m: number, raw: Float64Array) {
+  const k = Math.LN10 / 10;
+  const sumLin = new Float64Array(m);
+  const lo = new Float64Array(m).fill(Infinity);
+  const hi = new Float64Array(m).fill(-Infinity);
+  const count = new Int32Array(m);
+  for (let i = 0; i < raw.length; i++) {
+    const v = raw[i];
+    if (!Number.isFinite(v)) continue;
+    const p = pointOf[i];
+    if (count[p] === 1) sumLin[p] = Math.exp(lo[p] * k);
+    if (count[p] >= 1) sumLin[p] += Math.exp(v * k);
+    count[p]++;
+    if (v < lo[p]) lo[p] = v;
+    if (v > hi[p]) hi[p] = v;
+  }
+  const values = new Float64Array(m);
+  let maxSpreadDb = 0;
+  let missing = 0;
+  for (let p = 0; p < m; p++) {
+    if (count[p] === 0) { values[p] = NaN; missing++; continue; }
+    values[p] = count[p] === 1 ? lo[p] : 10 * Math.log10(sumLin[p] / count[p]);
+    if (hi[p] - lo[p] > maxSpreadDb) maxSpreadDb = hi[p] - lo[p];
+  }
+  return { values, maxSpreadDb, missing };
+}
+
+describe('mergeSamples routes agree bit for bit', () => {
+  /** Deterministic noise (LCG), with a few NaN samples. */
+  function noisy(n: number, seed: number): Float64Array {
+    let s = seed;
+    return Float64Array.from({ length: n }, () => {
+      s = (s * 1103515245 + 12345) % 2 ** 31;
+      return s % 97 === 0 ? NaN : Math.round((s / 2 ** 31) * 6000 - 3000) / 100;
+    });
+  }
+  const same = (a: Float64Array, b: Float64Array) => a.length === b.length && a.every((x, i) => Object.is(x, b[i]));
+
+  for (const seam of [false, true]) {
+    it(`θ-major export with pole rows${seam ? ' and a φ = 360 column' : ''}: allocating and in-place routes equal the reference`, () => {
+      const a = stepGrid(10, { seam });
+      const b = buildSphereGrid(a.theta, a.phi);
+      expect(rawOrderKind(b)).toBe(seam ? 1 : 2);
+      const raw = noisy(a.theta.length, 7);
+      const ref = referenceMerge(b.pointOf, b.grid.thetaDeg.length, raw);
+      const alloc = mergeSamples(b, raw);
+      expect(alloc.inPlace).toBe(false);
+      expect(same(alloc.values, ref.values)).toBe(true);
+      const copy = raw.slice();
+      const inPlace = mergeSamples(b, copy, true);
+      expect(inPlace.inPlace).toBe(true);
+      expect(inPlace.values.buffer).toBe(copy.buffer);
+      expect(same(inPlace.values, ref.values)).toBe(true);
+      expect([inPlace.maxSpreadDb, inPlace.missing]).toEqual([ref.maxSpreadDb, ref.missing]);
+      expect(ref.maxSpreadDb).toBeGreaterThan(0);
+      expect(ref.missing).toBeGreaterThan(0);
+    });
+  }
+
+  it('other orders (φ-major export): reused scratch gives the reference on repeated calls, never in place', () => {
+    const a = stepGrid(10, { seam: true });
+    const order = Array.from(a.theta.keys()).sort((i, j) => a.phi[i] - a.phi[j] || a.theta[i] - a.theta[j]);
+    const b = buildSphereGrid(Float64Array.from(order, (i) => a.theta[i]), Float64Array.from(order, (i) => a.phi[i]));
+    for (const seed of [3, 11]) {
+      const raw = noisy(order.length, seed);
+      const ref = referenceMerge(b.pointOf, b.grid.thetaDeg.length, raw);
+      const got = mergeSamples(b, raw, true);
+      expect(rawOrderKind(b)).toBe(0);
+      expect(got.inPlace).toBe(false);
+      expect(same(got.values, ref.values)).toBe(true);
+      expect([got.maxSpreadDb, got.missing]).toEqual([ref.maxSpreadDb, ref.missing]);
+    }
   });
 });
