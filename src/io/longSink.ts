@@ -41,13 +41,27 @@ export class LongSink implements RowSink {
   private byKey = new Map<string, Group>();
   private last: Group | null = null;
   private polOk: number[] = [];
+  // Per-file constants of row(), fixed once instead of derived on every row.
+  private readonly rad: boolean;
+  private readonly slack: number;
+  private readonly thetaPhi: boolean;
+  private readonly lo1: number;
+  private readonly hi1: number;
+  private readonly linear: boolean;
 
   constructor(
     private readonly plan: LongPlan,
     private readonly file: string,
     private readonly errors: ErrorList,
     private readonly keys: KeyTable,
-  ) {}
+  ) {
+    this.rad = plan.angleUnit === 'rad';
+    this.slack = this.rad ? ANGLE_SLACK_DEG : 0;
+    this.thetaPhi = plan.angleConvention === 'theta-phi';
+    this.lo1 = this.thetaPhi ? 0 : -90;
+    this.hi1 = this.thetaPhi ? 180 : 90;
+    this.linear = plan.fileValueUnit === 'mW' || plan.fileValueUnit === 'W';
+  }
 
   private err(line: number, f: number, loc: RowLocator, expected: string): void {
     this.errors.add(inputError(this.file, line, loc.col(f), this.plan.fields.names[f], loc.text(f).trim(), expected));
@@ -77,30 +91,31 @@ export class LongSink implements RowSink {
     const p = this.plan;
     let a1 = nums[0];
     let a2 = nums[1];
-    const rad = p.angleUnit === 'rad';
+    const rad = this.rad;
     if (rad) {
       a1 *= RAD_TO_DEG;
       a2 *= RAD_TO_DEG;
     }
-    const slack = rad ? ANGLE_SLACK_DEG : 0;
-    const lo1 = p.angleConvention === 'theta-phi' ? 0 : -90;
-    const hi1 = p.angleConvention === 'theta-phi' ? 180 : 90;
+    const slack = this.slack;
+    const lo1 = this.lo1;
+    const hi1 = this.hi1;
     if (!(a1 >= lo1 - slack && a1 <= hi1 + slack)) {
-      const what = p.angleConvention === 'theta-phi' ? 'theta' : 'elevation';
+      const what = this.thetaPhi ? 'theta' : 'elevation';
       this.err(line, this.fieldOfNum(0), loc, `${what} between ${lo1} and ${hi1} ${rad ? 'degrees (as radians)' : 'degrees'}`);
       return;
     }
     if (!(a2 >= -180 - slack && a2 <= 360 + slack)) {
-      const what = p.angleConvention === 'theta-phi' ? 'phi' : 'azimuth';
+      const what = this.thetaPhi ? 'phi' : 'azimuth';
       this.err(line, this.fieldOfNum(1), loc, `${what} between -180 and 360 ${rad ? 'degrees (as radians)' : 'degrees'}`);
       return;
     }
     a1 = Math.min(hi1, Math.max(lo1, a1));
     // az/el → θ/φ: θ = 90° − el, φ = az (normalized to [0, 360) by the grid builder), CONTRACT.md "Angles".
-    const thetaDeg = p.angleConvention === 'theta-phi' ? a1 : 90 - a1;
+    const thetaDeg = this.thetaPhi ? a1 : 90 - a1;
     const phiDeg = a2;
 
-    let value = this.toDb(nums[2], 2, line, loc);
+    let value: number | null = nums[2];
+    if (this.linear) value = this.toDb(value, 2, line, loc);
     if (value === null) return;
     if (p.pairValues) {
       const b = this.toDb(nums[3], 3, line, loc);
