@@ -9,7 +9,6 @@ const CHUNK = 1 << 20;
 /** Exact powers of ten (all representable in binary64 up to 1e22). */
 const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
 const KEY_MEMO = 256;
-const NEWLINE = Buffer.from('\n');
 
 /**
  * Streaming byte-level reader for plain numeric rows: reads the file in 1 MiB chunks into two
@@ -61,12 +60,8 @@ export async function fastTokenize(
     return cached;
   }
 
-  /**
-   * Parse the row starting at s and ending at the first '\n' before `len` in one pass (the
-   * newline is found by the parse itself, no separate search, no substring); returns that
-   * newline's index, or −1 when the row needs the text routine or is cut by `len`.
-   */
-  function fastRow(b: Buffer, s: number, len: number): number {
+  /** Parse one line [s, e) fully; false when it needs the text routine. */
+  function fastLine(b: Buffer, s: number, e: number): boolean {
     let p = s;
     for (let f = 0; f < nFields; f++) {
       const kind = kinds[f];
@@ -80,18 +75,18 @@ export async function fastTokenize(
         let m = 0;
         let nd = 0;
         let frac = 0;
-        while (p < len) {
+        while (p < e) {
           const d = b[p] - 48;
           if (d < 0 || d > 9) break;
           m = m * 10 + d;
           nd++;
           p++;
         }
-        if (p < len) {
+        if (p < e) {
           c = b[p];
           if (c === 46 || (dc && c === 44)) {
             p++;
-            while (p < len) {
+            while (p < e) {
               const d = b[p] - 48;
               if (d < 0 || d > 9) break;
               m = m * 10 + d;
@@ -101,9 +96,9 @@ export async function fastTokenize(
             }
           }
         }
-        if (nd === 0 || nd > 15) return -1;
+        if (nd === 0 || nd > 15) return false;
         let exp = 0;
-        if (p < len && (b[p] === 101 || b[p] === 69)) {
+        if (p < e && (b[p] === 101 || b[p] === 69)) {
           p++;
           let eneg = false;
           if (b[p] === 45) {
@@ -111,68 +106,62 @@ export async function fastTokenize(
             p++;
           } else if (b[p] === 43) p++;
           let ed = 0;
-          while (p < len) {
+          while (p < e) {
             const d = b[p] - 48;
             if (d < 0 || d > 9) break;
             exp = exp * 10 + d;
             ed++;
             p++;
-            if (ed > 4) return -1;
+            if (ed > 4) return false;
           }
-          if (ed === 0) return -1;
+          if (ed === 0) return false;
           if (eneg) exp = -exp;
         }
         const e10 = exp - frac;
-        if (e10 < -22 || e10 > 22) return -1;
+        if (e10 < -22 || e10 > 22) return false;
         const v = e10 >= 0 ? m * POW10[e10] : m / POW10[-e10];
         nums[slots[f]] = neg ? -v : v;
       } else {
         const q0 = p;
-        while (p < len) {
+        while (p < e) {
           const c = b[p];
-          if (c === delim || c === 10) break;
-          if (c === 34) return -1;
+          if (c === delim) break;
+          if (c === 34) return false;
           p++;
         }
-        if (p >= len) return -1;
-        // The last field ends before a '\r\n' line end, like the row text the general path splits.
-        const q1 = f === nFields - 1 && b[p] === 10 && p > q0 && b[p - 1] === 13 ? p - 1 : p;
         if (kind === KEY) {
           const slot = slots[f];
           const mm = memo[slot];
-          const klen = q1 - q0;
-          if (klen === 0) return -1;
-          let same = klen === mm.len;
-          for (let i = 0; same && i < klen; i++) if (b[q0 + i] !== mm.bytes[i]) same = false;
+          const len = p - q0;
+          if (len === 0) return false;
+          let same = len === mm.len;
+          for (let i = 0; same && i < len; i++) if (b[q0 + i] !== mm.bytes[i]) same = false;
           if (same) keyIds[slot] = mm.id;
           else {
-            const text = b.toString('utf8', q0, q1).trim();
-            if (text === '') return -1;
+            const text = b.toString('utf8', q0, p).trim();
+            if (text === '') return false;
             const id = t.keys.intern(slot, text);
             keyIds[slot] = id;
-            if (klen <= KEY_MEMO) {
-              b.copy(mm.bytes, 0, q0, q1);
-              mm.len = klen;
+            if (len <= KEY_MEMO) {
+              b.copy(mm.bytes, 0, q0, p);
+              mm.len = len;
               mm.id = id;
             } else mm.len = -1;
           }
         }
-        if (f === nFields - 1 && q1 < p) p = q1;
       }
       if (f < nFields - 1) {
-        if (p >= len || b[p] !== delim) return -1;
+        if (p >= e || b[p] !== delim) return false;
         p++;
       }
     }
-    let e = p;
-    if (p < len && b[p] === 13) p++;
-    if (p >= len || b[p] !== 10) return -1;
+    if (p !== e) return false;
     lb = b;
     ls = s;
     le = e;
     cached = null;
     t.sink.row(line, nums, keyIds, loc);
-    return p;
+    return true;
   }
 
   // Double buffering: the next chunk is read (thread pool) while this one is parsed; a line cut
@@ -181,11 +170,10 @@ export async function fastTokenize(
   let which = 0;
   let pending = fh.read(bufs[0], 0, chunkBytes, 0);
   let tail: Buffer | null = null;
-  /** The row [i, nl) with view[nl] = '\n': fast parse, else the shared text routine. */
   const lineAt = (view: Buffer, i: number, nl: number): boolean => {
     let e = nl;
     if (e > i && view[e - 1] === 13) e--;
-    if (e > i && view[i] !== 35 && fastRow(view, i, nl + 1) !== nl) {
+    if (e > i && view[i] !== 35 && !fastLine(view, i, e)) {
       if (view.subarray(i, e).includes(34)) return false;
       const fields = view.toString('utf8', i, e).split(t.delimiter);
       processTextRow(fields, line, splitLocator(fields, t.delimiter), t);
@@ -217,26 +205,13 @@ export async function fastTokenize(
         tail = Buffer.concat([tail, view]);
         continue;
       }
-      const stitched = eof ? Buffer.concat([tail, NEWLINE]) : Buffer.concat([tail, view.subarray(0, nl + 1)]);
+      const stitched = eof ? tail : Buffer.concat([tail, view.subarray(0, nl)]);
       tail = null;
-      if (!lineAt(stitched, 0, stitched.length - 1)) return 'quote';
+      if (!lineAt(stitched, 0, stitched.length)) return 'quote';
       i = eof ? 0 : nl + 1;
     }
     if (eof) break;
-    const len = view.length;
     for (;;) {
-      if (i < len) {
-        const c0 = view[i];
-        // Plain rows: one pass, no newline search; comments, blank and odd rows below.
-        if (c0 !== 35 && c0 !== 10 && c0 !== 13) {
-          const end = fastRow(view, i, len);
-          if (end >= 0) {
-            line++;
-            i = end + 1;
-            continue;
-          }
-        }
-      }
       const nl = view.indexOf(10, i);
       if (nl < 0) break;
       if (!lineAt(view, i, nl)) return 'quote';
