@@ -204,7 +204,7 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     beams.push(...r.beams);
   }
   const usable = groupFailed ? [] : beams.filter((b) => !failedUnits.has(b.unit));
-  const assembled = assembleMeasurements(usable, sources);
+  const assembled = assembleMeasurements(usable, sources, { consumeRaw: true });
   errors.push(...assembled.errors);
   const measured = assembled.measurements.map((m) => {
     const own = new Set(usable.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz).map((b) => b.file));
