@@ -1,5 +1,6 @@
 import { sphereNormSr } from '../coverage/sphereNormSr.js';
 import type { BeamRemoval, Quantity, SphereGrid } from '../types.js';
+import { createPatchedPercentile } from './patchedPercentile.js';
 import { createPercentileSelector } from './percentileSelector.js';
 
 /**
@@ -17,9 +18,11 @@ import { createPercentileSelector } from './percentileSelector.js';
  * total scan pattern only where b is best, where the second-best value takes over. Ties go to the
  * earlier beam, so of two identical beams the second is the runner-up everywhere the first is
  * best and removing either costs exactly 0. Percentiles use the step rule of
- * `createPercentileSelector` (the core's rule); coverage losses are Neumaier sums over the
- * changed points only.
- * Cost: O(n·B) for best/second-best, then O(n) per beam (patch + quickselect).
+ * `createPercentileSelector` (the core's rule), evaluated by `createPatchedPercentile` on the
+ * full total scan pattern patched with the runner-up where b is best (bit-identical to patching
+ * a copy and selecting); coverage losses are Neumaier sums over the changed points only.
+ * Cost: O(n·B) for best/second-best, then O(points where b is best + bins) per beam (O(n) when
+ * the patched evaluator falls back to the plain quickselect).
  * @throws Error when there are no beams or lengths differ from the grid.
  * @example beamRemoval(grid, beams, 'eirp', 50, 10)[3].percentileLossDb // dB lost without beam 3
  */
@@ -51,20 +54,33 @@ export function beamRemoval(
   const full = finite(select(bestVal));
   const covered = (v: number): boolean => threshold !== null && (lowerIsBetter ? v <= threshold : v >= threshold);
   const sphereSr = sphereNormSr(grid.solidAngleSr);
-  const without = new Float64Array(n);
+  // Points grouped by best beam, ascending within a group (counting sort), as the changed sets.
+  const groupStart = new Int32Array(beams.length + 1), byBeam = new Int32Array(n);
+  for (let i = 0; i < n; i++) groupStart[bestIdx[i] + 1]++;
+  for (let b = 0; b < beams.length; b++) groupStart[b + 1] += groupStart[b];
+  const fill = groupStart.slice(0, beams.length);
+  for (let i = 0; i < n; i++) byBeam[fill[bestIdx[i]]++] = i;
+  let lo = Infinity, hi = -Infinity, nan = false;
+  for (const arr of [bestVal, secondVal]) for (let i = 0; i < n; i++) if (arr[i] !== arr[i]) nan = true;
+  for (let i = 0; i < n; i++) { const v = bestVal[i]; if (v > -Infinity && v < Infinity) { if (v < lo) lo = v; if (v > hi) hi = v; } }
+  // Every answer lies between the percentile of the runner-up pattern and the full one: bins there.
+  const floor = beams.length > 1 ? finite(select(secondVal)) : null;
+  if (floor !== null && full !== null) { lo = Math.min(floor, full); hi = Math.max(floor, full); }
+  const pad = 0.1 * (hi - lo) + 1e-9 * Math.max(1, Math.abs(lo), Math.abs(hi));
+  const patched = createPatchedPercentile(grid.weightSr, quantity, levelPct, !nan);
+  patched.setBase(bestVal, lo - pad, hi + pad);
   return beams.map((_, b) => {
-    without.set(bestVal);
+    const changed = byBeam.subarray(groupStart[b], groupStart[b + 1]);
     let lost = 0, c = 0;
-    for (let i = 0; i < n; i++) {
-      if (bestIdx[i] !== b) continue;
-      without[i] = secondVal[i];
+    for (let j = 0; j < changed.length; j++) {
+      const i = changed[j];
       if (covered(bestVal[i]) && !covered(secondVal[i])) {
         const w = grid.weightSr[i], t = lost + w; // Eq. 2: Neumaier sum of the lost solid angle
         c += Math.abs(lost) >= w ? lost - t + w : w - t + lost;
         lost = t;
       }
     }
-    const rest = beams.length > 1 ? finite(select(without)) : null;
+    const rest = beams.length > 1 ? (changed.length === 0 ? full : finite(patched.evaluate(changed, changed.length, secondVal))) : null;
     const percentileLossDb = full === null || rest === null ? null : lowerIsBetter ? rest - full : full - rest; // Eq. 1
     return { percentileLossDb, coverageLoss: threshold === null ? null : (lost + c) / sphereSr };
   });

@@ -28,6 +28,28 @@ export function createPercentileSelector(
   quantity: Quantity,
   levelPct: number,
 ): (values: Float64Array) => number | null {
+  const plan = selectorPlan(weightSr, quantity, levelPct);
+  const { n, mode, selectTargetSr } = plan;
+  const sv = new Float64Array(n), sw = new Float64Array(n);
+  return (values: Float64Array): number | null => {
+    if (mode === 'none') return null;
+    if (mode === 'minimum') return minimum(values);
+    sv.set(values);
+    sw.set(weightSr);
+    return weightedSelect(sv, sw, n, selectTargetSr); // Eq. 1
+  };
+}
+
+/**
+ * The value-independent part of the selector (Eq. 1 of `createPercentileSelector`), shared with
+ * the incremental evaluator so both apply the same thresholds: `mode` 'none' (not evaluable:
+ * empty grid, or the level lies in the unmeasured part), 'minimum' (p = 0 on a reachable
+ * sphere), else 'select': the answer is the smallest v with Σ wᵢ [xᵢ ≤ v] ≥ selectTargetSr, the
+ * sum in any order (the 1e-12 slack and the unmeasured share already folded in).
+ * `sphereSr` is S, `measuredSr` the Neumaier Σw. Cost O(n).
+ * @throws Error when levelPct is outside [0, 100].
+ */
+export function selectorPlan(weightSr: Float64Array, quantity: Quantity, levelPct: number): SelectorPlan {
   if (!(levelPct >= 0 && levelPct <= 100)) throw new Error(`percentile level ${levelPct} is outside [0, 100]`);
   const n = weightSr.length;
   let measured = 0, c = 0;
@@ -41,16 +63,20 @@ export function createPercentileSelector(
   const below = quantity === 'eis' ? 0 : Math.max(0, sphereSr - measured);
   const eps = REACH_EPS * sphereSr;
   const target = (levelPct / 100) * sphereSr;
-  const sv = new Float64Array(n), sw = new Float64Array(n);
-  return (values: Float64Array): number | null => {
-    if (n === 0) return null;
-    if (below > 0 && below >= target - eps) return null; // reached at −∞, inside the unmeasured part
-    if (target <= eps) return minimum(values);
-    if (below + measured < target - eps) return null; // reached only at +∞ (eis, partial sphere)
-    sv.set(values);
-    sw.set(weightSr);
-    return select(sv, sw, n, target - eps - below); // Eq. 1
-  };
+  let mode: SelectorPlan['mode'] = 'select';
+  if (n === 0) mode = 'none';
+  else if (below > 0 && below >= target - eps) mode = 'none'; // reached at −∞, inside the unmeasured part
+  else if (target <= eps) mode = 'minimum';
+  else if (below + measured < target - eps) mode = 'none'; // reached only at +∞ (eis, partial sphere)
+  return { n, mode, selectTargetSr: target - eps - below, sphereSr, measuredSr: measured };
+}
+
+export interface SelectorPlan {
+  n: number;
+  mode: 'none' | 'minimum' | 'select';
+  selectTargetSr: number;
+  sphereSr: number;
+  measuredSr: number;
 }
 
 function minimum(values: Float64Array): number {
@@ -59,8 +85,8 @@ function minimum(values: Float64Array): number {
   return m;
 }
 
-/** Smallest v with Σ w[x ≤ v] ≥ target, over sv[0..len), reordering sv/sw in place. */
-function select(sv: Float64Array, sw: Float64Array, len: number, target: number): number {
+/** Smallest v with Σ w[x ≤ v] ≥ target, over sv[0..len), reordering sv/sw in place. Expected O(len). */
+export function weightedSelect(sv: Float64Array, sw: Float64Array, len: number, target: number): number {
   let lo = 0, hi = len, below = 0;
   for (;;) {
     if (hi - lo <= 16) return smallTail(sv, sw, lo, hi, target - below);
