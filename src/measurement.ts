@@ -76,5 +76,6 @@ export function createMeasurement(input: MeasurementInput): Measurement {
     sources: input.sources ?? [],
     warnings: input.warnings ?? [],
     metadata: input.metadata ?? {},
+    ...(input.mergedSamples === undefined ? {} : { mergedSamples: input.mergedSamples }),
   };
 }

@@ -110,6 +110,8 @@ export interface Measurement {
   sources: SourceFile[];
   warnings: Warning[];
   metadata: Record<string, string>;
+  /** Raw samples per beam merged into another sample's grid point (φ seam, poles, repeated rows). */
+  mergedSamples?: number;
 }
 
 /** Total scan pattern: per grid point the best beam's value and that beam's index. */
@@ -212,6 +214,9 @@ export interface GridSummary {
   thetaStepDeg: number | null;
   phiStepDeg: number | null;
   fullSphere: boolean;
+  /** Σ weights, sr (4π for a full sphere). */
+  solidAngleSr: number;
+  /** Raw samples per beam merged into another sample's point (φ seam, poles, repeated rows). */
   duplicatesMerged: number;
   beamsResampled: number;
 }

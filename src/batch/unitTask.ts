@@ -19,7 +19,7 @@ import { tspDifference } from '../analysis/tspDifference.js';
 import { crossUnitExtras, metricsOf } from './crossUnit.js';
 import type { CdfCurve } from '../report/cdfCurve.js';
 import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';
-import { gridSummary } from './gridSummary.js';
+import { gridSummary } from '../sphere/gridSummary.js';
 import { collapseWarnings } from './collapseWarnings.js';
 
 export interface TaskInput {

@@ -227,7 +227,7 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
   try {
     return createMeasurement({
       unit: ref.unit, frequencyHz: ref.frequencyHz, quantity: ref.quantity, valueUnit: ref.valueUnit, grid: build.grid, beams: beamsOut,
-      sources: sources.filter((s) => files.has(s.path)), warnings, metadata,
+      sources: sources.filter((s) => files.has(s.path)), warnings, metadata, mergedSamples: build.merged,
     });
   } catch (e) {
     errors.push({ file: ref.file, message: `${ref.file}: ${what} could not be assembled (${(e as Error).message}), expected a consistent set of beams` });

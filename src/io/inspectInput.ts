@@ -1,40 +1,17 @@
 import { existsSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { isFullSphere } from '../sphere/isFullSphere.js';
-import type { InputError, Quantity, SphereGrid, Warning } from '../types.js';
+import { gridSummary } from '../sphere/gridSummary.js';
+import type { InputError, Quantity, Warning } from '../types.js';
 import { assembleMeasurements } from './assembleMeasurements.js';
 import { findExportFiles } from './findExportFiles.js';
 import { findJobFile, loadJobFile } from './jobFile.js';
 import { readExportFile } from './readExportFile.js';
-import type { InspectGrid, InspectReport, JobSpec, RawBeam } from './types.js';
+import type { InspectReport, JobSpec, RawBeam } from './types.js';
 
 export interface InspectOptions {
   /** Explicit job file; default: spherecov.yaml/.yml/.json in the input folder. */
   job?: string;
   quantity?: Quantity;
-}
-
-function steps(sorted: number[]): number | null {
-  if (sorted.length < 2) return null;
-  const d = sorted[1] - sorted[0];
-  for (let i = 2; i < sorted.length; i++) if (Math.abs(sorted[i] - sorted[i - 1] - d) > 1e-6) return null;
-  return d;
-}
-
-function gridSummary(g: SphereGrid, merged: number): InspectGrid {
-  const th = g.regular ? Array.from(g.regular.thetaRowsDeg) : Array.from(new Set(g.thetaDeg)).sort((a, b) => a - b);
-  const ph = g.regular ? Array.from(g.regular.phiColsDeg) : Array.from(new Set(g.phiDeg)).sort((a, b) => a - b);
-  return {
-    kind: g.kind,
-    points: g.thetaDeg.length,
-    thetaRangeDeg: [th[0], th[th.length - 1]],
-    phiRangeDeg: [ph[0], ph[ph.length - 1]],
-    thetaStepDeg: g.kind === 'regular' ? steps(th) : null,
-    phiStepDeg: g.kind === 'regular' ? steps(ph) : null,
-    solidAngleSr: g.solidAngleSr,
-    fullSphere: isFullSphere(g),
-    duplicatesMerged: merged,
-  };
 }
 
 /**
@@ -71,20 +48,14 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
     beams.push(...r.beams);
   }
   const sources = report.files.map((f) => ({ path: f.file, sha256: f.sha256 }));
-  // Raw sample counts before assembling, which consumes the raw value arrays.
-  const rawSamples = beams.map((b) => b.values.length);
   const asm = assembleMeasurements(beams, sources, { consumeRaw: true });
   report.errors.push(...asm.errors);
   report.warnings.push(...asm.warnings);
   for (const m of asm.measurements) {
     const files = m.sources.map((s) => s.path);
-    let samples = 0;
-    beams.forEach((b, k) => {
-      if (b.unit === m.unit && b.frequencyHz === m.frequencyHz) samples = Math.max(samples, rawSamples[k]);
-    });
     report.measurements.push({
       unit: m.unit, frequencyHz: m.frequencyHz, quantity: m.quantity, valueUnit: m.valueUnit,
-      beams: m.beams.map((b) => b.id), files, grid: gridSummary(m.grid, Math.max(0, samples - m.grid.thetaDeg.length)), warnings: m.warnings,
+      beams: m.beams.map((b) => b.id), files, grid: gridSummary(m), warnings: m.warnings,
     });
   }
   return report;

@@ -1,7 +1,7 @@
 /**
  * Types of the readers (src/io): what one file read gives, the job file, and the inspect report.
  */
-import type { GridKind, InputError, Quantity, ValueUnit, Warning } from '../types.js';
+import type { GridSummary, InputError, Quantity, ValueUnit, Warning } from '../types.js';
 
 /** Column roles a header cell (or a job-file `columns:` entry) can take. */
 export type ColumnRole =
@@ -128,17 +128,8 @@ export interface FileReadResult {
   warnings: Warning[];
 }
 
-export interface InspectGrid {
-  kind: GridKind;
-  points: number;
-  thetaRangeDeg: [number, number];
-  phiRangeDeg: [number, number];
-  thetaStepDeg: number | null;
-  phiStepDeg: number | null;
-  solidAngleSr: number;
-  fullSphere: boolean;
-  duplicatesMerged: number;
-}
+/** Grid facts of an inspected measurement: the same summary results.json carries. */
+export type InspectGrid = GridSummary;
 
 export interface InspectMeasurement {
   unit: string;

@@ -423,7 +423,7 @@ function qualitySection(doc: Doc, input: UnitReportInput): void {
     ['θ range / step', `${fmt(g.thetaRangeDeg[0], 1)}° … ${fmt(g.thetaRangeDeg[1], 1)}° / ${g.thetaStepDeg === null ? 'non-uniform' : `${fmt(g.thetaStepDeg, 2)}°`}`],
     ['φ range / step', `${fmt(g.phiRangeDeg[0], 1)}° … ${fmt(g.phiRangeDeg[1], 1)}° / ${g.phiStepDeg === null ? 'non-uniform' : `${fmt(g.phiStepDeg, 2)}°`}`],
     ['Measured Ω', `${fmt(r.solidAngleSr, 4)} sr of 4π = 12.5664 sr (${pct(r.solidAngleSr / (4 * Math.PI), 2)}); ${g.fullSphere ? 'full sphere' : 'partial sphere: the rest counts as not covered'}`],
-    ['Duplicates merged', `${g.duplicatesMerged}`],
+    ['Samples merged', `${g.duplicatesMerged} per beam (φ seam, poles, repeated rows: coincident directions counted once)`],
     ['Beams resampled', `${g.beamsResampled}`],
     ['Warnings', r.warnings.length === 0 && input.measurement.warnings.length === 0 ? 'none' : `${Math.max(r.warnings.length, input.measurement.warnings.length)}`],
   ], MARGIN.left, w, 100);

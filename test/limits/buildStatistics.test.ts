@@ -23,7 +23,7 @@ function unit(id: string, f: number, peak: number, p50: number | null, trp: numb
       coverage: [{ threshold: 10, efficiency: 0.5 }], relativeCoverage: [], curve: [] },
     checks, verdict, worstCheck: { name: evaluated[0].name, margin: evaluated[0].margin as number },
     warnings: [], grid: { kind: 'regular', points: 266, thetaRangeDeg: [0, 180], phiRangeDeg: [0, 345],
-      thetaStepDeg: 15, phiStepDeg: 15, fullSphere: trp !== null, duplicatesMerged: 0, beamsResampled: 0 },
+      thetaStepDeg: 15, phiStepDeg: 15, fullSphere: trp !== null, solidAngleSr: 4 * Math.PI, duplicatesMerged: 0, beamsResampled: 0 },
     sources: [], limitSet: { name: 'x', source: 'invented' },
   };
 }

@@ -188,7 +188,7 @@ export function makeResult(m: Measurement, tsp: TotalScanPattern, verdictPass = 
     warnings: m.warnings.map((x) => x.message),
     grid: {
       kind: 'regular', points: m.grid.thetaDeg.length, thetaRangeDeg: [0, m.grid.regular!.thetaRowsDeg.at(-1)!], phiRangeDeg: [0, 355],
-      thetaStepDeg: 5, phiStepDeg: 5, fullSphere: Math.abs(m.grid.solidAngleSr - 4 * Math.PI) < 1e-9, duplicatesMerged: 72, beamsResampled: 0,
+      thetaStepDeg: 5, phiStepDeg: 5, fullSphere: Math.abs(m.grid.solidAngleSr - 4 * Math.PI) < 1e-9, solidAngleSr: m.grid.solidAngleSr, duplicatesMerged: 72, beamsResampled: 0,
     },
     sources: m.sources,
     limitSet: { name: 'example-programme', source: 'templates/limits/example.yaml' },
