@@ -4,6 +4,8 @@
 import { readdir, realpath, stat } from 'node:fs/promises';
 import path from 'node:path';
 import { existsSync } from 'node:fs';
+import { pathIdentity } from '../io/pathIdentity.js';
+import type { JobSpec } from '../io/types.js';
 
 const EXPORT_EXT = new Set(['.csv', '.tsv', '.txt']);
 const JOB_FILES = new Set(['spherecov.yaml', 'spherecov.yml', 'spherecov.json']);
@@ -101,26 +103,14 @@ export function toPosix(p: string): string {
   return p.split(path.sep).join('/');
 }
 
-/** File stem without the extension. */
-function stem(rel: string): string {
-  const base = path.posix.basename(rel);
-  const ext = path.posix.extname(base);
-  return ext ? base.slice(0, -ext.length) : base;
-}
 
 /**
- * Group files into work items by where they sit: the first subfolder below the input, else the
- * file stem with beam and frequency tokens removed (CONTRACT.md identity rules, path part).
- * This only splits the work across workers; the readers decide the real unit identity, and the
- * batch merges groups that turn out to share a unit.
+ * Group files into work items by the unit their path names (the readers' path identity:
+ * first subfolder, else the file stem without beam and frequency tokens, else the folder's
+ * name; job-file identity patterns apply). This only splits the work across workers; the
+ * readers decide the real unit identity (a unit column wins), and the batch merges groups that
+ * turn out to share a unit.
  */
-export function groupKey(relPosix: string): string {
-  const parts = relPosix.split('/');
-  if (parts.length > 1) return parts[0];
-  const s = stem(relPosix)
-    .replace(/(^|[_\-\s.])(beam[_-]?\d+|b\d+)(?=$|[_\-\s.])/gi, '$1')
-    .replace(/(^|[_\-\s.])\d+(\.\d+)?\s*ghz(?=$|[_\-\s.])/gi, '$1')
-    .replace(/([_\-\s.])[_\-\s.]+/g, '$1')
-    .replace(/^[_\-\s.]+|[_\-\s.]+$/g, '');
-  return s === '' ? stem(relPosix) : s;
+export function groupKey(relPosix: string, job?: JobSpec, rootName?: string): string {
+  return pathIdentity(relPosix, job, rootName).unit;
 }

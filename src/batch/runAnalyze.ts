@@ -193,7 +193,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
 
   const groups = new Map<string, string[]>();
   for (const f of discovery.files) {
-    const k = groupKey(toPosix(path.relative(discovery.root, f)));
+    const k = groupKey(toPosix(path.relative(discovery.root, f)), job ?? undefined, path.basename(discovery.root));
     groups.set(k, [...(groups.get(k) ?? []), f]);
   }
   const makeTask = (key: string, files: string[]): TaskInput => ({

@@ -21,12 +21,14 @@ function capture(pattern: string | undefined, relPath: string): string | null {
 
 /**
  * Identity of a file from its path (CONTRACT.md "Input folder"): unit = first subfolder below
- * the input root, else the file stem without beam and frequency tokens; beam = a beam<N>,
+ * the input root, else the file stem without beam and frequency tokens — and when nothing is
+ * left of the stem (`beam_3_28GHz.csv` directly in the folder analyzed), the name of that
+ * folder (`rootName`), so one unit's folder analyzed on its own is still one unit; beam = a beam<N>,
  * beam_<N>, beam-<N> or b<N> token, else the stem; frequency = a <number>GHz token, else none.
  * Job-file patterns (group 1, frequency in GHz) take precedence over these rules.
  * @example pathIdentity('PX-01/PX-01_beam_5_28GHz.csv') // unit 'PX-01', beam '5', 28e9 Hz
  */
-export function pathIdentity(relPath: string, job?: JobSpec): PathIdentity {
+export function pathIdentity(relPath: string, job?: JobSpec, rootName?: string): PathIdentity {
   const parts = relPath.split('/');
   const base = parts[parts.length - 1];
   const stem = base.replace(/\.[^.]*$/, '');
@@ -37,8 +39,9 @@ export function pathIdentity(relPath: string, job?: JobSpec): PathIdentity {
   rest = rest.replace(/^[_\-\s.]+|[_\-\s.]+$/g, '').replace(/([_\-.])[\s_\-.]+/g, '$1').replace(/\s+/g, '_');
 
   const sources: PathIdentity['sources'] = { unit: 'file-name', beam: 'file-name', frequency: 'none' };
-  let unit = parts.length > 1 ? parts[0] : rest || stem;
-  if (parts.length > 1) sources.unit = 'folder';
+  const fromFolder = parts.length > 1 || (rest === '' && !!rootName);
+  let unit = parts.length > 1 ? parts[0] : rest || rootName || stem;
+  if (fromFolder) sources.unit = 'folder';
   let beam = beamM ? (beamM[3] ?? beamM[4]) : stem;
   let frequencyHz = freqM ? Number(freqM[2].replace('p', '.')) * 1e9 : null;
   if (freqM) sources.frequency = 'file-name';

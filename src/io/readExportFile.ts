@@ -127,7 +127,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       result.errors.push(...errs.finish());
       return result;
     }
-    const id = pathIdentity(file, ctx.job);
+    const id = pathIdentity(file, ctx.job, path.basename(ctx.inputRoot));
     const meta = sniff.metadata;
     const identity = { ...id.sources };
     const metaUnit = meta.unit?.trim() || meta.dut?.trim() || meta.serial?.trim();

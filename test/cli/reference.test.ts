@@ -42,3 +42,14 @@ describe('--reference <folder>', () => {
     expect(r.stderr).toMatch(/--reference: no export files/);
   });
 });
+
+describe('one unit folder analyzed on its own', () => {
+  it('is one unit named after the folder, not one unit per beam file', () => {
+    const out = mkdtempSync(path.join(tmpdir(), 'spherecov-one-'));
+    const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', path.join(ROOT, 'fixtures', 'demo', 'RV28-P1-001'),
+      '--out', out, '--no-pdf', '--quiet'], { encoding: 'utf8' });
+    expect(r.status, r.stderr).toBe(0);
+    const res = JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8')) as ResultsFile;
+    expect(res.units.map((u) => [u.unit, u.beams.length])).toEqual([['RV28-P1-001', 16]]);
+  });
+});

@@ -24,6 +24,12 @@ describe('identity from the path (CONTRACT.md "Input folder")', () => {
     const id = pathIdentity(rel);
     expect([id.unit, id.beam, id.frequencyHz, id.sources.unit]).toEqual([unit, beam, f, src]);
   });
+  it('a stem that is only beam and frequency tokens takes the unit from the folder analyzed', () => {
+    // `spherecov analyze PX-07/` on one unit's folder: its files are beam_<N>_28GHz.csv
+    const id = pathIdentity('beam_3_28GHz.csv', undefined, 'PX-07');
+    expect([id.unit, id.beam, id.frequencyHz, id.sources.unit]).toEqual(['PX-07', '3', 28e9, 'folder']);
+    expect(pathIdentity('PX-02_beam_3.csv', undefined, 'lab').unit).toBe('PX-02'); // a stem that names the unit wins
+  });
   it('job-file patterns override the path rules', () => {
     const id = pathIdentity('run7/SN-0042__cw17__f27p9.csv', {
       source: 'x', identity: { unit: '(SN-\\d+)', beam: 'cw(\\d+)', frequencyGhz: 'f(\\d+)p' },
