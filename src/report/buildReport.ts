@@ -1,15 +1,27 @@
 import type { UnitResult } from '../types.js';
 import type { CdfCurve } from './cdfCurve.js';
-import { colorAt } from './colorMap.js';
+import { colorAt, colorMapLut, lutIndex } from './colorMap.js';
 import { drawColorBar, drawMapFrame, type MapBox } from './drawMap.js';
 import { fmt, fmtFrequency, pct, quantityLabel, verdictText } from './format.js';
-import { insideEllipse } from './mapRaster.js';
-import { paintPng } from './paintMap.js';
+import { insideEllipse, OUTSIDE } from './mapRaster.js';
+import { paintMapPng } from './paintMap.js';
 import { addFooters, contentWidth, createDoc, ensureSpace, finish, heading, INK, keyValues, MARGIN, MUTED, note, table, type Column } from './pdfDoc.js';
 import { drawCdfPlot, type CurveStyle } from './plots.js';
-import { getKeyed, unitKey, type BuildReportInput, type ReportSettings } from './reportTypes.js';
+import { getKeyed, unitKey, type BuildReportInput, type MapThumbnail, type ReportSettings } from './reportTypes.js';
 import { scaleT, valueScale } from './unitMaps.js';
 import { cdfLimitMarks } from './unitReport.js';
+
+/** A thumbnail's pixels painted with one colour scale (each pixel is its own "point"). */
+function thumbnailPng(t: MapThumbnail, entry: (v: number) => number, table: Uint8Array): Buffer {
+  const { width, height, values } = t;
+  const point = new Int32Array(width * height);
+  const colors = new Int16Array(width * height);
+  for (let k = 0; k < point.length; k++) {
+    point[k] = insideEllipse(k % width, Math.floor(k / width), width, height) ? k : OUTSIDE;
+    colors[k] = Number.isFinite(values[k]) ? entry(values[k]) : -1;
+  }
+  return paintMapPng(width, height, point, colors, table);
+}
 
 const label = (u: UnitResult) => `${u.unit}${u.frequencyHz === null ? '' : ` @ ${fmtFrequency(u.frequencyHz)}`}`;
 
@@ -119,10 +131,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
         y = MARGIN.top;
       }
       const box: MapBox = { x: MARGIN.left + col * (tw + gap), y: y + 12, w: tw, h: th };
-      const png = paintPng(t!.width, t!.height, (i) => {
-        const v = t!.values[i];
-        return Number.isFinite(v) ? colorAt(settings.colorMap, scaleT(sc, v)) : null;
-      }, (i) => !insideEllipse(i % t!.width, Math.floor(i / t!.width), t!.width, t!.height));
+      const png = thumbnailPng(t!, (v) => lutIndex(scaleT(sc, v)), colorMapLut(settings.colorMap));
       drawMapFrame(doc, box, png, t!.centerPhiDeg, false);
       doc.font(u.verdict === 'fail' ? 'B' : 'R').fontSize(7.5).fillColor(INK).text(`${label(u)} · ${verdictText(u.verdict)}`, box.x, y, { width: tw, lineBreak: false, ellipsis: true });
     });

@@ -88,9 +88,12 @@ export function colorMapLut(name: ColorMapName): Uint8Array {
   return LUTS[name];
 }
 
+/** Entry 0 … 255 of a lookup table for t ∈ [0, 1] (clamped); the rule colorAt uses. */
+export const lutIndex = (t: number): number => Math.round(255 * Math.min(1, Math.max(0, t)));
+
 /** Colour of t ∈ [0, 1] (clamped) from a colour map. */
 export function colorAt(name: ColorMapName, t: number): Rgb {
-  const i = 3 * Math.round(255 * Math.min(1, Math.max(0, t)));
+  const i = 3 * lutIndex(t);
   const lut = LUTS[name];
   return [lut[i], lut[i + 1], lut[i + 2]];
 }
@@ -123,6 +126,6 @@ function buildDiverging(): Uint8Array {
 export const DIVERGING_LUT = buildDiverging();
 
 export function divergingAt(t: number): Rgb {
-  const i = 3 * Math.round(255 * Math.min(1, Math.max(0, t)));
+  const i = 3 * lutIndex(t);
   return [DIVERGING_LUT[i], DIVERGING_LUT[i + 1], DIVERGING_LUT[i + 2]];
 }

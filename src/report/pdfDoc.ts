@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit';
-import { reportFonts } from './fonts.js';
+import { reportFontSources, shareLayoutCaches } from './fonts.js';
 import type { ReportSettings } from './reportTypes.js';
 
 export type Doc = PDFKit.PDFDocument;
@@ -30,9 +30,10 @@ export function createDoc(settings: ReportSettings, generatedAt: string, title: 
       CreationDate: Number.isNaN(created.getTime()) ? new Date(0) : created,
     },
   });
-  const fonts = reportFonts();
+  const fonts = reportFontSources();
   doc.registerFont('R', fonts.regular);
   doc.registerFont('B', fonts.bold);
+  shareLayoutCaches(doc, ['B', 'R']);
   doc.font('R').fontSize(9).fillColor(INK);
   return doc;
 }

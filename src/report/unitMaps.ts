@@ -1,8 +1,10 @@
 import type { Measurement, Quantity, TotalScanPattern } from '../types.js';
-import { CATEGORICAL, colorAt, divergingAt, type ColorMapName, type Rgb } from './colorMap.js';
+import { CATEGORICAL, colorMapLut, DIVERGING_LUT, lutIndex, type ColorMapName, type Rgb } from './colorMap.js';
 import { niceRange } from './format.js';
-import { classBoundaries, rasterizeGrid, type MapRaster } from './mapRaster.js';
-import { paintPng } from './paintMap.js';
+import { classBoundaries, type MapRaster } from './mapRaster.js';
+import { colorTable, paintMapPng } from './paintMap.js';
+import { cachedRaster } from './rasterCache.js';
+import { rememberUnitRaster } from './thumbnail.js';
 
 /** A value → colour scale with best at t = 1 (top of the bar) for every quantity. */
 /** Differences to the reference beyond ± this many dB are outlined on the difference map. */
@@ -57,35 +59,49 @@ function finiteRange(values: ArrayLike<number>): [number, number] {
   return Number.isFinite(lo) ? [lo, hi] : [0, 1];
 }
 
-/** Rasterize the unit's grid once and paint the TSP, best-beam and (optional) difference maps. */
+/** Per grid point: the colour-table entry of its value, or −1 when the value is not finite. */
+function pointColors(values: ArrayLike<number>, entry: (v: number) => number): Int16Array {
+  const out = new Int16Array(values.length);
+  for (let p = 0; p < values.length; p++) out[p] = Number.isFinite(values[p]) ? entry(values[p]) : -1;
+  return out;
+}
+
+/** Per pixel: the class of the grid point it shows, −1 where unmeasured or outside (for classBoundaries). */
+function pixelClasses(point: Int32Array, classOf: ArrayLike<number>): Int32Array {
+  const cls = new Int32Array(point.length);
+  for (let k = 0; k < point.length; k++) {
+    const p = point[k];
+    cls[k] = p < 0 ? -1 : classOf[p];
+  }
+  return cls;
+}
+
+const BEAM_TABLE = colorTable(CATEGORICAL);
+
+/**
+ * Rasterize the unit's grid once (shared with other units on the same grid, cachedRaster) and
+ * paint the TSP, best-beam and (optional) difference maps. Colours are chosen per grid point and
+ * looked up per pixel. Cost: O(pixels) a map plus the PNG deflate.
+ */
 export function buildUnitMaps(
   m: Measurement,
   tsp: TotalScanPattern,
   opts: { widthPx: number; centerPhiDeg: number; colorMap: ColorMapName; threshold: number | null; delta?: Float64Array },
 ): UnitMaps {
-  const raster = rasterizeGrid(m.grid, opts.widthPx, opts.centerPhiDeg);
+  const raster = cachedRaster(m.grid, opts.widthPx, opts.centerPhiDeg);
+  rememberUnitRaster(tsp, raster);
   const { point, width, height } = raster;
-  const outside = (k: number) => point[k] === -2;
   const [lo, hi] = finiteRange(tsp.values);
   const scale = valueScale(lo, hi, m.quantity);
-  const tspPng = paintPng(width, height, (k) => {
-    const p = point[k];
-    if (p < 0 || !Number.isFinite(tsp.values[p])) return null;
-    return colorAt(opts.colorMap, scaleT(scale, tsp.values[p]));
-  }, outside);
-  const bestPng = paintPng(width, height, (k) => (point[k] < 0 || tsp.bestBeam[point[k]] < 0 ? null : beamColor(tsp.bestBeam[point[k]])), outside);
-  const bestCls = new Int32Array(point.length);
-  for (let k = 0; k < point.length; k++) bestCls[k] = point[k] < 0 ? -1 : tsp.bestBeam[point[k]];
-  const bestEdges = classBoundaries(bestCls, width, height);
+  const tspPng = paintMapPng(width, height, point, pointColors(tsp.values, (v) => lutIndex(scaleT(scale, v))), colorMapLut(opts.colorMap));
+  const beamOf = Int16Array.from(tsp.bestBeam, (b) => (b < 0 ? -1 : b % CATEGORICAL.length));
+  const bestPng = paintMapPng(width, height, point, beamOf, BEAM_TABLE);
+  const bestEdges = classBoundaries(pixelClasses(point, tsp.bestBeam), width, height);
   let contour: number[] | null = null;
   if (opts.threshold !== null) {
-    const cls = new Int32Array(point.length);
     const t = opts.threshold;
-    for (let k = 0; k < point.length; k++) {
-      const p = point[k];
-      cls[k] = p < 0 || !Number.isFinite(tsp.values[p]) ? -1 : better(m.quantity, tsp.values[p], t) ? 1 : 0;
-    }
-    contour = classBoundaries(cls, width, height);
+    const side = Int32Array.from(tsp.values, (v) => (!Number.isFinite(v) ? -1 : better(m.quantity, v, t) ? 1 : 0));
+    contour = classBoundaries(pixelClasses(point, side), width, height);
   }
   let deltaPng: Buffer | null = null;
   let deltaMaxDb = 0;
@@ -93,19 +109,13 @@ export function buildUnitMaps(
   const delta = opts.delta;
   if (delta && delta.length === m.grid.thetaDeg.length) {
     const [dlo, dhi] = finiteRange(delta);
-    deltaMaxDb = niceRange(0, Math.max(Math.abs(dlo), Math.abs(dhi), 0.5), 4).hi;
-    deltaPng = paintPng(width, height, (k) => {
-      const p = point[k];
-      return p < 0 || !Number.isFinite(delta[p]) ? null : divergingAt(0.5 + delta[p] / (2 * deltaMaxDb));
-    }, outside);
-    const cls = new Int32Array(point.length);
+    const dMax = niceRange(0, Math.max(Math.abs(dlo), Math.abs(dhi), 0.5), 4).hi;
+    deltaMaxDb = dMax;
+    deltaPng = paintMapPng(width, height, point, pointColors(delta, (d) => lutIndex(0.5 + d / (2 * dMax))), DIVERGING_LUT);
     // Outline where the units differ by more than the repeatability of an OTA measurement
     // (about ±1 dB, common practice); a zero-difference line would only trace the noise.
-    for (let k = 0; k < point.length; k++) {
-      const d = point[k] < 0 ? NaN : delta[point[k]];
-      cls[k] = !Number.isFinite(d) ? -1 : d >= DELTA_OUTLINE_DB ? 2 : d <= -DELTA_OUTLINE_DB ? 0 : 1;
-    }
-    deltaEdges = classBoundaries(cls, width, height);
+    const side = Int32Array.from(delta, (d) => (!Number.isFinite(d) ? -1 : d >= DELTA_OUTLINE_DB ? 2 : d <= -DELTA_OUTLINE_DB ? 0 : 1));
+    deltaEdges = classBoundaries(pixelClasses(point, side), width, height);
   }
   return { raster, tspPng, scale, bestPng, bestEdges, contour, deltaPng, deltaMaxDb, deltaEdges };
 }
