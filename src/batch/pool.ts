@@ -1,6 +1,13 @@
 /**
- * Runs tasks on worker threads (or in-process) and returns the outputs in task order, so the
- * result never depends on how many workers ran or which finished first.
+ * Runs tasks on the main thread and on worker threads, and returns the outputs in task order, so
+ * the result never depends on how many threads ran or which finished first.
+ *
+ * With `jobs` = N the main thread is one of the N lanes and N − 1 workers are started (none when
+ * there is only one task): a worker pays its own module loading, font parsing and JIT warm-up
+ * (about as much CPU as a few units), which the main thread has already paid or pays anyway.
+ * Tasks are handed out one at a time from a shared counter (the next free lane takes the next
+ * task); each worker holds up to two tasks, so it does not sit idle while the main thread is busy
+ * with a task of its own and cannot answer at once.
  */
 import { Worker } from 'node:worker_threads';
 import { existsSync } from 'node:fs';
@@ -24,6 +31,11 @@ function workerPath(): string | null {
   return existsSync(p) ? p : null;
 }
 
+/** Tasks a worker holds at once (one running, one waiting) while enough work is left. */
+const WORKER_DEPTH = 2;
+
+interface Reply { id: number; ok: boolean; out?: TaskOutput; message?: string }
+
 export class TaskPool {
   private workers: Worker[] = [];
 
@@ -34,25 +46,79 @@ export class TaskPool {
     await Promise.all(ws.map((w) => w.terminate()));
   }
 
-  /** Run all tasks with up to `jobs` in parallel; outputs in the order of `tasks`. */
+  /** Run all tasks with up to `jobs` in parallel (main thread included); outputs in the order of `tasks`. */
   async run(tasks: TaskInput[], jobs: number, hooks: PoolHooks = {}): Promise<TaskOutput[]> {
     const script = workerPath();
-    const n = Math.max(1, Math.min(jobs, tasks.length));
-    if (n === 1 || script === null) return this.runInProcess(tasks, hooks);
+    const lanes = Math.max(1, Math.min(Math.floor(jobs) || 1, tasks.length));
+    if (lanes === 1 || script === null) return this.runInProcess(tasks, hooks);
     const outputs: TaskOutput[] = new Array(tasks.length);
     let next = 0;
-    const lane = async (worker: Worker): Promise<void> => {
-      for (;;) {
-        if (hooks.aborted?.() || next >= tasks.length) return;
-        const i = next++;
+    let failed = false;
+    const stop = () => failed || hooks.aborted?.() === true;
+    const take = (): number | null => (stop() || next >= tasks.length ? null : next++);
+    const finish = (i: number, out: TaskOutput) => {
+      outputs[i] = out;
+      hooks.onDone?.(tasks[i], out);
+    };
+
+    const mainLane = async (): Promise<void> => {
+      for (let i = take(); i !== null; i = take()) {
         hooks.onStart?.(tasks[i]);
-        outputs[i] = await this.send(worker, i, tasks[i]);
-        hooks.onDone?.(tasks[i], outputs[i]);
+        finish(i, await safeRunTask(tasks[i]));
       }
     };
-    this.workers = Array.from({ length: n }, () => new Worker(script));
+
+    const workerLane = (worker: Worker): Promise<void> =>
+      new Promise((resolve, reject) => {
+        const held = new Map<number, TaskInput>();
+        const fail = (e: TaskFailure) => {
+          failed = true;
+          worker.off('message', onMessage);
+          worker.off('error', onError);
+          worker.off('exit', onExit);
+          reject(e);
+        };
+        const refill = () => {
+          // Hold two tasks while the others can still be shared out, one near the end, so the
+          // last tasks are not queued behind each other on one worker while another lane idles.
+          const depth = tasks.length - next > lanes ? WORKER_DEPTH : 1;
+          while (held.size < depth) {
+            const i = take();
+            if (i === null) break;
+            held.set(i, tasks[i]);
+            hooks.onStart?.(tasks[i]);
+            worker.postMessage({ id: i, task: tasks[i] });
+          }
+          if (held.size === 0) {
+            worker.off('message', onMessage);
+            worker.off('error', onError);
+            worker.off('exit', onExit);
+            resolve();
+          }
+        };
+        const onMessage = (msg: Reply) => {
+          const task = held.get(msg.id);
+          if (!task) return;
+          held.delete(msg.id);
+          if (!msg.ok || !msg.out) return fail(new TaskFailure(`analysis of '${task.key}' failed: ${msg.message ?? 'unknown error'}`));
+          finish(msg.id, msg.out);
+          refill();
+        };
+        const first = () => [...held.values()][0]?.key ?? '(no task)';
+        const onError = (e: Error) => fail(new TaskFailure(`analysis of '${first()}' failed: ${e.message}`));
+        const onExit = (code: number) => fail(new TaskFailure(`worker for '${first()}' stopped (exit ${code})`));
+        worker.on('message', onMessage);
+        worker.on('error', onError);
+        worker.on('exit', onExit);
+        refill();
+      });
+
+    this.workers = Array.from({ length: lanes - 1 }, () => new Worker(script));
     try {
-      await Promise.all(this.workers.map(lane));
+      const all = [mainLane(), ...this.workers.map(workerLane)];
+      const settled = await Promise.allSettled(all);
+      const rejected = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
+      if (rejected) throw rejected.reason;
     } finally {
       await this.terminate();
     }
@@ -69,33 +135,5 @@ export class TaskPool {
       hooks.onDone?.(t, out);
     }
     return outputs;
-  }
-
-  private send(worker: Worker, id: number, task: TaskInput): Promise<TaskOutput> {
-    return new Promise((resolve, reject) => {
-      const cleanup = () => {
-        worker.off('message', onMessage);
-        worker.off('error', onError);
-        worker.off('exit', onExit);
-      };
-      const onMessage = (msg: { id: number; ok: boolean; out?: TaskOutput; message?: string }) => {
-        if (msg.id !== id) return;
-        cleanup();
-        if (msg.ok && msg.out) resolve(msg.out);
-        else reject(new TaskFailure(`analysis of '${task.key}' failed: ${msg.message ?? 'unknown error'}`));
-      };
-      const onError = (e: Error) => {
-        cleanup();
-        reject(new TaskFailure(`analysis of '${task.key}' failed: ${e.message}`));
-      };
-      const onExit = (code: number) => {
-        cleanup();
-        reject(new TaskFailure(`worker for '${task.key}' stopped (exit ${code})`));
-      };
-      worker.on('message', onMessage);
-      worker.on('error', onError);
-      worker.on('exit', onExit);
-      worker.postMessage({ id, task });
-    });
   }
 }
