@@ -80,7 +80,7 @@ export function beamRemoval(
         lost = t;
       }
     }
-    const rest = beams.length > 1 ? (changed.length === 0 ? full : finite(patched.evaluate(changed, changed.length, secondVal))) : null;
+    const rest = beams.length > 1 ? (changed.length === 0 ? full : finite(patched.evaluate(changed, changed.length, secondVal) ?? null)) : null;
     const percentileLossDb = full === null || rest === null ? null : lowerIsBetter ? rest - full : full - rest; // Eq. 1
     return { percentileLossDb, coverageLoss: threshold === null ? null : (lost + c) / sphereSr };
   });

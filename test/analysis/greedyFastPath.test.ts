@@ -121,13 +121,26 @@ describe('createPatchedPercentile = selector on the patched copy', () => {
           const expected = select(copy);
           expect(evaluator.evaluate(points, points.length, patch)).toBe(expected);
           expect(evaluator.evaluateWhole(copy, -10, 30)).toBe(expected);
-          // Window promise: move the points whose old and new values are both outside [lowCut, highCut] to the end.
+          // Window promise: points whose old and new values are both outside [lowCut, highCut] go to
+          // the rest list (applied only where better), with stale points whose patch is not better.
           if (expected !== null) {
+            const better = (i: number) => (quantity === 'eis' ? patch[i] < base[i] : patch[i] > base[i]);
             const lowCut = expected - 3 * rnd(), highCut = expected + 3 * rnd();
             const outside = (i: number) => (base[i] < lowCut && patch[i] < lowCut) || (base[i] > highCut && patch[i] > highCut);
-            const ordered = Int32Array.from([...points.filter((i) => !outside(i)), ...points.filter(outside)]);
-            const relevant = points.filter((i) => !outside(i)).length;
-            expect(evaluator.evaluate(ordered, ordered.length, patch, relevant, lowCut, highCut)).toBe(expected);
+            const all = Array.from({ length: n }, (_, i) => i);
+            const inside = Int32Array.from(all.filter((i) => better(i) && !outside(i)));
+            const rest = Int32Array.from([-1, -1, ...all.filter((i) => !better(i) || outside(i))]); // from index 2
+            const merged = Float64Array.from(base, (b, i) => (better(i) ? patch[i] : b));
+            const want = select(merged);
+            expect(evaluator.evaluate(inside, inside.length, patch, lowCut, highCut, -Infinity, Infinity, rest, 2)).toBe(want);
+            // Of no interest below/above a bound: undefined only when the value really is beyond it.
+            if (want !== null) {
+              const bound = want + (rnd() - 0.5) * 4;
+              const low = evaluator.evaluate(inside, inside.length, patch, lowCut, highCut, bound, Infinity, rest, 2);
+              expect(low === undefined ? want < bound : low === want).toBe(true);
+              const high = evaluator.evaluate(inside, inside.length, patch, lowCut, highCut, -Infinity, bound, rest, 2);
+              expect(high === undefined ? want > bound : high === want).toBe(true);
+            }
           }
           fastSeen += evaluator.stats.fast;
           referenceSeen += evaluator.stats.reference;
