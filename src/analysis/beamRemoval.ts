@@ -38,16 +38,17 @@ export function beamRemoval(
   for (const b of beams) if (b.length !== n) throw new Error(`beamRemoval: beam of ${b.length} values on a grid of ${n}`);
   const lowerIsBetter = quantity === 'eis';
   const worst = lowerIsBetter ? Infinity : -Infinity;
-  const better = (a: number, b: number): boolean => (lowerIsBetter ? a < b : a > b);
   const bestIdx = new Int32Array(n), bestVal = new Float64Array(n), secondVal = new Float64Array(n).fill(worst);
-  for (let i = 0; i < n; i++) {
-    let bi = 0, bv = beams[0][i], sv = worst;
-    for (let k = 1; k < beams.length; k++) {
-      const v = beams[k][i];
-      if (better(v, bv)) { sv = bv; bv = v; bi = k; }
-      else if (!better(sv, v)) sv = v; // ≥ (eis: ≤) so an equal runner-up is kept
+  // Beam by beam (sequential memory), the same per-point rule in the same beam order as a
+  // point-by-point scan: a strictly better value takes the lead, an equal-or-better one the second place.
+  bestVal.set(beams[0]);
+  for (let k = 1; k < beams.length; k++) {
+    const b = beams[k];
+    for (let i = 0; i < n; i++) {
+      const v = b[i], bv = bestVal[i];
+      if (lowerIsBetter ? v < bv : v > bv) { secondVal[i] = bv; bestVal[i] = v; bestIdx[i] = k; }
+      else if (!(lowerIsBetter ? secondVal[i] < v : secondVal[i] > v)) secondVal[i] = v; // ≥ (eis: ≤) so an equal runner-up is kept
     }
-    bestIdx[i] = bi; bestVal[i] = bv; secondVal[i] = sv;
   }
   const select = createPercentileSelector(grid.weightSr, quantity, levelPct);
   const finite = (v: number | null): number | null => (v === null || !Number.isFinite(v) ? null : v);
