@@ -2,7 +2,7 @@
  * One run at a time per output folder: a lock file holding the owner's pid. A lock whose pid
  * no longer runs is stale (a killed run) and is taken over.
  */
-import { linkSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { linkSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
 export const LOCK_NAME = '.spherecov.lock';
@@ -19,13 +19,38 @@ function alive(pid: number): boolean {
   }
 }
 
+/** The lock file's text, or null when it does not exist (any more). */
+function readText(file: string): string | null {
+  try {
+    return readFileSync(file, 'utf8');
+  } catch {
+    return null;
+  }
+}
+
+/** The pid of a live owner named in a lock text, or null when the lock is stale. */
+function livePid(text: string): number | null {
+  let pid = NaN;
+  try {
+    pid = Number((JSON.parse(text) as { pid?: unknown }).pid);
+  } catch {
+    pid = NaN; // unreadable lock: not one of ours (ours are complete before they appear), so stale
+  }
+  return Number.isInteger(pid) && pid > 0 && pid !== process.pid && alive(pid) ? pid : null;
+}
+
+function busy(pid: number, dir: string): LockBusyError {
+  const who = Number.isFinite(pid) ? `another spherecov run (pid ${pid})` : 'another spherecov run';
+  return new LockBusyError(`${who} is writing to '${dir}'; wait for it to finish, or choose another --out`);
+}
+
 /**
  * Take the lock of `dir`, or throw LockBusyError with a message in plain words.
  * Returns the release function (idempotent).
  */
 export function acquireLock(dir: string): () => void {
   const file = path.join(dir, LOCK_NAME);
-  for (let attempt = 0; attempt < 2; attempt++) {
+  for (let attempt = 0; attempt < 5; attempt++) {
     // The lock appears under its name complete or not at all: written to a private file first,
     // then hard-linked into place (link fails with EEXIST if the name is taken, atomically), so
     // a competing run can never read a live lock while it is still empty.
@@ -45,18 +70,32 @@ export function acquireLock(dir: string): () => void {
       };
     } catch (e) {
       if ((e as NodeJS.ErrnoException).code !== 'EEXIST') throw e;
-      let pid = NaN;
+      const seen = readText(file);
+      if (seen === null) continue; // released between our link and our read: try again
+      const owner = livePid(seen);
+      if (owner !== null) throw busy(owner, dir);
+      // Stale. Two runs may both find it stale: taking it over by deleting it would let the later
+      // one delete the earlier one's fresh lock. So move it aside under a private name (atomic;
+      // only one run gets any given file), and check that what we moved is the stale lock we read.
+      const aside = `${file}.${process.pid}.stale`;
       try {
-        pid = Number((JSON.parse(readFileSync(file, 'utf8')) as { pid?: unknown }).pid);
-      } catch {
-        pid = NaN; // unreadable lock: not one of ours (ours are complete before they appear), so stale
+        renameSync(file, aside);
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code === 'ENOENT') continue;
+        throw err;
       }
-      if (Number.isInteger(pid) && pid > 0 && pid !== process.pid && alive(pid)) {
-        throw new LockBusyError(
-          `another spherecov run (pid ${pid}) is writing to '${dir}'; wait for it to finish, or choose another --out`,
-        );
+      const moved = readText(aside);
+      if (moved !== seen) {
+        // We moved another run's fresh lock: put it back and yield to that run.
+        try {
+          linkSync(aside, file);
+        } catch {
+          // a third run took the name meanwhile; the lock stays taken either way
+        }
+        rmSync(aside, { force: true });
+        throw busy(livePid(moved ?? '') ?? NaN, dir);
       }
-      rmSync(file, { force: true });
+      rmSync(aside, { force: true });
     }
   }
   throw new LockBusyError(`could not take the lock '${file}'; another run may have started at the same moment`);
