@@ -170,7 +170,7 @@ export async function renderUnit(
   );
   return {
     result,
-    thumbnail: unitMapThumbnail(m, tsp),
+    thumbnail: unitMapThumbnail(m, tsp, undefined, input.report.mapCenterPhiDeg),
     cdf: cdfCurve(tsp.values, m.grid.weightSr, m.quantity),
     pdf: new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength),
   };
