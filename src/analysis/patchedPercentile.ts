@@ -44,7 +44,7 @@ export function createPatchedPercentile(
   const bins = Math.max(64, Math.ceil(n / 16)), last = bins + 1;
   const margin = (6 * n + 2 * bins + 64) * ROUND * Math.max(plan.sphereSr, plan.measuredSr);
   const size = fast ? n : 0;
-  const pointBin = new Int32Array(size), members = new Int32Array(size), mark = new Int32Array(size), newBin = new Int32Array(size), oldBin = new Int32Array(size);
+  const pointBin = new Int32Array(size), members = new Int32Array(size), mark = new Int32Array(size), newBin = new Int32Array(size);
   const start = new Int32Array(fast ? bins + 3 : 0);
   const mass = new Float64Array(fast ? bins + 2 : 0), cur = new Float64Array(fast ? bins + 2 : 0);
   const gv = new Float64Array(size), gw = new Float64Array(size);
@@ -146,7 +146,7 @@ export function createPatchedPercentile(
         nb = nb < 0 ? 1 : nb >= bins ? bins : nb + 1;
         if (v === -Infinity) nb = 0; else if (v === Infinity) nb = last;
         newBin[j] = nb;
-        oldBin[j] = ob;
+        mark[i] = stamp;
         cur[ob] -= w;
         cur[nb] += w;
         if (ob < k0) movedBelow -= w;
@@ -162,7 +162,6 @@ export function createPatchedPercentile(
       }
       if (k < 0) return viaReference(points, relevant, patch, rest, restFrom);
       st.crossCum = cum;
-      for (let j = 0; j < relevant; j++) if (oldBin[j] === k) mark[points[j]] = stamp; // patched members of bin k
       // Dropped points sit wholly outside [lowCut, highCut], so masses at bounds inside it are exact.
       if (outside(k, lo, inv, below >= lowCut && below <= highCut ? below : -Infinity, above >= lowCut && above <= highCut ? above : Infinity)) { stats.fast++; return undefined; }
       let g = 0;
