@@ -23,7 +23,11 @@ const results = JSON.parse(readFileSync(join(out, 'results.json'), 'utf8'));
 const fmt = (v, d = 1) => (v === null || v === undefined ? '—' : Number(v).toFixed(d));
 const rows = results.units.map((u) => {
   const ghz = u.frequencyHz === null ? '—' : (u.frequencyHz / 1e9).toFixed(2);
-  const worst = u.worstCheck ? `${u.worstCheck.name} (${fmt(u.worstCheck.margin)} dB)` : '—';
+  const w = u.worstCheck;
+  const margin = !w ? '' : w.marginUnit === 'fraction'
+    ? `${fmt(100 * w.margin)} pt of 4π${w.marginDb == null ? '' : `, ${fmt(w.marginDb)} dB`}`
+    : `${fmt(w.margin)} dB`;
+  const worst = w ? `${w.name} (${margin})` : '—';
   return [u.unit, ghz, fmt(u.tsp.peak.value), u.verdict.toUpperCase(), worst];
 });
 const head = ['unit', 'GHz', 'peak', 'verdict', 'worst check (margin)'];

@@ -193,6 +193,12 @@ export interface CheckResult {
   bound?: 'lower' | 'upper';
   /** Unit of value, limit and margin: dB (dBm/dBi) for most checks, 'fraction' of 4π for min-coverage. */
   marginUnit?: 'dB' | 'fraction';
+  /**
+   * min-coverage only: the same margin in dB, i.e. how far the threshold could move before the
+   * efficiency falls to the minimum (the TSP value at the matching CDF level minus the relaxed
+   * threshold); null when that level was not computed. Lets coverage checks be ranked with dB checks.
+   */
+  marginDb?: number | null;
   /** percentile checks: the CDF level judged. */
   levelPct?: number;
   /** min-coverage checks: the threshold actually used (the written one relaxed by the tolerance). */
@@ -257,7 +263,7 @@ export interface UnitResult {
   };
   checks: CheckResult[];
   verdict: Verdict;
-  worstCheck: { name: string; margin: number } | null;
+  worstCheck: { name: string; margin: number; marginUnit?: 'dB' | 'fraction'; marginDb?: number | null } | null;
   warnings: string[];
   grid: GridSummary;
   sources: SourceFile[];

@@ -39,7 +39,7 @@ export function summaryCsv(units: UnitResult[]): string {
     ...levels.map((l) => `p${num(l)}`),
     ...thresholds.map((t) => `coverage_at_${num(t)}`),
     ...rel.map((d) => `coverage_within_${num(d)}db_of_peak`),
-    'peak_beam', 'peak_beam_trp_dbm', 'verdict', 'checks_failed', 'checks_not_evaluable', 'worst_check', 'worst_margin',
+    'peak_beam', 'peak_beam_trp_dbm', 'verdict', 'checks_failed', 'checks_not_evaluable', 'worst_check', 'worst_margin', 'worst_margin_unit', 'worst_margin_db',
   ];
   const rows: CsvCell[][] = units.map((u) => {
     const pb = peakBeam(u);
@@ -51,7 +51,8 @@ export function summaryCsv(units: UnitResult[]): string {
       ...rel.map((d) => u.tsp.relativeCoverage.find((c) => c.dbBelowPeak === d)?.efficiency ?? null),
       pb?.id ?? null, pb?.trpDbm ?? null, u.verdict,
       u.checks.filter((c) => c.status === 'fail').length, u.checks.filter((c) => c.status === 'not-evaluable').length,
-      u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null,
+      u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null, u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,
+      u.worstCheck ? (u.worstCheck.marginUnit === 'fraction' ? u.worstCheck.marginDb ?? null : u.worstCheck.margin) : null,
     ];
   });
   return toCsv(header, rows);

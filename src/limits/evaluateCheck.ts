@@ -61,6 +61,11 @@ export function evaluateCheck(check: LimitCheck, metrics: CoverageMetrics, quant
       if (!c) return { ...notEvaluable(`coverage at ${t} ${unit} was not computed`), ...extra };
       value = c.efficiency;
       if (tol > 0) extra.note = `threshold ${check.threshold} ${unit} relaxed by ${tol} dB to ${t} ${unit}`;
+      // Coverage ≥ e at t ⇔ the value at CDF level (1 − e) reaches t (eirp/gain); for eis the value
+      // at level e stays at or below t (Eq. L4; equal up to the step of the CDF at the boundary).
+      const level = coverageLevelPct(check.minEfficiency, quantity);
+      const v = metrics.percentiles.find((x) => Math.abs(x.levelPct - level) < MATCH_EPS)?.value ?? null;
+      extra.marginDb = v === null ? null : snap(quantity === 'eis' ? t - v : v - t); // Eq. L4
       break;
     }
     case 'min-beam-peak':
@@ -90,4 +95,13 @@ export function evaluateCheck(check: LimitCheck, metrics: CoverageMetrics, quant
   const margin = snap(bound === 'lower' ? value - effectiveLimit : effectiveLimit - value); // Eq. L2
   const pass = margin >= 0;
   return { ...base, ...extra, value, margin, pass, status: pass ? 'pass' : 'fail' };
+}
+
+/**
+ * The CDF level that a min-coverage check is equivalent to (Eq. L4): (1 − e)·100 % for eirp/gain
+ * (the value there must reach the threshold), e·100 % for eis (the value there must not exceed it).
+ * @example coverageLevelPct(0.55, 'eirp') // 45
+ */
+export function coverageLevelPct(minEfficiency: number, quantity: Quantity): number {
+  return snap(100 * (quantity === 'eis' ? minEfficiency : 1 - minEfficiency));
 }

@@ -1,11 +1,11 @@
-import type { CheckResult, CoverageMetrics, Quantity, Verdict } from '../types.js';
+import type { CheckResult, CoverageMetrics, Quantity, UnitResult, Verdict } from '../types.js';
 import type { LimitSet } from './limitSet.js';
 import { evaluateCheck } from './evaluateCheck.js';
 
 export interface JudgeResult {
   checks: CheckResult[];
   verdict: Verdict;
-  worstCheck: { name: string; margin: number } | null;
+  worstCheck: UnitResult['worstCheck'];
 }
 
 /**
@@ -16,9 +16,9 @@ export interface JudgeResult {
  * passed; otherwise 'none' (no checks, or some not evaluable and none failed: a pass cannot be
  * claimed for what was not judged).
  *
- * worstCheck: among evaluated checks, failed ones first, then the smallest margin. Margins of
- * min-coverage checks are fractions of 4π, the others dB; they are compared as plain numbers,
- * so read worstCheck as a pointer and the checks list for the full story.
+ * worstCheck: among evaluated checks, failed ones first, then the smallest margin in dB. A
+ * min-coverage check's margin is a fraction of 4π; it is ranked by its dB equivalent (marginDb,
+ * Eq. L4 of evaluateCheck) when that level was computed, else by the fraction as a plain number.
  *
  * Cost O(checks × metrics).
  * @example judge(metrics, { ...ls, checks: [] }, { quantity: 'eirp', fullSphere: true }).verdict // 'none'
@@ -30,10 +30,17 @@ export function judge(metrics: CoverageMetrics, ls: LimitSet,
   const allPass = checks.length > 0 && checks.every((c) => c.status === 'pass');
   const verdict: Verdict = anyFail ? 'fail' : allPass ? 'pass' : 'none';
   let worst: CheckResult | null = null;
+  const rank = (c: CheckResult): number => (c.marginDb ?? c.margin) as number;
   for (const c of checks) {
     if (c.margin === null) continue;
     if (!worst || (c.pass === false && worst.pass === true)
-      || (c.pass === worst.pass && c.margin < (worst.margin as number))) worst = c;
+      || (c.pass === worst.pass && rank(c) < rank(worst))) worst = c;
   }
-  return { checks, verdict, worstCheck: worst ? { name: worst.name, margin: worst.margin as number } : null };
+  return {
+    checks,
+    verdict,
+    worstCheck: worst
+      ? { name: worst.name, margin: worst.margin as number, marginUnit: worst.marginUnit ?? 'dB', ...(worst.marginDb === undefined ? {} : { marginDb: worst.marginDb }) }
+      : null,
+  };
 }

@@ -1,9 +1,11 @@
 import type { LimitSet } from './limitSet.js';
+import { coverageLevelPct } from './evaluateCheck.js';
 
 /**
  * What the batch must compute so every check can be judged: the CDF levels of percentile checks
  * and the coverage thresholds of min-coverage checks, both as written and relaxed by the test
- * tolerance (Eq. L3 of evaluateCheck: t − tol for eirp/gain, t + tol for eis), sorted, unique.
+ * tolerance (Eq. L3 of evaluateCheck: t − tol for eirp/gain, t + tol for eis), and the CDF level
+ * each coverage check is equivalent to (Eq. L4, for its margin in dB), sorted, unique.
  *
  * Cost O(checks log checks).
  * @example metricNeeds(ls) // { percentilesPct: [50], thresholds: [9, 10] }
@@ -16,6 +18,7 @@ export function metricNeeds(ls: LimitSet): { percentilesPct: number[]; threshold
     if (c.kind === 'percentile') levels.add(c.levelPct);
     if (c.kind === 'min-coverage') {
       thresholds.add(c.threshold);
+      levels.add(coverageLevelPct(c.minEfficiency, ls.quantity)); // for the check's margin in dB (Eq. L4)
       thresholds.add(snap(ls.quantity === 'eis' ? c.threshold + c.toleranceDb : c.threshold - c.toleranceDb)); // Eq. L3
     }
   }

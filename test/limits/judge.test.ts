@@ -11,6 +11,22 @@ const EPS = 1e-9;
 const m = metricsFixture();
 const ev = (c: LimitCheck, q: 'eirp' | 'eis' | 'gain' = 'eirp', full = true) => evaluateCheck(c, m, q, full);
 
+describe('coverage margins in dB (Eq. L4) and the worst-check ranking', () => {
+  it('min-coverage ≥ 50 % at 10 dBm ⇔ the 50 % level (11.0) reaches 10: margin 0.05 of 4π, 1.0 dB', () => {
+    const r = ev({ kind: 'min-coverage', name: 'cov', threshold: 10, minEfficiency: 0.5, toleranceDb: 0 });
+    expectClose(r.margin as number, 0.05, EPS, 'efficiency 0.55 − 0.5');
+    expectClose(r.marginDb as number, 1.0, EPS, '50 % value 11.0 − threshold 10');
+    expect(ev({ kind: 'min-coverage', name: 'cov', threshold: 10, minEfficiency: 0.3, toleranceDb: 0 }).marginDb).toBeNull(); // 70 % not computed
+  });
+  it('ranks a coverage check by its dB margin, not by its fraction', () => {
+    const ls: LimitSet = { name: 'r', description: '', source: 's', quantity: 'eirp', checks: [
+      { kind: 'min-coverage', name: 'cov', threshold: 10, minEfficiency: 0.5, toleranceDb: 0 }, // 0.05 of 4π = 1.0 dB
+      { kind: 'min-peak', name: 'peak', limit: 22.4, toleranceDb: 0 }, // 0.6 dB
+    ] };
+    expect(judge(m, ls, { quantity: 'eirp', fullSphere: true }).worstCheck).toEqual({ name: 'peak', margin: 0.6, marginUnit: 'dB' });
+  });
+});
+
 describe('evaluateCheck, one check kind at a time (eirp)', () => {
   it('min-peak: peak 23.0 vs limit 22.4 with 0.5 dB tolerance → effective 21.9, margin 1.1', () => {
     const r = ev({ kind: 'min-peak', name: 'p', limit: 22.4, toleranceDb: 0.5 });
@@ -138,7 +154,7 @@ describe('judge: verdict and worst check', () => {
   it('fail when any check fails, even beside a not-evaluable one; worst is the failed check', () => {
     const r = judge(m, ls([pctNE, peakOk, trpBad]), ctx);
     expect(r.verdict).toBe('fail');
-    expect(r.worstCheck).toEqual({ name: 'trp', margin: -0.5 });
+    expect(r.worstCheck).toEqual({ name: 'trp', margin: -0.5, marginUnit: 'dB' });
     expect(r.checks.map((c) => c.status)).toEqual(['not-evaluable', 'pass', 'fail']);
   });
   it('a limit set for another quantity judges nothing', () => {

@@ -135,10 +135,11 @@ describe('merge, needs, listing', () => {
       message: "limits.extraChecks[0].limit: found 'high', expected a number" }]);
     expect(validateExtraChecks({}, 'job.yaml', 'eirp').errors[0].message).toBe('limits.extraChecks: found a mapping, expected a list of checks');
   });
-  it('metricNeeds lists percentile levels and both written and relaxed thresholds', () => {
-    expect(metricNeeds(base)).toEqual({ percentilesPct: [50], thresholds: [9.5, 10] });
+  it('metricNeeds lists percentile levels, both written and relaxed thresholds, and the level each coverage check is equivalent to', () => {
+    // coverage ≥ 40 % at 10 dBm ⇔ the 60 % level reaches 10 dBm (eirp); for eis ≥ 50 % ⇔ the 50 % level (Eq. L4)
+    expect(metricNeeds(base)).toEqual({ percentilesPct: [50, 60], thresholds: [9.5, 10] });
     const eis = parseLimitSetText('name: e\nquantity: eis\nchecks:\n  - {kind: min-coverage, threshold: -80, minEfficiency: 0.5, toleranceDb: 0.7}\n', 'e').limitSet!;
-    expect(metricNeeds(eis)).toEqual({ percentilesPct: [], thresholds: [-80, -79.3] });
+    expect(metricNeeds(eis)).toEqual({ percentilesPct: [50], thresholds: [-80, -79.3] });
   });
   it('formatLimitSet prints every check rule and the cautions', () => {
     const text = formatLimitSet(base);
