@@ -70,13 +70,18 @@ export function drawCdfPlot(
     lo = Math.min(lo, c.values[0]);
     hi = Math.max(hi, c.values[c.values.length - 1]);
   }
-  for (const l of limits) {
-    lo = Math.min(lo, l.value);
-    hi = Math.max(hi, l.value);
-  }
   if (!Number.isFinite(lo)) {
     lo = 0;
     hi = 1;
+  }
+  // A limit far from the data (a maximum EIRP of 43 dBm beside a 25 dBm pattern) would squash the
+  // curve: the range takes in limits within half the data span, the others are marked at the edge.
+  const reach = 0.5 * Math.max(hi - lo, 1);
+  const onScale = (v: number): boolean => v >= lo - reach && v <= hi + reach;
+  for (const l of limits) {
+    if (!onScale(l.value)) continue;
+    lo = Math.min(lo, l.value);
+    hi = Math.max(hi, l.value);
   }
   const xr = niceRange(lo, hi, 8);
   const a: Axes = { ...box, xMin: xr.lo, xMax: xr.hi, yMin: 0, yMax: 1 };
@@ -93,6 +98,18 @@ export function drawCdfPlot(
   }
   // Limits: dashed vertical at the judged limit; a diamond at (limit, level) where the curve must pass.
   limits.forEach((l, k) => {
+    if (l.value < a.xMin || l.value > a.xMax) {
+      // Off scale: its tag at the edge it lies beyond, with an arrow.
+      const right = l.value > a.xMax;
+      const tag = right ? `L${k + 1} ${fmt(l.value, 1)} →` : `← L${k + 1} ${fmt(l.value, 1)}`;
+      doc.font('B').fontSize(6.2);
+      const w = doc.widthOfString(tag) + 3;
+      const ly = a.y + a.h - 12 - 9 * (k % 3);
+      const lx = right ? a.x + a.w - w - 2 : a.x + 2;
+      doc.save().rect(lx, ly - 1, w, 8).fillOpacity(0.85).fill('#ffffff').restore();
+      doc.fillColor(INK).text(tag, lx + 1.5, ly, { lineBreak: false });
+      return;
+    }
     const x = px(a, l.value);
     doc.moveTo(x, a.y).lineTo(x, a.y + a.h).dash(4, { space: 2 }).lineWidth(0.8).strokeColor(INK).stroke().undash();
     if (l.levelPct !== undefined) {
