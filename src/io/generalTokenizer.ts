@@ -22,6 +22,13 @@ function quotedFieldStarts(raw: string, delimiter: string): number[] {
  * skipped. Holds the text of the file (used for quoted or irregular files, typically small).
  */
 export function generalTokenize(text: string, dataStart: number, startLine: number, newline: '\n' | '\r\n', t: TokenContext): void {
+  // A CRLF file with bare LF line ends in it (lines pasted from elsewhere): papaparse would join
+  // the LF lines into the next CRLF row, so read it as LF throughout, as the fast path does.
+  // Removing the \r of each CRLF keeps every '\n', so line numbers are unchanged.
+  if (newline === '\r\n' && /(^|[^\r])\n/.test(text.slice(dataStart))) {
+    text = text.slice(0, dataStart) + text.slice(dataStart).replace(/\r\n/g, '\n');
+    newline = '\n';
+  }
   let pos = dataStart;
   let line = startLine;
   const advance = (to: number): void => {

@@ -25,6 +25,19 @@ describe('reader regressions found by fuzzing', () => {
   });
 });
 
+describe('mixed line ends (found by npm run soak, seed 8002)', () => {
+  it('bare LF lines inside a CRLF file count as lines on both paths', async () => {
+    // Lines: 1 header, 2–3 rows, 4–5 empty, 6 a lone space, 7 a repeated header (LF-ended lines
+    // pasted into a CRLF export). papaparse in CRLF mode joined 4–7 into one row reported at 6.
+    const file = path.join(dir, 'mixed_eol.csv');
+    writeFileSync(file, 'theta_deg,phi_deg,eirp_dbm\r\n0,0,1\r\n30,0,1\r\n\n\n \ntheta_deg,phi_deg,eirp_dbm\r\n60,0,1\r\n90,0,1');
+    for (const parser of ['fast', 'general'] as const) {
+      const r = await readExportFile(file, { inputRoot: dir, parser });
+      expect(r.errors.map((e) => e.message), parser).toEqual(["mixed_eol.csv:7:1: theta_deg: found 'theta_deg', expected a number"]);
+    }
+  });
+});
+
 describe('a file with more samples than the tool supports', () => {
   it('is refused while streaming, with the line where the limit was passed (long and matrix layouts, both paths)', async () => {
     const long = path.join(dir, 'too_many.csv');
