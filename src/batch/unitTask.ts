@@ -164,14 +164,16 @@ export async function renderUnit(
     import('../report/thumbnail.js'),
     import('../report/cdfCurve.js'),
   ]);
+  // One CDF curve per unit serves its PDF and the build summary's overlay.
+  const cdf = cdfCurve(tsp.values, m.grid.weightSr, m.quantity);
   const buf = await renderUnitPdf(
-    { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta },
+    { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta, tspCdf: cdf },
     input.report,
   );
   return {
     result,
     thumbnail: unitMapThumbnail(m, tsp, undefined, input.report.mapCenterPhiDeg),
-    cdf: cdfCurve(tsp.values, m.grid.weightSr, m.quantity),
+    cdf,
     pdf: new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength),
   };
 }

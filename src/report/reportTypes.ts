@@ -45,6 +45,8 @@ export interface UnitReportInput {
   beamCdfs?: { id: string; curve: CdfCurve }[];
   /** Per grid point: this unit's TSP minus the reference unit's, dB (issue 9); drawn as a diverging map. */
   referenceDelta?: Float64Array;
+  /** The TSP's CDF curve when the caller already made it (cdfCurve of tsp.values); made here otherwise. */
+  tspCdf?: CdfCurve;
 }
 
 /** A small equal-area raster of a unit's TSP, plain data (transferable from a worker thread). */

@@ -459,7 +459,7 @@ export async function renderUnitPdf(input: UnitReportInput, settings: ReportSett
   const maps = needMaps
     ? buildUnitMaps(input.measurement, input.tsp, { widthPx: settings.mapWidthPx, centerPhiDeg: settings.mapCenterPhiDeg, colorMap: settings.colorMap, threshold, delta: sec.reference ? input.referenceDelta : undefined })
     : null;
-  const tspCurve = cdfCurve(input.tsp.values, input.measurement.grid.weightSr, r.quantity);
+  const tspCurve = input.tspCdf ?? cdfCurve(input.tsp.values, input.measurement.grid.weightSr, r.quantity);
 
   titleBlock(doc, input, settings);
   verdictBlock(doc, r);
