@@ -5,7 +5,8 @@ import { checkBound, kindAllowed, quantityUnit } from './checkSense.js';
 /** Levels and thresholds are matched to the computed metrics within this (they are decimal inputs). */
 const MATCH_EPS = 1e-9;
 /** Margins are rounded to 1e-9 (a nano-dB) so float noise of limit − tolerance cannot flip a verdict at the limit. */
-const snap = (x: number): number => Math.round(x * 1e9) / 1e9;
+/** Round to 1e-9 so that limit ± tolerance arithmetic cannot flip a verdict by float noise. */
+export const snap = (x: number): number => Math.round(x * 1e9) / 1e9;
 
 /**
  * Judge one check against a unit's metrics.

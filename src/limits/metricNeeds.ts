@@ -1,5 +1,5 @@
 import type { LimitSet } from './limitSet.js';
-import { coverageLevelPct } from './evaluateCheck.js';
+import { coverageLevelPct, snap } from './evaluateCheck.js';
 
 /**
  * What the batch must compute so every check can be judged: the CDF levels of percentile checks
@@ -13,7 +13,6 @@ import { coverageLevelPct } from './evaluateCheck.js';
 export function metricNeeds(ls: LimitSet): { percentilesPct: number[]; thresholds: number[] } {
   const levels = new Set<number>();
   const thresholds = new Set<number>();
-  const snap = (x: number): number => Math.round(x * 1e9) / 1e9;
   for (const c of ls.checks) {
     if (c.kind === 'percentile') levels.add(c.levelPct);
     if (c.kind === 'min-coverage') {
