@@ -61,40 +61,91 @@ function write(name, headLines, body) {
 
 for (const f of readdirSync(OUT)) if (f.startsWith('3gpp-fr2-') && f.endsWith('.yaml')) unlinkSync(`${OUT}${f}`);
 
+// Table 6.2.1.3-4 (multi-band relaxations, PC3; PC7 uses the PC3 values), dB: [peak, coverage].
+const MB_PC3 = {
+  n257: [0.7, 0.7], n258: [0.6, 0.7], n259: [0.5, 0.4], n260: [0.5, 0.4], n261: [0.5, 0.7],
+  n262: [0.7, 0.7], n263: [1.0, 1.0],
+};
+// PC5: 0.7/0.7 except n259 0.5/0.5 (reference notes, "Rules attached to the transmit tables").
+const MB = { 3: MB_PC3, 7: MB_PC3, 5: { n257: [0.7, 0.7], n258: [0.7, 0.7], n259: [0.5, 0.5] } };
+/** Classes whose spherical-coverage minimum is 2 dB lower in initial access / RRC_INACTIVE. */
+const INITIAL_ACCESS = [1, 3, 5, 7];
+const INITIAL_ACCESS_DB = 2;
+/** 1 decimal place arithmetic without float noise (0.1 dB is the tables' resolution). */
+const dec = (x) => Math.round(x * 1000) / 1000;
+
+/** Table numbers confirmed by reading S1 (reference notes, "Table numbers"). */
+function txTable(pc, n) {
+  if (String(pc) === '5' && n === 3) return 'Table 6.2.1.5-3 (printed as "Table 6.2.1.4-3" in the specification, a caption typo; the text calls it 6.2.1.5-3)';
+  return `Table 6.2.1.${pc}-${n}`;
+}
+
 for (const [pc, [pct, bands]] of Object.entries(TX)) {
   for (const [band, [minPeak, maxTrp, maxEirp, sph]] of Object.entries(bands)) {
     const clause = `${SPEC}, clause 6.2.1.${pc}`;
-    const checks = [
-      { kind: 'min-peak', name: 'minimum peak EIRP', limit: minPeak,
-        source: `${clause}, Table 6.2.1.${pc}-1 (table number from memory); ${VERIFY}` },
-      { kind: 'percentile', name: `spherical coverage EIRP (${pct} %-tile)`, levelPct: pct, limit: sph,
-        source: `${clause}, Table 6.2.1.${pc}-3 (table number from memory): minimum EIRP at the ${pct} %-tile of the CDF of total EIRP over the full sphere; ${VERIFY}` },
+    const coverageText = `minimum EIRP at the ${pct} %-tile of the CDF of total EIRP over the full sphere`;
+    const peakCheck = (limit, extra = '') => ({ kind: 'min-peak', name: 'minimum peak EIRP', limit,
+      source: `${clause}, ${txTable(pc, 1)}${extra}; ${VERIFY}` });
+    const coverageCheck = (limit, extra = '') => ({ kind: 'percentile', name: `spherical coverage EIRP (${pct} %-tile)`, levelPct: pct, limit,
+      source: `${clause}, ${txTable(pc, 3)}${extra}: ${coverageText}; ${VERIFY}` });
+    const maxChecks = maxTrp === null ? [] : [
+      { kind: 'max-trp', name: 'maximum TRP', limit: maxTrp, source: `${clause}, ${txTable(pc, 2)}; ${VERIFY}` },
+      { kind: 'max-peak', name: 'maximum EIRP', limit: maxEirp, source: `${clause}, ${txTable(pc, 2)}; ${VERIFY}` },
     ];
-    if (maxTrp !== null) {
-      checks.push(
-        { kind: 'max-trp', name: 'maximum TRP', limit: maxTrp,
-          source: `${clause}, Table 6.2.1.${pc}-2 (table number from memory); ${VERIFY}` },
-        { kind: 'max-peak', name: 'maximum EIRP', limit: maxEirp,
-          source: `${clause}, Table 6.2.1.${pc}-2 (table number from memory); ${VERIFY}` });
-    }
     const notes = [
       `Power class ${pc} (${CLASS_NAMES[pc]}) UE, band ${band}, transmit.`,
       `Spherical coverage: the EIRP at the ${pct} % CDF level must reach the limit, i.e. at least ${100 - pct} % of the sphere by solid angle reaches it.`,
     ];
     if (maxTrp === null) notes.push('Maximum TRP/EIRP for this class are not in the reference notes and are not checked.');
-    if ([1, 3, 5, 7].includes(Number(pc))) notes.push('Not applied: the 2 dB lower spherical-coverage minimum for initial access and RRC_INACTIVE.');
-    if (pc === '3') notes.push('Not applied: the multi-band relaxations of Table 6.2.1.3-4 (add them as toleranceDb or a programme check if your UE supports several FR2 bands).');
-    notes.push('Spherical coverage is verified at normal temperature only.');
+    const tail = 'Spherical coverage is verified at normal temperature only.';
     const name = `3gpp-fr2-pc${pc}-${band}`;
+    const hasIa = INITIAL_ACCESS.includes(Number(pc));
+    const mb = MB[pc]?.[band];
+    const variants = [hasIa ? `${name}-initial-access` : null, mb ? `${name}-multiband` : null].filter(Boolean);
     write(name, [`3GPP FR2 UE power class ${pc} (${CLASS_NAMES[pc]}), band ${band}: transmit limits.`], {
       name,
-      description: notes.join(' '),
+      description: [...notes,
+        ...(variants.length ? [`Connected-mode, single-band values; variants: ${variants.join(', ')}.`] : []), tail].join(' '),
       source: `${clause}; ${VERIFY}`,
       quantity: 'eirp',
       band,
       frequencyRangeMHz: BANDS[band],
-      checks,
+      checks: [peakCheck(minPeak), coverageCheck(sph), ...maxChecks],
     });
+    if (hasIa) {
+      // Initial access / RRC_INACTIVE: coverage minimum − 2 dB, minimum peak EIRP does not apply.
+      write(`${name}-initial-access`, [`3GPP FR2 UE power class ${pc} (${CLASS_NAMES[pc]}), band ${band}: transmit limits in initial access and RRC_INACTIVE.`], {
+        name: `${name}-initial-access`,
+        description: [...notes,
+          `Initial access and RRC_INACTIVE variant: the spherical-coverage minimum is the ${txTable(pc, 3).split(' (')[0]} value (${sph} dBm) minus ${INITIAL_ACCESS_DB} dB, and the minimum peak EIRP does not apply (not checked).`,
+          tail].join(' '),
+        source: `${clause}; ${VERIFY}`,
+        quantity: 'eirp',
+        band,
+        frequencyRangeMHz: BANDS[band],
+        checks: [coverageCheck(dec(sph - INITIAL_ACCESS_DB), `, minus ${INITIAL_ACCESS_DB} dB for initial access and RRC_INACTIVE (clause 6.2.1.${pc})`), ...maxChecks],
+      });
+    }
+    if (mb) {
+      const [dPeak, dCov] = mb;
+      const mbTable = `Table 6.2.1.3-4${pc === '3' ? '' : `, as applied to power class ${pc}`}`;
+      write(`${name}-multiband`, [`3GPP FR2 UE power class ${pc} (${CLASS_NAMES[pc]}), band ${band}: transmit limits for a UE supporting several FR2 bands.`], {
+        name: `${name}-multiband`,
+        description: [...notes,
+          `Multi-band variant: minimum peak EIRP relaxed by ${dPeak} dB and spherical coverage by ${dCov} dB (${mbTable}).`,
+          'Footnotes of the table set some relaxations to 0 dB for UEs supporting only n261+n260 or n261+n257: use the single-band profile then.',
+          tail].join(' '),
+        source: `${clause}; ${VERIFY}`,
+        quantity: 'eirp',
+        band,
+        frequencyRangeMHz: BANDS[band],
+        checks: [
+          peakCheck(dec(minPeak - dPeak), ` minus the ${dPeak} dB multi-band relaxation of ${mbTable}`),
+          coverageCheck(dec(sph - dCov), ` minus the ${dCov} dB multi-band relaxation of ${mbTable}`),
+          ...maxChecks,
+        ],
+      });
+    }
   }
 }
 

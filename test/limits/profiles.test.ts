@@ -33,7 +33,7 @@ const rows = (header: RegExp): string[][] => {
 
 interface TxRef { pct: number; minPeak: number; maxTrp: number | null; maxEirp: number | null; sph: number }
 function txReference(): Map<string, TxRef> {
-  const table = rows(/^\| PC \| percentile \| metric \|/);
+  const table = rows(/^\| PC \| percentile \| metric/);
   const bands = ['n257', 'n258', 'n259', 'n260', 'n261', 'n262', 'n263'];
   const ref = new Map<string, TxRef>();
   let pc = '';
@@ -43,7 +43,7 @@ function txReference(): Map<string, TxRef> {
     bands.forEach((band, j) => {
       const cell = r[3 + j];
       const key = `3gpp-fr2-pc${pc}-${band}`;
-      if (r[2] === 'min peak EIRP') {
+      if (r[2].startsWith('min peak EIRP')) {
         const v = num(cell);
         if (v !== null) ref.set(key, { pct, minPeak: v, maxTrp: null, maxEirp: null, sph: NaN });
       } else if (ref.has(key)) {
@@ -69,6 +69,18 @@ function rxReference(): Map<string, { refsens: number; sph: number }> {
     }
   }
   return ref;
+}
+
+/** "Rules attached to the transmit tables": multi-band relaxations and the initial-access rule, parsed from the prose. */
+function rulesReference(): { pc3: Map<string, [number, number]>; iaClasses: number[]; iaDb: number } {
+  const section = md.slice(md.indexOf('## Rules attached to the transmit tables'), md.indexOf('## Beam correspondence'));
+  const mbLine = section.slice(section.indexOf('Multi-band PC3 relaxations'), section.indexOf('(footnotes'));
+  const pc3 = new Map([...mbLine.matchAll(/(n\d+)\s+(\d\.\d)\/(\d\.\d)/g)]
+    .map((m): [string, [number, number]] => [m[1], [Number(m[2]), Number(m[3])]]));
+  const ia = /for PC((?:\d, )*\d) and (\d) the spherical-coverage minimum is the\s+table value minus (\d) dB/.exec(section);
+  expect(ia, 'initial-access rule found in the reference').not.toBeNull();
+  const iaClasses = [...(ia as RegExpExecArray)[1].split(', ').map(Number), Number((ia as RegExpExecArray)[2])];
+  return { pc3, iaClasses, iaDb: Number((ia as RegExpExecArray)[3]) };
 }
 
 function bandRanges(): Map<string, [number, number]> {
@@ -98,9 +110,61 @@ describe('shipped 3GPP FR2 profiles against the reference tables', () => {
     expect(tx.get('3gpp-fr2-pc3-n260')).toEqual({ pct: 50, minPeak: 20.6, maxTrp: 23, maxEirp: 43, sph: 8 });
     expect(rx.get('3gpp-fr2-pc3-n262-eis-400mhz')).toEqual({ refsens: -73.8, sph: -60.7 });
   });
-  it('exactly one profile per specified class and band, none for dashes', () => {
+  it('exactly one profile per specified class and band, none for dashes, plus the variants', () => {
     const names = listProfiles().map((p) => p.name).sort();
-    expect(names).toEqual([...tx.keys(), ...rx.keys()].sort());
+    const variants = listProfiles().filter((p) => /-(multiband|initial-access)$/.test(p.name)).map((p) => p.name);
+    expect(names.filter((n) => !variants.includes(n))).toEqual([...tx.keys(), ...rx.keys()].sort());
+    // Initial access: PC6 is not shipped, so PC1/3/5/7 rows; multi-band: PC3, PC7 (PC3 values), PC5.
+    const rules = rulesReference();
+    const iaExpected = [...tx.keys()].filter((k) => rules.iaClasses.includes(Number(/pc(\d)/.exec(k)![1]))).map((k) => `${k}-initial-access`);
+    const mbExpected = [...tx.keys()].filter((k) => /pc[357]-/.test(k)).map((k) => `${k}-multiband`);
+    expect(variants.sort()).toEqual([...iaExpected, ...mbExpected].sort());
+  });
+  it('the parsed rules have the expected shape (guards the parser itself)', () => {
+    const rules = rulesReference();
+    expect(rules.pc3.size).toBe(7);
+    expect(rules.pc3.get('n258')).toEqual([0.6, 0.7]);
+    expect(rules.iaClasses).toEqual([1, 3, 5, 6, 7]);
+    expect(rules.iaDb).toBe(2);
+  });
+  it('initial-access variants: coverage limit − 2 dB, no minimum peak EIRP, maxima unchanged', () => {
+    const rules = rulesReference();
+    for (const [name, e] of tx) {
+      if (!rules.iaClasses.includes(Number(/pc(\d)/.exec(name)![1]))) continue;
+      const ls = load(`${name}-initial-access`);
+      expect(check(ls, 'min-peak'), name).toEqual([]);
+      const p = check(ls, 'percentile');
+      expect(p.map((c) => c.kind === 'percentile' && [c.levelPct, c.limit]), name).toEqual([[e.pct, Math.round((e.sph - rules.iaDb) * 1000) / 1000]]);
+      expect(p[0].source, name).toContain(`minus ${rules.iaDb} dB for initial access`);
+      expect(check(ls, 'max-trp').map((c) => 'limit' in c && c.limit), name).toEqual(e.maxTrp === null ? [] : [e.maxTrp]);
+    }
+  });
+  it('multi-band variants: peak and coverage relaxed by Table 6.2.1.3-4 (PC3 and PC7), PC5 per the notes', () => {
+    const rules = rulesReference();
+    // PC5: "0.7/0.7 except PC5 n259 0.5/0.5" (reference notes, same section).
+    const pc5 = new Map<string, [number, number]>([['n257', [0.7, 0.7]], ['n258', [0.7, 0.7]], ['n259', [0.5, 0.5]]]);
+    for (const [name, e] of tx) {
+      const pc = Number(/pc(\d)/.exec(name)![1]);
+      if (![3, 5, 7].includes(pc)) continue;
+      const band = /n\d+/.exec(name)![0];
+      const [dp, dc] = (pc === 5 ? pc5 : rules.pc3).get(band) as [number, number];
+      const ls = load(`${name}-multiband`);
+      const r3 = (x: number): number => Math.round(x * 1000) / 1000;
+      expect(check(ls, 'min-peak').map((c) => 'limit' in c && c.limit), name).toEqual([r3(e.minPeak - dp)]);
+      expect(check(ls, 'percentile').map((c) => 'limit' in c && c.limit), name).toEqual([r3(e.sph - dc)]);
+      expect(ls.checks.every((c) => (c.source ?? '').includes('Table 6.2.1.3-4') || c.kind.startsWith('max')), name).toBe(true);
+    }
+  });
+  it('no profile says a table number is from memory; transmit checks cite the confirmed tables', () => {
+    for (const p of listProfiles()) {
+      const text = readFileSync(p.file, 'utf8');
+      expect(text, p.name).not.toMatch(/from\s+memory/);
+      const ls = load(p.name);
+      if (ls.quantity !== 'eirp') continue;
+      const pc = /pc(\d)/.exec(p.name)![1];
+      const want: Record<string, number> = { 'min-peak': 1, 'max-trp': 2, 'max-peak': 2, percentile: 3 };
+      for (const c of ls.checks) expect(c.source, `${p.name}: ${c.name}`).toContain(`Table 6.2.1.${pc}-${want[c.kind]}`);
+    }
   });
   it('EIRP profiles: min peak, percentile level and limit, max TRP / EIRP', () => {
     const ranges = bandRanges();
