@@ -1,6 +1,6 @@
 import type { FileHandle } from 'node:fs/promises';
 import type { Hash } from 'node:crypto';
-import { KEY, NUM } from './columnPlan.js';
+import { KEY, NUM } from './fieldPlan.js';
 import type { RowLocator } from './rowSink.js';
 import { splitLocator } from './rowSink.js';
 import { processTextRow, type TokenContext } from './textRow.js';

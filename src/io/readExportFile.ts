@@ -4,22 +4,20 @@ import path from 'node:path';
 import type { InputError, Warning } from '../types.js';
 import { warning } from '../warnings.js';
 import { calibrationOffsetDb } from './calibrationOffset.js';
-import { planColumns, type LongPlan, type MatrixPlan } from './columnPlan.js';
 import { fastTokenize } from './fastTokenizer.js';
-import { assumedFrequencyHz, parseFrequencyText } from './frequencyText.js';
+import { parseFrequencyText } from './frequencyText.js';
 import { generalTokenize } from './generalTokenizer.js';
 import { ErrorList, inputError } from './inputError.js';
 import { KeyTable } from './keyTable.js';
-import { LongSink, type LongGroup } from './longSink.js';
-import { MatrixSink } from './matrixSink.js';
+import type { PlanFacts } from './layouts/layoutTypes.js';
+import { planLayout } from './layouts/registry.js';
 import { parseNumberText } from './numberText.js';
 import { pathIdentity } from './pathIdentity.js';
 import { MAX_SAMPLES_PER_FILE, SampleLimit } from './sampleLimit.js';
-import { HEAD_BYTES, sniffHead, type HeadInfo } from './sniffHead.js';
+import { HEAD_BYTES, sniffHead } from './sniffHead.js';
 import type { TokenContext } from './textRow.js';
 import type { FileInfo, FileReadResult, RawBeam, ReadContext } from './types.js';
 
-const FREQ_FACTORS: Record<string, number> = { Hz: 1, kHz: 1e3, MHz: 1e6, GHz: 1e9 };
 
 function emptyInfo(): FileInfo {
   return {
@@ -66,37 +64,33 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
       return result;
     }
-    const planned = planColumns(sniff.headerCells, {
+    const planned = planLayout(sniff.headerCells, {
       file, headerLine: sniff.headerLine, cellCols: sniff.headerCellCols, headerText: sniff.headerText, decimalComma: sniff.decimalComma,
       metadata: sniff.metadata, metadataLines: sniff.metadataLines, job: ctx.job, quantityOverride: ctx.quantityOverride,
     });
     result.warnings.push(...planned.warnings);
-    if (!planned.plan) {
+    if (!planned.planned) {
       result.errors.push(...planned.errors);
       result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
       return result;
     }
-    const plan = planned.plan;
+    const layout = planned.planned;
+    const plan = layout.facts;
     Object.assign(info, {
       layout: plan.layout, columns: plan.columns, quantity: plan.quantity, valueUnit: plan.valueUnit, fileValueUnit: plan.fileValueUnit,
-      angleConvention: plan.angleConvention, angleUnit: plan.angleUnit,
+      angleConvention: plan.angleConvention, angleUnit: plan.angleUnit, ...layout.info,
     });
-    if (plan.layout === 'matrix') {
-      info.matrixColumnsDeg = plan.colAnglesRaw;
-      const bad = checkMatrixColumns(file, plan, sniff);
-      if (bad.length) {
-        result.errors.push(...bad);
-        result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
-        return result;
-      }
+    if (layout.headerErrors.length) {
+      result.errors.push(...layout.headerErrors);
+      result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
+      return result;
     }
 
     const run = async (useFast: boolean) => {
       const errors = new ErrorList(file);
       const keys = new KeyTable(plan.fields.keyCount);
-      const sink = plan.layout === 'long' ? new LongSink(plan, file, errors, keys) : new MatrixSink(plan, file, errors, sniff.headerLine + 1);
-      const perRow = plan.layout === 'matrix' ? plan.colAnglesRaw.length : 1;
-      const limited = new SampleLimit(sink, perRow, ctx.maxSamples ?? MAX_SAMPLES_PER_FILE, file, errors);
+      const sink = layout.newSink({ file, errors, keys, firstDataLine: sniff.headerLine + 1 });
+      const limited = new SampleLimit(sink, layout.samplesPerRow, ctx.maxSamples ?? MAX_SAMPLES_PER_FILE, file, errors);
       const t: TokenContext = {
         file, fields: plan.fields, delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, errors, keys, sink: limited,
         nums: new Float64Array(Math.max(1, plan.fields.numCount)), keyIds: new Int32Array(Math.max(1, plan.fields.keyCount)),
@@ -149,22 +143,12 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       identity.frequency = 'metadata';
     }
     const base = { quantity: plan.quantity, valueUnit: plan.valueUnit, file, metadata: meta };
-    let beams: RawBeam[];
-    if (plan.layout === 'matrix') {
-      const s = outcome.sink as MatrixSink;
-      beams = [{ ...base, unit: fileUnit, beam: fileBeam, frequencyHz: fileFreqHz, ...s.acc.finish(), firstLine: s.acc.firstLine }];
-    } else {
-      const groups = (outcome.sink as LongSink).finish();
-      if (plan.unitKey >= 0) identity.unit = 'column';
-      if (plan.beamKey >= 0) identity.beam = 'column';
-      if (plan.freqSlot >= 0) identity.frequency = 'column';
-      const built = longBeams(groups, plan, outcome.keys, outcome.sink as LongSink, base, fileUnit, fileBeam, fileFreqHz, result.warnings);
-      if ('errors' in built) {
-        result.errors.push(...built.errors);
-        return result;
-      }
-      beams = built.beams;
+    const built = outcome.sink.beams({ file, keys: outcome.keys, base, fileUnit, fileBeam, fileFreqHz, identity, warnings: result.warnings });
+    if ('errors' in built) {
+      result.errors.push(...built.errors);
+      return result;
     }
+    const beams = built.beams;
     info.identity = identity;
     if (identity.unit === 'folder' || identity.unit === 'file-name' || identity.beam === 'file-name') {
       const fromPath = [
@@ -181,7 +165,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
         ? `azimuth/elevation in ${plan.angleUnit === 'rad' ? 'radians' : 'degrees'} converted to θ/φ in degrees (θ = 90° − el, φ = az mod 360°)`
         : 'θ/φ in radians converted to degrees', { file }));
     }
-    if (plan.layout === 'long' && plan.power) {
+    if (plan.power) {
       const cal = applyCalibration(beams, plan, ctx, file);
       if (cal.errors.length) {
         result.errors.push(...cal.errors);
@@ -200,81 +184,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
   }
 }
 
-function checkMatrixColumns(file: string, plan: MatrixPlan, sniff: HeadInfo): InputError[] {
-  const f = plan.angleUnit === 'rad' ? 180 / Math.PI : 1;
-  const out: InputError[] = [];
-  plan.colAnglesRaw.forEach((a, i) => {
-    const deg = a * f;
-    if (!(deg >= -180 - 1e-9 && deg <= 360 + 1e-9)) {
-      const what = plan.angleConvention === 'az-el' ? 'azimuth' : 'phi';
-      out.push(inputError(file, sniff.headerLine, sniff.headerCellCols[i + 1], 'header', sniff.headerCells[i + 1].trim(), `${what} between -180 and 360 degrees`));
-    }
-  });
-  return out;
-}
-
-function longBeams(
-  groups: LongGroup[], plan: LongPlan, keys: KeyTable, sink: LongSink,
-  base: Pick<RawBeam, 'quantity' | 'valueUnit' | 'file' | 'metadata'>,
-  fileUnit: string, fileBeam: string, fileFreqHz: number | null, warnings: Warning[],
-): { beams: RawBeam[] } | { errors: InputError[] } {
-  const file = base.file;
-  let assumed = false;
-  const freqOf = (raw: number): number | null => {
-    if (plan.freqSlot < 0) return fileFreqHz;
-    if (plan.freqFactor !== null) return raw * plan.freqFactor;
-    assumed = true;
-    return assumedFrequencyHz(raw);
-  };
-  const make = (g: LongGroup, values: Float64Array): RawBeam => ({
-    ...base,
-    unit: g.unitId >= 0 ? keys.names[plan.unitKey][g.unitId] : fileUnit,
-    beam: g.beamId >= 0 ? keys.names[plan.beamKey][g.beamId] : fileBeam,
-    frequencyHz: freqOf(g.freqRaw),
-    thetaDeg: g.thetaDeg, phiDeg: g.phiDeg, values, firstLine: g.firstLine,
-  });
-  const beams: RawBeam[] = [];
-  if (plan.polKey < 0) {
-    for (const g of groups) beams.push(make(g, g.values));
-  } else {
-    // Long-form polarization: pair the theta and phi groups of each (unit, beam, frequency).
-    const pairs = new Map<string, [LongGroup | null, LongGroup | null]>();
-    for (const g of groups) {
-      const k = `${g.unitId}|${g.beamId}|${g.freqRaw}`;
-      const pair = pairs.get(k) ?? [null, null];
-      pair[sink.polKind(g.polId)] = g;
-      pairs.set(k, pair);
-    }
-    const errors: InputError[] = [];
-    const polCol = plan.columns.find((c) => c.role === 'pol')!;
-    for (const [t, p] of pairs.values()) {
-      const one = (t ?? p)!;
-      if (!t || !p || !sameDirections(t, p)) {
-        const beam = make(one, one.values).beam;
-        const found = !t || !p ? `only ${t ? 'theta' : 'phi'} rows for beam '${beam}'` : `theta and phi rows of beam '${beam}' at different directions`;
-        errors.push(inputError(file, one.firstLine, 1, polCol.name, found, 'a theta and a phi row for every direction, in the same order', true));
-        continue;
-      }
-      const v = new Float64Array(t.values.length);
-      for (let i = 0; i < v.length; i++) v[i] = 10 * Math.log10(10 ** (t.values[i] / 10) + 10 ** (p.values[i] / 10)); // DESIGN.md "Polarization pair" (power sum)
-      beams.push(make(t, v));
-    }
-    if (errors.length) return { errors };
-  }
-  if (assumed) {
-    warnings.push(warning('frequency-unit-assumed', `frequency column without a unit; values below 1000 read as GHz, below 10^6 as MHz, else Hz`, { file }));
-  }
-  return { beams };
-}
-
-function sameDirections(a: LongGroup, b: LongGroup): boolean {
-  if (a.thetaDeg === b.thetaDeg && a.phiDeg === b.phiDeg) return true;
-  if (a.thetaDeg.length !== b.thetaDeg.length) return false;
-  for (let i = 0; i < a.thetaDeg.length; i++) if (a.thetaDeg[i] !== b.thetaDeg[i] || a.phiDeg[i] !== b.phiDeg[i]) return false;
-  return true;
-}
-
-function applyCalibration(beams: RawBeam[], plan: LongPlan, ctx: ReadContext, file: string): { errors: InputError[]; warnings: Warning[] } {
+function applyCalibration(beams: RawBeam[], plan: PlanFacts, ctx: ReadContext, file: string): { errors: InputError[]; warnings: Warning[] } {
   const table = ctx.job!.calibration!.table;
   const errors: InputError[] = [];
   const warnings: Warning[] = [];

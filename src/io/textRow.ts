@@ -1,4 +1,4 @@
-import { KEY, NUM, type FieldPlan } from './columnPlan.js';
+import { KEY, NUM, type FieldPlan } from './fieldPlan.js';
 import { clipText, ErrorList, inputError } from './inputError.js';
 import type { KeyTable } from './keyTable.js';
 import { expectedNumber, parseNumberText } from './numberText.js';

@@ -3,6 +3,9 @@
  */
 import type { GridSummary, InputError, Quantity, ValueUnit, Warning } from '../types.js';
 
+/** Export layouts the readers know (src/io/layouts/registry.ts). */
+export type LayoutName = 'long' | 'matrix';
+
 /** Column roles a header cell (or a job-file `columns:` entry) can take. */
 export type ColumnRole =
   | 'theta'
@@ -96,7 +99,7 @@ export interface ColumnInfo {
 
 /** How a file was understood (for `spherecov inspect`). */
 export interface FileInfo {
-  layout: 'long' | 'matrix' | null;
+  layout: LayoutName | null;
   delimiter: ',' | ';' | '\t' | null;
   decimalComma: boolean;
   bom: boolean;

@@ -1,8 +1,8 @@
-import { mwToDbm, wToDbm } from '../units.js';
-import type { MatrixPlan } from './columnPlan.js';
-import { ErrorList, inputError } from './inputError.js';
-import type { RowLocator, RowSink } from './rowSink.js';
-import { SampleAccumulator } from './sampleAccumulator.js';
+import { mwToDbm, wToDbm } from '../../units.js';
+import type { MatrixPlan } from './matrixLayout.js';
+import { ErrorList, inputError } from '../inputError.js';
+import type { RowLocator, RowSink } from '../rowSink.js';
+import { SampleAccumulator } from '../sampleAccumulator.js';
 
 const RAD_TO_DEG = 180 / Math.PI;
 

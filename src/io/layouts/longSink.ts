@@ -1,9 +1,9 @@
-import { mwToDbm, powerSumDb, wToDbm } from '../units.js';
-import type { LongPlan } from './columnPlan.js';
-import { ErrorList, inputError } from './inputError.js';
-import type { KeyTable } from './keyTable.js';
-import type { RowLocator, RowSink } from './rowSink.js';
-import { SampleAccumulator } from './sampleAccumulator.js';
+import { mwToDbm, powerSumDb, wToDbm } from '../../units.js';
+import type { LongPlan } from './longLayout.js';
+import { ErrorList, inputError } from '../inputError.js';
+import type { KeyTable } from '../keyTable.js';
+import type { RowLocator, RowSink } from '../rowSink.js';
+import { SampleAccumulator } from '../sampleAccumulator.js';
 
 const RAD_TO_DEG = 180 / Math.PI;
 /** Slack for angles converted from radians (rounding of the written value). */
@@ -50,7 +50,7 @@ export class LongSink implements RowSink {
   private readonly linear: boolean;
 
   constructor(
-    private readonly plan: LongPlan,
+    protected readonly plan: LongPlan,
     private readonly file: string,
     private readonly errors: ErrorList,
     private readonly keys: KeyTable,
