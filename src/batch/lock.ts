@@ -4,6 +4,7 @@
  */
 import { linkSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import { randomBytes } from 'node:crypto';
 
 export const LOCK_NAME = '.spherecov.lock';
 
@@ -54,9 +55,11 @@ export function acquireLock(dir: string): () => void {
     // The lock appears under its name complete or not at all: written to a private file first,
     // then hard-linked into place (link fails with EEXIST if the name is taken, atomically), so
     // a competing run can never read a live lock while it is still empty.
-    const tmp = `${file}.${process.pid}.tmp`;
+    // A random private name, created exclusively ('wx': O_CREAT|O_EXCL), so a link planted in a
+    // shared output folder is never followed.
+    const tmp = `${file}.${randomBytes(8).toString('hex')}.tmp`;
     try {
-      writeFileSync(tmp, JSON.stringify({ pid: process.pid, startedAt: new Date().toISOString() }) + '\n');
+      writeFileSync(tmp, JSON.stringify({ pid: process.pid, startedAt: new Date().toISOString() }) + '\n', { flag: 'wx' });
       try {
         linkSync(tmp, file);
       } finally {
@@ -77,7 +80,7 @@ export function acquireLock(dir: string): () => void {
       // Stale. Two runs may both find it stale: taking it over by deleting it would let the later
       // one delete the earlier one's fresh lock. So move it aside under a private name (atomic;
       // only one run gets any given file), and check that what we moved is the stale lock we read.
-      const aside = `${file}.${process.pid}.stale`;
+      const aside = `${file}.${randomBytes(8).toString('hex')}.stale`;
       try {
         renameSync(file, aside);
       } catch (err) {

@@ -25,6 +25,11 @@ export interface AnalyzeOptions {
   pageSize?: 'a4' | 'letter';
   /** ISO timestamp used for generatedAt and the PDFs. */
   creationDate?: string;
+  /**
+   * Stops the run when aborted (the CLI aborts it on SIGINT/SIGTERM): temporary files are
+   * removed, the lock released, and runAnalyze throws InterruptedError saying how far it got.
+   */
+  signal?: AbortSignal;
   /** Where results and messages go (the CLI passes process streams; tests can capture). */
   io?: BatchIo;
 }

@@ -19,7 +19,7 @@ import type { CdfCurve } from '../report/cdfCurve.js';
 import { DEFAULT_PERCENTILES_PCT, type AnalyzeOptions, type BatchIo } from './options.js';
 import { InterruptedError, RunError, formatInputError as formatError } from './errors.js';
 import { discoverInputs, groupKey, toPosix, byCodePoint } from './discover.js';
-import { OutputWriter, outputDirProblem } from './outputDir.js';
+import { OutputWriter, outputDirProblem, randomRunId } from './outputDir.js';
 import { acquireLock, LockBusyError } from './lock.js';
 import { TaskPool, type PoolHooks } from './pool.js';
 import type { ReferencePattern, TaskInput, TaskOutput, UnitOutput } from './unitTask.js';
@@ -30,6 +30,13 @@ import { frequencyToken, uniqueStems } from './sanitize.js';
 import { exitCode } from './exitCode.js';
 import { TOOL_VERSION } from './version.js';
 import { crossUnitExtras } from './crossUnit.js';
+import { fsReason, isFsError } from '../io/fsProblem.js';
+import { injectFault } from './faults.js';
+
+/** "interrupted" (SIGINT, or an abort without a named signal) or "stopped by SIGTERM". */
+function interruptName(signal: AbortSignal | undefined): string {
+  return signal?.reason === 'SIGTERM' ? 'stopped by SIGTERM' : 'interrupted';
+}
 
 const silentIo: BatchIo = { stdout: () => undefined, stderr: () => undefined, stderrIsTTY: false };
 
@@ -206,12 +213,16 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   }
   const tasks = [...groups.keys()].sort(byCodePoint).map((k) => makeTask(k, groups.get(k) as string[]));
 
+  const signal = opts.signal;
+  const stopped = (): boolean => signal?.aborted === true;
+  if (stopped()) throw new InterruptedError(`${interruptName(signal)} before any output was written; the previous run's files are unchanged`);
+
   let writer: OutputWriter;
   let release: () => void = () => undefined;
   try {
     await mkdir(outDir, { recursive: true });
     release = acquireLock(outDir);
-    writer = await OutputWriter.open(outDir, `${process.pid}-${Date.now().toString(36)}`);
+    writer = await OutputWriter.open(outDir, randomRunId(), { signal, stderr: io.stderr });
   } catch (e) {
     release();
     if (e instanceof LockBusyError) throw new RunError(e.message);
@@ -220,18 +231,15 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
 
   const progress = new Progress(tasks.length, io.stderrIsTTY && !opts.quiet ? io.stderr : null);
   const pool = new TaskPool();
-  let interrupted = false;
   let stage = 'analyzing';
   const spooled = new Map<UnitOutput, string>();
   const spooling: Promise<void>[] = [];
-  const onSigint = () => {
-    interrupted = true;
-    void pool.terminate();
-  };
-  process.on('SIGINT', onSigint);
+  let spoolError: unknown = null;
+  const onAbort = () => void pool.terminate();
+  signal?.addEventListener('abort', onAbort);
   try {
     const hooks: PoolHooks = {
-      aborted: () => interrupted,
+      aborted: stopped,
       onStart: (t) => progress.start(t.key),
       onDone: (_t, out) => {
         progress.finish();
@@ -240,7 +248,9 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
           if (!u.pdf) continue;
           const bytes = u.pdf;
           u.pdf = null;
-          spooling.push(writer.spool(bytes).then((p) => void spooled.set(u, p)));
+          // A failed spool (a full disk) is kept and thrown once the analysis is over, never left
+          // as an unhandled rejection that would end the process mid-run.
+          spooling.push(writer.spool(bytes).then((p) => void spooled.set(u, p), (err: unknown) => void (spoolError ??= err)));
         }
       },
     };
@@ -262,16 +272,18 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       outputs.push(refOut);
     }
     const rest = tasks.filter((_t, i) => i !== refIndex).map((t) => (referencePatterns ? { ...t, referencePatterns } : t));
-    if (!interrupted) outputs.push(...(await pool.run(rest, jobs, hooks)));
+    await injectFault('analysis', 'analyze', input, signal, io.stderr);
+    if (!stopped()) outputs.push(...(await pool.run(rest, jobs, hooks)));
     await Promise.all(spooling);
-    if (interrupted) throw new InterruptedError('stop');
+    if (spoolError !== null) throw spoolError;
+    if (stopped()) throw new InterruptedError('stop');
     for (const comp of collidingGroups(outputs)) {
       const files = comp.flatMap((k) => groups.get(k) as string[]).sort((a, b) => byCodePoint(toPosix(a), toPosix(b)));
       const [merged] = await pool.run([{ ...makeTask(comp.join('+'), files), referencePatterns }], 1);
       for (let i = outputs.length - 1; i >= 0; i--) if (comp.includes(outputs[i].key)) outputs.splice(i, 1);
       outputs.push(merged);
     }
-    if (interrupted) throw new InterruptedError('stop');
+    if (stopped()) throw new InterruptedError('stop');
 
     const unitOutputs: UnitOutput[] = outputs.flatMap((o) => o.units).sort((a, b) => compareUnits(a.result, b.result));
     const units = unitOutputs.map((u) => u.result);
@@ -307,7 +319,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
 
     stage = 'writing';
     const write = async (name: string, data: string | Uint8Array): Promise<void> => {
-      if (interrupted) throw new InterruptedError('stop');
+      if (stopped()) throw new InterruptedError('stop');
       await writer.write(name, data);
     };
     // No results.json while files are being replaced: a run killed here cannot look finished.
@@ -316,7 +328,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       const stems = uniqueStems(units.map((u) => (u.frequencyHz === null ? u.unit : `${u.unit}_${frequencyToken(u.frequencyHz)}`)));
       for (let i = 0; i < unitOutputs.length; i++) {
         const file = spooled.get(unitOutputs[i]);
-        if (interrupted) throw new InterruptedError('stop');
+        if (stopped()) throw new InterruptedError('stop');
         const bytes = unitOutputs[i].pdf;
         if (file) await writer.commit(file, `${stems[i]}.pdf`);
         else if (bytes) await write(`${stems[i]}.pdf`, bytes);
@@ -360,16 +372,23 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     return { results, exitCode: exitCode(results) };
   } catch (e) {
     progress.clear();
-    if (interrupted) {
-      await writer.removeTemps();
+    await writer.removeTemps();
+    if (stopped()) {
       const how = stage === 'analyzing'
         ? `interrupted while analyzing: ${progress.count} of ${tasks.length} group(s) done; no outputs were written, the previous run's files are unchanged`
         : `interrupted while writing: ${writer.files.length} file(s) replaced (${writer.files.join(', ')}); run again to complete`;
-      throw new InterruptedError(how);
+      throw new InterruptedError(`${interruptName(signal)} ${how.replace(/^interrupted /, '')}`);
+    }
+    if (isFsError(e)) {
+      const where = e.path ? ` ('${path.basename(e.path)}')` : '';
+      const done = writer.files.length > 0
+        ? `${writer.files.length} file(s) were replaced (${writer.files.join(', ')}) and results.json was not written`
+        : stage === 'writing' ? "no output was replaced" : "no outputs were written, the previous run's files are unchanged";
+      throw new RunError(`could not write to the output folder '${opts.outDir}'${where}: ${fsReason(e)}; ${done}; temporary files were removed. Free space or fix the folder and run again`);
     }
     throw e;
   } finally {
-    process.off('SIGINT', onSigint);
+    signal?.removeEventListener('abort', onAbort);
     release();
   }
 }

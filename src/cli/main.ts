@@ -12,6 +12,7 @@ import type { AnalyzeOptions, BatchIo } from '../batch/options.js';
 import type { Quantity } from '../types.js';
 import { TOOL_VERSION } from '../batch/version.js';
 import { runInspect, runLimits } from './commands.js';
+import { exitCodeForSignal, interruptSignal, receivedSignal } from './signals.js';
 
 const EXAMPLES = `
 Examples:
@@ -89,7 +90,7 @@ function buildProgram(io: BatchIo, state: { code: number }): Command {
     .argument('<input>', 'folder of exports (scanned recursively for .csv/.tsv/.txt) or one file');
   addOptions(analyze, 'analyze');
   analyze.addHelpText('after', EXAMPLES).action(async (input: string, o: Record<string, unknown>) => {
-    const opts = toAnalyzeOptions(input, o, io);
+    const opts = { ...toAnalyzeOptions(input, o, io), signal: interruptSignal() };
     const { exitCode } = await runAnalyze(opts);
     state.code = exitCode;
   });
@@ -122,10 +123,21 @@ function buildProgram(io: BatchIo, state: { code: number }): Command {
 export async function main(argv: string[], io: BatchIo = defaultIo()): Promise<number> {
   const state = { code: 0 };
   const program = buildProgram(io, state);
+  let finished = true;
   try {
     await program.parseAsync(joinNegativeValues(argv), { from: 'user' });
   } catch (e) {
+    finished = false;
     state.code = codeForError(e, io);
+  }
+  const sig = receivedSignal();
+  if (sig !== null && state.code !== exitCodeForSignal(sig)) {
+    if (finished) {
+      // The signal came after the work was done (or during a command that does not stop early):
+      // say so, and still exit with the signal's code, as a shell expects of an interrupted program.
+      io.stderr(`spherecov: ${sig === 'SIGTERM' ? 'stopped by SIGTERM' : 'interrupted'} after the command had finished; nothing was cut short\n`);
+    }
+    state.code = exitCodeForSignal(sig);
   }
   process.exitCode = state.code;
   return state.code;
@@ -143,7 +155,8 @@ function codeForError(e: unknown, io: BatchIo): number {
   }
   if (e instanceof InterruptedError) {
     io.stderr(`spherecov: ${e.message}\n`);
-    return EXIT_INTERRUPTED;
+    const sig = receivedSignal();
+    return sig ? exitCodeForSignal(sig) : EXIT_INTERRUPTED;
   }
   const msg = e instanceof Error ? e.message : String(e);
   io.stderr(`spherecov: internal error: ${msg}\nPlease report this with the command you ran.\n`);

@@ -1,7 +1,8 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync, mkdirSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync, mkdirSync, symlinkSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { createHash } from 'node:crypto';
 import { MANIFEST_NAME, OutputWriter, outputDirProblem } from '../../src/batch/outputDir.js';
 import { acquireLock, LOCK_NAME, LockBusyError } from '../../src/batch/lock.js';
 
@@ -31,7 +32,34 @@ describe('OutputWriter', () => {
     expect(await w2.finish()).toEqual(['U-02.pdf']);
     expect(readdirSync(dir).sort()).toEqual([MANIFEST_NAME, 'U-01.pdf', 'notes.txt']);
     const m = JSON.parse(readFileSync(path.join(dir, MANIFEST_NAME), 'utf8'));
-    expect(m).toEqual({ tool: 'spherecov', complete: true, files: ['U-01.pdf'] });
+    // The hash is the SHA-256 of the bytes 'x2' (node:crypto, the FIPS 180-4 digest).
+    expect(m).toEqual({ tool: 'spherecov', complete: true, files: ['U-01.pdf'], sha256: { 'U-01.pdf': [createHash('sha256').update('x2').digest('hex')] } });
+  });
+
+  it('never deletes a file a foreign manifest lists, nor one of ours that someone has changed since', async () => {
+    writeFileSync(path.join(dir, 'precious.txt'), 'not ours');
+    writeFileSync(path.join(dir, MANIFEST_NAME), JSON.stringify({ tool: 'spherecov', complete: true, files: ['precious.txt'] }));
+    const w1 = await OutputWriter.open(dir);
+    await w1.write('U-09.pdf', 'ours');
+    expect(await w1.finish()).toEqual([]);
+    expect(readFileSync(path.join(dir, 'precious.txt'), 'utf8')).toBe('not ours');
+    writeFileSync(path.join(dir, 'U-09.pdf'), 'edited by hand');
+    const w2 = await OutputWriter.open(dir);
+    await w2.write('results.json', '{}');
+    expect(await w2.finish()).toEqual([]);
+    expect(readFileSync(path.join(dir, 'U-09.pdf'), 'utf8')).toBe('edited by hand');
+  });
+
+  it('creates temporary files exclusively under random names: a planted link is never followed', async () => {
+    const victim = path.join(dir, '..', `${path.basename(dir)}-victim.txt`);
+    writeFileSync(victim, 'keep');
+    const w = await OutputWriter.open(dir, 'r1');
+    // Even a link planted at the exact temporary name (here guessable because the test fixed the
+    // run id) makes the write fail with EEXIST instead of writing through it.
+    symlinkSync(victim, path.join(dir, '.spherecov-tmp-r1-0-.spherecov-manifest.json'));
+    await expect(w.write('a.txt', 'x')).rejects.toMatchObject({ code: 'EEXIST' });
+    expect(readFileSync(victim, 'utf8')).toBe('keep');
+    rmSync(victim);
   });
 
   it('records a name in the manifest before writing it, so a killed run is cleaned up by the next', async () => {

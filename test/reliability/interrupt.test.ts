@@ -4,17 +4,18 @@
  * SIGKILL at seeded random points of a multi-unit batch (some timed, some right after the n-th
  * output file appears, so the writing stage is hit too): afterwards no file under a final name
  * is partial (each equals the reference run's file byte for byte, PDFs whole, JSON parses), and
- * a re-run completes with the reference results.json and no leftovers. SIGINT while writing
- * stops with exit 130 and says how far it got (the analyzing-stage SIGINT case is in
+ * a re-run completes with the reference results.json and no leftovers. SIGINT (SIGTERM) while
+ * writing stops with exit 130 (143) and says how far it got (the analyzing-stage SIGINT case is in
  * test/cli/e2e.test.ts). Two concurrent runs: one refuses in plain words, the other's outputs
  * are intact.
  */
 import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import type { ChildProcess } from 'node:child_process';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { ensureBuilt } from '../cli/buildOnce.js';
 import {
-  analyzeArgs, DATE, expectNoPartialOutputs, finalFiles, LOCK, multiUnitInput, pdfPages, prng, runAsync, runSync, TEMP_MARK, tmp,
+  analyzeArgs, DATE, expectNoPartialOutputs, finalFiles, LOCK, MANIFEST, multiUnitInput, pdfPages, prng, runAsync, runSync, TEMP_MARK, tmp,
 } from './cliHarness.js';
 import { recordFigure, SOAK } from './figures.js';
 
@@ -34,6 +35,22 @@ beforeAll(() => {
   expect(r.code).toBe(0);
   refMs = r.ms;
 }, 180_000);
+
+/** Resolve once the child's stderr matches `re` (or it ends). */
+function untilStderr(child: ChildProcess, re: RegExp): Promise<void> {
+  return new Promise((resolve) => {
+    let text = '';
+    const check = (d: unknown) => {
+      text += String(d);
+      if (re.test(text)) {
+        child.stderr!.off('data', check);
+        resolve();
+      }
+    };
+    child.stderr!.on('data', check);
+    child.on('close', () => resolve());
+  });
+}
 
 /** Wait until `n` final outputs exist in `out` (polling), or the child ends. */
 async function afterFiles(out: string, n: number, ended: () => boolean): Promise<void> {
@@ -107,22 +124,28 @@ describe('leftovers of a killed run', () => {
   }, 120_000);
 });
 
-describe('SIGINT while writing', () => {
-  it('exit 130, says how many files were replaced, no temporary files, lock released, nothing partial', async () => {
-    const out = tmp('int');
-    const { child, done } = runAsync(analyzeArgs(input, out, ['--jobs', '2']));
-    let ended = false;
-    void done.then(() => (ended = true));
-    await afterFiles(out, 1, () => ended);
-    child.kill('SIGINT');
-    const r = await done;
-    expect(r.code).toBe(130);
-    expect(r.stderr).toMatch(/interrupted while writing: \d+ file\(s\) replaced .*; run again to complete/);
-    expect(r.stderr).not.toMatch(/^\s+at /m);
-    expect(readdirSync(out).filter((f) => f.startsWith(TEMP_MARK) || f === LOCK)).toEqual([]);
-    expect(finalFiles(out)).not.toContain('results.json');
-    expectNoPartialOutputs(out, ref);
-  }, 120_000);
+describe('SIGINT and SIGTERM while writing', () => {
+  // The run is held just before summary.csv (after the unit PDFs were replaced) by the test
+  // fault hook (src/batch/faults.ts), and the signal is sent only once the run says it is
+  // there: the signal lands in the writing stage on every run, however loaded the machine.
+  for (const [sig, code, words] of [['SIGINT', 130, 'interrupted'], ['SIGTERM', 143, 'stopped by SIGTERM']] as const) {
+    it(`${sig}: exit ${code}, says how many files were replaced, no temporary files, lock released, nothing partial`, async () => {
+      const out = tmp('int');
+      const { child, done } = runAsync(analyzeArgs(input, out, ['--jobs', '2']), { ...process.env, SPHERECOV_TEST_FAULTS: 'pause:summary.csv' });
+      await untilStderr(child, /test pause before summary\.csv/);
+      child.kill(sig);
+      const r = await done;
+      expect(r.signal).toBeNull();
+      expect(r.code).toBe(code);
+      expect(r.stderr).toMatch(new RegExp(`${words} while writing: [1-9]\\d* file\\(s\\) replaced .*; run again to complete`));
+      expect(r.stderr).not.toMatch(/^\s+at /m);
+      expect(readdirSync(out).filter((f) => f.startsWith(TEMP_MARK) || f === LOCK)).toEqual([]);
+      expect(finalFiles(out)).not.toContain('results.json');
+      expectNoPartialOutputs(out, ref);
+      const manifest = JSON.parse(readFileSync(path.join(out, MANIFEST), 'utf8')) as { complete: boolean };
+      expect(manifest.complete).toBe(false);
+    }, 120_000);
+  }
 });
 
 describe('two runs into the same output folder', () => {
