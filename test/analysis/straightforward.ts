@@ -112,42 +112,48 @@ export function straightGreedySubset(
 ): BeamSubset {
   if (beams.length !== ids.length) throw new Error(`greedySubset: ${beams.length} beams but ${ids.length} ids`);
   if (!(toleranceDb >= 0)) throw new Error(`greedySubset: tolerance ${toleranceDb} dB must be ≥ 0`);
-  const n = grid.weightSr.length;
+  const n = grid.weightSr.length, w = grid.weightSr;
   const lowerIsBetter = quantity === 'eis';
   const worst = lowerIsBetter ? Infinity : -Infinity;
-  const select = straightSelector(grid.weightSr, quantity, levelPct);
+  const select = straightSelector(w, quantity, levelPct);
   const finite = (v: number | null): number | null => (v === null || !Number.isFinite(v) ? null : v);
   const running = new Float64Array(n).fill(worst);
   for (const b of beams) for (let i = 0; i < n; i++) if (lowerIsBetter ? b[i] < running[i] : b[i] > running[i]) running[i] = b[i];
   const full = finite(select(running));
+  // Best share per beam (first beam wins ties), for the not-evaluable case.
+  const share = new Float64Array(beams.length);
+  for (let i = 0; i < n; i++) {
+    let best = -1;
+    for (let k = 0; k < beams.length; k++) if (lowerIsBetter ? beams[k][i] < (best < 0 ? worst : beams[best][i]) : beams[k][i] > (best < 0 ? worst : beams[best][i])) best = k;
+    if (best >= 0) share[best] += w[i];
+  }
   running.fill(worst);
-  const scratch = new Float64Array(n);
+  const t = full === null ? NaN : lowerIsBetter ? full + toleranceDb : full - toleranceDb;
+  const reaches = (v: number): boolean => (lowerIsBetter ? v <= t : v >= t);
+  const reached = new Uint8Array(n);
   const chosen = new Uint8Array(beams.length);
   const subset: string[] = [];
   const curve: { count: number; value: number | null }[] = [];
-  let current: number | null = null;
-  while (subset.length < beams.length && !(full !== null && current !== null && Math.abs(full - current) <= toleranceDb + 1e-12)) {
-    let pick = -1, pickValue: number | null = null, pickMean = NaN;
+  while (subset.length < beams.length) {
+    // Recount every remaining beam's gain from scratch: Σ w over points it reaches that no chosen beam reached.
+    let pick = -1, pickGain = -Infinity;
     for (let k = 0; k < beams.length; k++) {
       if (chosen[k]) continue;
-      const changes = merge(running, beams[k], scratch, lowerIsBetter);
-      const value: number | null = subset.length > 0 && !changes ? current : finite(select(scratch));
-      const cmp = pick < 0 ? 1 : compare(value, pickValue, lowerIsBetter);
-      if (cmp < 0) continue;
-      if (cmp === 0) {
-        if (Number.isNaN(pickMean)) pickMean = weightedMean(mergedInto(running, beams[pick], scratch, lowerIsBetter), grid.weightSr, lowerIsBetter);
-        const mean = weightedMean(mergedInto(running, beams[k], scratch, lowerIsBetter), grid.weightSr, lowerIsBetter);
-        if (!(lowerIsBetter ? mean < pickMean : mean > pickMean)) continue;
-        pickMean = mean;
-      } else pickMean = NaN;
-      pick = k;
-      pickValue = value;
+      let gain = 0;
+      if (full === null) gain = share[k];
+      else for (let i = 0; i < n; i++) if (!reached[i] && reaches(beams[k][i])) gain += w[i];
+      if (gain > pickGain) { pick = k; pickGain = gain; }
     }
     chosen[pick] = 1;
     subset.push(ids[pick]);
-    mergedInto(running, beams[pick], running, lowerIsBetter);
-    current = pickValue;
-    curve.push({ count: subset.length, value: current });
+    for (let i = 0; i < n; i++) {
+      const b = beams[pick][i];
+      if (full !== null && reaches(b)) reached[i] = 1;
+      if (lowerIsBetter ? b < running[i] : b > running[i]) running[i] = b;
+    }
+    const value = finite(select(running));
+    curve.push({ count: subset.length, value });
+    if (full !== null && value !== null && Math.abs(full - value) <= toleranceDb + 1e-12) break;
   }
   return { levelPct, toleranceDb, beams: subset, curve };
 }
