@@ -73,6 +73,12 @@ function listErrors(out: string[], errors: InputError[], warnings: Warning[], in
   }
 }
 
+function headerHow(h: { chosen: string; preambleLines: number }): string {
+  if (h.chosen === 'job') return ' (header_line in the job file)';
+  if (h.chosen === 'detected') return ` (found below a ${h.preambleLines}-line preamble: the first row naming two angles and a value)`;
+  return '';
+}
+
 /** Plain-text rendering of an inspect report (stdout of `spherecov inspect`). */
 export function formatInspect(r: InspectReport): string {
   const out: string[] = [`input: ${r.input}`, `job file: ${r.job.path ?? 'none'}`];
@@ -84,8 +90,9 @@ export function formatInspect(r: InspectReport): string {
       out.push(`  layout: ${f.layout}; delimiter: ${delimName[f.delimiter ?? ','] ?? 'n/a'}${f.decimalComma ? ', decimal comma' : ''}; ${f.lineEnding ?? ''}${f.bom ? ', BOM' : ''}; parser: ${f.parser ?? 'n/a'}`);
       out.push(`  quantity: ${f.quantity} (${f.valueUnit}${f.fileValueUnit !== f.valueUnit ? `, written in ${f.fileValueUnit}` : ''})${f.calibrated ? ', calibrated from received power' : ''}`);
       out.push(`  angles: ${f.angleConvention} in ${f.angleUnit}`);
+      if (f.header) out.push(`  header: line ${f.header.line}${headerHow(f.header)}`);
       out.push('  columns:');
-      for (const c of f.columns) out.push(`    ${String(c.index + 1).padStart(3)}  ${c.name.padEnd(24)} ${c.role ?? 'ignored'}${c.unit ? ` [${c.unit}]` : ''}`);
+      for (const c of f.columns) out.push(`    ${String(c.index + 1).padStart(3)}  ${c.name.padEnd(24)} ${c.role ?? 'ignored'}${c.beam !== undefined ? ` (beam ${c.beam})` : ''}${c.unit ? ` [${c.unit}]` : ''}`);
       if (f.matrixColumnsDeg) out.push(`  matrix columns: ${f.matrixColumnsDeg.join(', ')}`);
       out.push(`  rows: ${f.rows}`);
       out.push(`  identity: unit from ${f.identity.unit}, beam from ${f.identity.beam}, frequency from ${f.identity.frequency}`);

@@ -21,7 +21,7 @@ const ROLE_KEYS: Record<string, ColumnRole> = {
   theta: 'theta', phi: 'phi', azimuth: 'azimuth', elevation: 'elevation', value: 'value', value_theta: 'valueTheta',
   value_phi: 'valuePhi', power: 'power', pol: 'pol', unit: 'unit', beam: 'beam', frequency: 'frequency',
 };
-const TOP_KEYS = ['columns', 'identity', 'quantity', 'value_unit', 'angles', 'frequency_unit', 'calibration', 'limits', 'checks',
+const TOP_KEYS = ['columns', 'identity', 'quantity', 'value_unit', 'angles', 'frequency_unit', 'header_line', 'calibration', 'limits', 'checks',
   'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference'];
 const FREQ_KEYS: Record<string, number> = { frequency_hz: 1, frequency_mhz: 1e6, frequency_ghz: 1e9 };
 
@@ -171,6 +171,11 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
   job.quantity = c.oneOf(top.quantity, ['quantity'], ['eirp', 'eis', 'gain'] as const);
   job.valueUnit = c.oneOf(top.value_unit, ['value_unit'], ['dBm', 'dBi', 'mW', 'W'] as const);
   job.frequencyUnit = c.oneOf(top.frequency_unit, ['frequency_unit'], ['Hz', 'MHz', 'GHz'] as const);
+  if (top.header_line !== undefined) {
+    const n = c.number(top.header_line, ['header_line']);
+    if (n !== undefined && !(Number.isInteger(n) && n >= 1)) c.fail(['header_line'], top.header_line, 'a line number (1 or more)');
+    else job.headerLine = n;
+  }
   if (top.angles !== undefined) {
     const a = c.object(top.angles, ['angles'], ['convention', 'unit']);
     if (a) job.angles = { convention: c.oneOf(a.convention, ['angles', 'convention'], ['theta-phi', 'az-el'] as const), unit: c.oneOf(a.unit, ['angles', 'unit'], ['deg', 'rad'] as const) };

@@ -10,7 +10,7 @@ import { generalTokenize } from './generalTokenizer.js';
 import { ErrorList, inputError } from './inputError.js';
 import { KeyTable } from './keyTable.js';
 import type { PlanFacts } from './layouts/layoutTypes.js';
-import { planLayout } from './layouts/registry.js';
+import { isLayoutHeader, planLayout } from './layouts/registry.js';
 import { parseNumberText } from './numberText.js';
 import { pathIdentity } from './pathIdentity.js';
 import { MAX_SAMPLES_PER_FILE, SampleLimit } from './sampleLimit.js';
@@ -49,7 +49,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
     const size = (await fh.stat()).size;
     const head = Buffer.alloc(Math.min(size, HEAD_BYTES));
     await fh.read(head, 0, head.length, 0);
-    const sniff = sniffHead(file, head, size <= HEAD_BYTES);
+    const sniff = sniffHead(file, head, size <= HEAD_BYTES, { line: ctx.job?.headerLine, isHeader: (cells) => isLayoutHeader(cells, ctx.job) });
     if (!('delimiter' in sniff)) {
       result.sha256 = createHash('sha256').update(await readFile(absPath)).digest('hex');
       result.errors.push(sniff);
@@ -57,6 +57,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
     }
     Object.assign(info, {
       delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, bom: sniff.bom, lineEnding: sniff.lineEnding, metadata: sniff.metadata,
+      header: { line: sniff.headerLine, chosen: sniff.headerChoice, preambleLines: sniff.preambleLines },
     });
     const headerNums = sniff.headerCells.map((c) => parseNumberText(c, sniff.decimalComma));
     if (headerNums.every((v) => typeof v === 'number')) {

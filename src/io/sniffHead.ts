@@ -21,7 +21,22 @@ export interface HeadInfo {
   dataCharStart: number;
   /** The data part of the head holds a quote character: use the general path. */
   quoted: boolean;
+  /** How the header line was chosen: the first row, detected below a free-text preamble, or the job file's header_line. */
+  headerChoice: 'first-row' | 'detected' | 'job';
+  /** Non-comment lines before the header that were skipped as a preamble. */
+  preambleLines: number;
 }
+
+/** How to find the header: the job file's line, and a test that a row names a layout's header. */
+export interface HeaderRule {
+  /** 1-based physical line of the header (job file `header_line`). */
+  line?: number;
+  /** Does this row (split at the given delimiter) look like a header? */
+  isHeader?: (cells: string[]) => boolean;
+}
+
+const PREAMBLE_META_RE = /^\s*([A-Za-z][\w .-]*?)\s*[:=]\s*(.*?)\s*$/;
+const DELIMITERS = [',', ';', '\t'];
 
 const META_RE = /^#\s*([A-Za-z][\w .-]*?)\s*[:=]\s*(.*?)\s*$/;
 
@@ -51,7 +66,7 @@ function lineColOf(head: Buffer, offset: number): [number, number] {
  * (delimiter by papaparse's guesser over the header and the first rows; decimal commas accepted
  * when the delimiter is ';' or tab; BOM; line ending) from the head bytes.
  */
-export function sniffHead(file: string, head: Buffer, wholeFile: boolean): HeadInfo | InputError {
+export function sniffHead(file: string, head: Buffer, wholeFile: boolean, rule: HeaderRule = {}): HeadInfo | InputError {
   if (head.length === 0) return inputError(file, 1, 1, 'file', 'an empty file', 'a header row and data rows', true);
   const bin = binaryAt(head);
   if (bin >= 0) {
@@ -70,24 +85,58 @@ export function sniffHead(file: string, head: Buffer, wholeFile: boolean): HeadI
   const metadataLines: Record<string, number> = {};
   let pos = 0;
   let line = 1;
-  let header: { text: string; line: number; start: number; next: number } | null = null;
+  type Line = { text: string; line: number; start: number; next: number };
+  let header: Line | null = null;
+  /** The first row: the header when no row below it looks like one (or no test is given). */
+  let firstRow: Line | null = null;
+  /** Non-comment rows before a detected header, with the metadata they would give. */
+  const preamble: Line[] = [];
   while (pos < text.length) {
     const nl = text.indexOf('\n', pos);
     const next = nl < 0 ? text.length : nl + 1;
     const raw = text.slice(pos, nl < 0 ? text.length : nl).replace(/\r$/, '');
-    if (raw.startsWith('#')) {
-      const m = META_RE.exec(raw);
-      if (m) {
-        const key = m[1].trim().toLowerCase();
-        metadata[key] = m[2];
-        metadataLines[key] = line;
+    const here: Line = { text: raw, line, start: pos, next };
+    if (rule.line !== undefined) {
+      if (line === rule.line) {
+        if (raw.startsWith('#') || raw.trim() === '') {
+          return inputError(file, line, 1, 'header', raw.trim() === '' ? 'a blank line' : raw, 'the header row at this line (header_line in the job file)', raw.trim() === '');
+        }
+        header = here;
+        break;
       }
+      if (raw.startsWith('#')) readMeta(META_RE, raw, line, metadata, metadataLines);
+      else if (raw.trim() !== '') preamble.push(here);
+    } else if (raw.startsWith('#')) {
+      if (firstRow === null) readMeta(META_RE, raw, line, metadata, metadataLines);
     } else if (raw.trim() !== '') {
-      header = { text: raw, line, start: pos, next };
-      break;
+      if (rule.isHeader === undefined) {
+        header = here;
+        break;
+      }
+      if (DELIMITERS.some((d) => rule.isHeader!(raw.split(d)))) {
+        header = here;
+        break;
+      }
+      firstRow ??= here;
+      preamble.push(here);
     }
     pos = next;
     line++;
+  }
+  let headerChoice: HeadInfo['headerChoice'] = rule.line !== undefined ? 'job' : 'first-row';
+  if (header && preamble.length > 0 && rule.line === undefined) headerChoice = 'detected';
+  if (!header && firstRow) {
+    // No row looks like a header: the first row is the header (its problems are reported there).
+    header = firstRow;
+    preamble.length = 0;
+  }
+  if (header && rule.line === undefined && headerChoice === 'detected') {
+    // '#' lines below the first row were not read above; a detected header keeps them all.
+    scanComments(text, firstRow!.start, header.start, firstRow!.line, metadata, metadataLines);
+  }
+  for (const p of preamble) readMeta(PREAMBLE_META_RE, p.text, p.line, metadata, metadataLines);
+  if (!header && rule.line !== undefined) {
+    return inputError(file, rule.line, 1, 'header', `no line ${rule.line} in the first 64 KiB`, 'the header row at this line (header_line in the job file)', true);
   }
   if (!header) {
     if (!wholeFile) return inputError(file, line, 1, 'header', 'no header row in the first 64 KiB', 'a header row naming the columns', true);
@@ -119,7 +168,31 @@ export function sniffHead(file: string, head: Buffer, wholeFile: boolean): HeadI
     dataByteStart: (bom ? 3 : 0) + byteOffsetOfLine(body, text, header.next),
     dataCharStart: header.next,
     quoted: dataPart.includes('"'),
+    headerChoice,
+    preambleLines: preamble.length,
   };
+}
+
+function readMeta(re: RegExp, raw: string, line: number, metadata: Record<string, string>, lines: Record<string, number>): void {
+  const m = re.exec(raw);
+  if (!m) return;
+  const key = m[1].trim().toLowerCase();
+  metadata[key] = m[2];
+  lines[key] = line;
+}
+
+/** Read the '#' metadata lines of text[from, to) (line numbers from `line`). */
+function scanComments(text: string, from: number, to: number, line: number, metadata: Record<string, string>, lines: Record<string, number>): void {
+  let pos = from;
+  let n = line;
+  while (pos < to) {
+    const nl = text.indexOf('\n', pos);
+    const next = nl < 0 ? text.length : nl + 1;
+    const raw = text.slice(pos, nl < 0 ? text.length : nl).replace(/\r$/, '');
+    if (raw.startsWith('#')) readMeta(META_RE, raw, n, metadata, lines);
+    pos = next;
+    n++;
+  }
 }
 
 /**

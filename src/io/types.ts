@@ -4,7 +4,7 @@
 import type { GridSummary, InputError, Quantity, ValueUnit, Warning } from '../types.js';
 
 /** Export layouts the readers know (src/io/layouts/registry.ts). */
-export type LayoutName = 'long' | 'matrix';
+export type LayoutName = 'long' | 'matrix' | 'wide';
 
 /** Column roles a header cell (or a job-file `columns:` entry) can take. */
 export type ColumnRole =
@@ -44,6 +44,8 @@ export interface JobSpec {
   angles?: { convention?: 'theta-phi' | 'az-el'; unit?: 'deg' | 'rad' };
   /** Unit of a frequency column without one in its header. */
   frequencyUnit?: 'Hz' | 'MHz' | 'GHz';
+  /** 1-based line of the header row, when detection below a preamble cannot settle it. */
+  headerLine?: number;
   calibration?: { table: CalibrationPoint[] };
   limits?: string;
   checks?: Record<string, unknown>[];
@@ -95,6 +97,8 @@ export interface ColumnInfo {
   role: ColumnRole | 'matrix-angle' | null;
   /** Unit from the header (deg, rad, dBm, dBi, mW, W, Hz, MHz, GHz), or null. */
   unit: string | null;
+  /** Wide layout: the beam this value column belongs to (from its header). */
+  beam?: string;
 }
 
 /** How a file was understood (for `spherecov inspect`). */
@@ -118,6 +122,11 @@ export interface FileInfo {
   identity: { unit: IdentitySource; beam: IdentitySource; frequency: IdentitySource };
   /** Matrix layout: the column angles. */
   matrixColumnsDeg?: number[];
+  /**
+   * The header row: its line, and how it was chosen (the first row; detected below a free-text
+   * preamble of `preambleLines` rows; or the job file's header_line).
+   */
+  header?: { line: number; chosen: 'first-row' | 'detected' | 'job'; preambleLines: number };
   calibrated: boolean;
 }
 

@@ -14,7 +14,21 @@ const VARIANTS = [
   'long_mw.csv',
   'matrix',
   'calibrated',
+  'wide.csv',
+  'wide_pair_co_cross.csv',
+  'wide_frequency_block.tsv',
+  'preamble.csv',
+  'long_pair_co_cross.csv',
+  'long_pair_h_v.csv',
+  'long_pair_lhcp_rhcp.csv',
+  'long_pair_etheta_ephi.csv',
+  'long_pol_column_h_v.csv',
+  'calibrated_rx',
 ];
+/** Data rows of each variant: 84 directions × 2 beams in the long layout. */
+const ROWS: Record<string, number> = {
+  'long_pol_column.csv': 336, 'long_pol_column_h_v.csv': 336, matrix: 14, 'wide.csv': 84, 'wide_pair_co_cross.csv': 84, 'wide_frequency_block.tsv': 84,
+};
 
 describe('every layout and convention reads into the same measurement as the long layout', async () => {
   const ref = await readAll(path.join(IO, 'long.csv'));
@@ -35,7 +49,7 @@ describe('every layout and convention reads into the same measurement as the lon
       expect(got.errors).toEqual([]);
       expect(got.measurements).toHaveLength(1);
       expect(got.files.map((f) => f.info.parser)).toEqual(got.files.map(() => (v === 'long_quoted.csv' ? 'general' : 'fast')));
-      expect(got.files.reduce((n, f) => n + f.info.rows, 0)).toBe(v === 'long_pol_column.csv' ? 336 : v === 'matrix' ? 14 : 168);
+      expect(got.files.reduce((n, f) => n + f.info.rows, 0)).toBe(ROWS[v] ?? 168);
       const [a, b] = [got.measurements[0], ref.measurements[0]];
       expect([a.unit, a.frequencyHz, a.quantity, a.valueUnit]).toEqual([b.unit, b.frequencyHz, b.quantity, b.valueUnit]);
       expect(a.beams.map((x) => x.id)).toEqual(b.beams.map((x) => x.id));

@@ -104,6 +104,41 @@ describe('writer → reader round trip', () => {
     expect(got.every((b) => b.quantity === 'eis')).toBe(true);
   });
 
+  it('wide layout: one column per beam, beam ids from the headers', async () => {
+    await roundTrip('wide_28GHz.csv', beams, { layout: 'wide' }, printed, EXACT);
+  });
+
+  it('wide layout with two polarization columns per beam, under each pair naming', async () => {
+    for (const names of [['theta', 'phi'], ['co', 'cross'], ['H', 'V'], ['LHCP', 'RHCP']] as [string, string][]) {
+      await roundTrip(`wide_pair_${names[0]}_28GHz.csv`, beams, { layout: 'wide-pair', pairNames: names }, pairSum, 1e-9);
+    }
+  });
+
+  it('long polarization pair and pol column under other pair names', async () => {
+    for (const names of [['co', 'cross'], ['h', 'v'], ['lhcp', 'rhcp']] as [string, string][]) {
+      await roundTrip(`pair_${names[0]}_28GHz.csv`, beams, { layout: 'pol-pair', pairNames: names }, pairSum, 1e-9);
+      await roundTrip(`polcol_${names[0]}_28GHz.csv`, beams, { layout: 'pol-column', pairNames: names }, pairSum, 1e-9);
+    }
+  });
+
+  it('wide layout with one column block per frequency', async () => {
+    const path = join(dir, 'UNIT-WF', 'wide_blocks.csv');
+    const shifted = beams.map((b) => ({ id: b.id, valuesDb: Float64Array.from(b.valuesDb, (v) => v - 1.5) }));
+    await writeExport(path, { grid, beams }, { layout: 'wide', frequencyBlocks: [{ frequencyHz: 28e9, beams }, { frequencyHz: 39.5e9, beams: shifted }] });
+    const res = await readExportFile(path, { inputRoot: dir });
+    expect(res.errors).toEqual([]);
+    expect(res.beams.map((b) => `${b.beam}@${b.frequencyHz}`)).toEqual([...beams.map((b) => `${b.id}@28000000000`), ...beams.map((b) => `${b.id}@39500000000`)]);
+    for (const rb of res.beams) {
+      const src = (rb.frequencyHz === 28e9 ? beams : shifted).find((b) => b.id === rb.beam)!;
+      for (let i = 0; i < rb.values.length; i++) expectClose(rb.values[i], r2(src.valuesDb[i]), EXACT, `${rb.beam} ${rb.frequencyHz} ${i}`);
+    }
+  });
+
+  it('a free-text preamble before the header', async () => {
+    const got = await roundTrip('preamble_28GHz.csv', beams, { layout: 'long', preamble: ['Range export (invented)', 'Unit: PRE-1', 'Operator: nobody', ''] }, printed, EXACT);
+    expect(got.every((b) => b.unit === 'PRE-1' && b.metadata?.operator === 'nobody')).toBe(true);
+  });
+
   it('assembles into one measurement with each direction once and the printed values', async () => {
     const path = join(dir, 'UNIT-AS', 'all_28GHz.csv');
     await writeExport(path, { grid, beams }, { layout: 'long' });
@@ -145,7 +180,7 @@ describe('round trip over dialects (property)', () => {
     let run = 0;
     await fc.assert(
       fc.asyncProperty(
-        fc.constantFrom<ExportOptions['layout']>('long', 'az-el', 'pol-pair', 'pol-column', 'matrix'),
+        fc.constantFrom<ExportOptions['layout']>('long', 'az-el', 'pol-pair', 'pol-column', 'matrix', 'wide', 'wide-pair'),
         fc.constantFrom(',', ';', '\t'),
         fc.boolean(),
         fc.constantFrom<'\n' | '\r\n'>('\n', '\r\n'),
@@ -157,7 +192,7 @@ describe('round trip over dialects (property)', () => {
           const total = Float64Array.from(t, (x, i) => 10 * Math.log10(10 ** (x / 10) + 10 ** (p[i] / 10)));
           const beam: ExportBeam = { id: '2', valuesDb: total, thetaDb: t, phiDb: p };
           const g = layout === 'az-el' ? regularGrid({ thetaStepDeg: 30, phiStepDeg: 45, phiConvention: '-180-180' }) : small;
-          const isPair = layout === 'pol-pair' || layout === 'pol-column';
+          const isPair = layout === 'pol-pair' || layout === 'pol-column' || layout === 'wide-pair';
           // A matrix row holds one value per direction, so its repeated pole samples must agree.
           if (layout === 'matrix') for (let i = 0; i < n; i++) if (g.thetaDeg[i] % 180 === 0) total[i] = total[g.thetaDeg[i] === 0 ? 0 : n - 1];
           await roundTrip(`prop${run++}_b2.${delimiter === ',' ? 'csv' : 'txt'}`, [beam],

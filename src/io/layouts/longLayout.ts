@@ -5,6 +5,7 @@
  */
 import type { InputError, Quantity, Warning } from '../../types.js';
 import { warning } from '../../warnings.js';
+import { pairLabel } from '../columnRoles.js';
 import { addField, fieldPlan, KEY, NUM, SKIP } from '../fieldPlan.js';
 import { assumedFrequencyHz } from '../frequencyText.js';
 import { inputError } from '../inputError.js';
@@ -80,8 +81,7 @@ export function planLong(cells: string[], ctx: PlanContext): PlanResult {
   } else {
     const half = pairT >= 0 ? pairT : pairP;
     if (half >= 0) {
-      return fail([inputError(ctx.file, ctx.headerLine, col(half), cells[half].trim(), cells[half].trim(),
-        `both polarizations (${parsed[half].base.replace(/_(theta|th|phi|ph)$/, '')}_theta and _phi), or a pol column with a total value column`)]);
+      return fail([inputError(ctx.file, ctx.headerLine, col(half), cells[half].trim(), cells[half].trim(), halfPairExpected(parsed[half].base))]);
     }
     return headerErr('a value column (eirp, gain, eis, power, or an eirp_theta + eirp_phi pair)');
   }
@@ -226,6 +226,19 @@ function longBeams(groups: LongGroup[], plan: LongPlan, sink: LongSink, ctx: Bea
     ctx.warnings.push(warning('frequency-unit-assumed', `frequency column without a unit; values below 1000 read as GHz, below 10^6 as MHz, else Hz`, { file }));
   }
   return { beams };
+}
+
+/** "expected" text for one component of a polarization pair without its partner. */
+export function halfPairExpected(base: string): string {
+  if (/^e_?(theta|phi|θ|φ)$/.test(base)) return 'both field components (Etheta and Ephi), or a pol column with a total value column';
+  const m = /^(.*?)_?([a-zθφ]+)$/.exec(base);
+  const comp = m ? m[2] : base;
+  const label = pairLabel(comp);
+  const stem = m && m[1] ? m[1] : base;
+  const [a, b] = label.split('/');
+  return label === 'theta/phi'
+    ? `both polarizations (${stem}_theta and _phi), or a pol column with a total value column`
+    : `both polarizations (${stem}_${a} and _${b}), or a pol column with a total value column`;
 }
 
 function sameDirections(a: LongGroup, b: LongGroup): boolean {

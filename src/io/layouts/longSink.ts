@@ -1,13 +1,12 @@
 import { mwToDbm, powerSumDb, wToDbm } from '../../units.js';
+import { pairComponent } from '../columnRoles.js';
 import type { LongPlan } from './longLayout.js';
+import { RowAngles } from './rowAngles.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { KeyTable } from '../keyTable.js';
 import type { RowLocator, RowSink } from '../rowSink.js';
 import { SampleAccumulator } from '../sampleAccumulator.js';
 
-const RAD_TO_DEG = 180 / Math.PI;
-/** Slack for angles converted from radians (rounding of the written value). */
-const ANGLE_SLACK_DEG = 1e-9;
 
 interface Group {
   unitId: number;
@@ -42,11 +41,7 @@ export class LongSink implements RowSink {
   private last: Group | null = null;
   private polOk: number[] = [];
   // Per-file constants of row(), fixed once instead of derived on every row.
-  private readonly rad: boolean;
-  private readonly slack: number;
-  private readonly thetaPhi: boolean;
-  private readonly lo1: number;
-  private readonly hi1: number;
+  private readonly angles: RowAngles;
   private readonly linear: boolean;
 
   constructor(
@@ -55,11 +50,7 @@ export class LongSink implements RowSink {
     private readonly errors: ErrorList,
     private readonly keys: KeyTable,
   ) {
-    this.rad = plan.angleUnit === 'rad';
-    this.slack = this.rad ? ANGLE_SLACK_DEG : 0;
-    this.thetaPhi = plan.angleConvention === 'theta-phi';
-    this.lo1 = this.thetaPhi ? 0 : -90;
-    this.hi1 = this.thetaPhi ? 180 : 90;
+    this.angles = new RowAngles(plan.angleConvention, plan.angleUnit);
     this.linear = plan.fileValueUnit === 'mW' || plan.fileValueUnit === 'W';
   }
 
@@ -89,30 +80,14 @@ export class LongSink implements RowSink {
 
   row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {
     const p = this.plan;
-    let a1 = nums[0];
-    let a2 = nums[1];
-    const rad = this.rad;
-    if (rad) {
-      a1 *= RAD_TO_DEG;
-      a2 *= RAD_TO_DEG;
-    }
-    const slack = this.slack;
-    const lo1 = this.lo1;
-    const hi1 = this.hi1;
-    if (!(a1 >= lo1 - slack && a1 <= hi1 + slack)) {
-      const what = this.thetaPhi ? 'theta' : 'elevation';
-      this.err(line, this.fieldOfNum(0), loc, `${what} between ${lo1} and ${hi1} ${rad ? 'degrees (as radians)' : 'degrees'}`);
+    const angles = this.angles;
+    const bad = angles.read(nums[0], nums[1]);
+    if (bad !== 0) {
+      this.err(line, this.fieldOfNum(bad - 1), loc, angles.expected(bad));
       return;
     }
-    if (!(a2 >= -180 - slack && a2 <= 360 + slack)) {
-      const what = this.thetaPhi ? 'phi' : 'azimuth';
-      this.err(line, this.fieldOfNum(1), loc, `${what} between -180 and 360 ${rad ? 'degrees (as radians)' : 'degrees'}`);
-      return;
-    }
-    a1 = Math.min(hi1, Math.max(lo1, a1));
-    // az/el → θ/φ: θ = 90° − el, φ = az (normalized to [0, 360) by the grid builder), CONTRACT.md "Angles".
-    const thetaDeg = this.thetaPhi ? a1 : 90 - a1;
-    const phiDeg = a2;
+    const thetaDeg = angles.thetaDeg;
+    const phiDeg = angles.phiDeg;
 
     let value: number | null = nums[2];
     if (this.linear) value = this.toDb(value, 2, line, loc);
@@ -136,7 +111,7 @@ export class LongSink implements RowSink {
     if (p.polKey >= 0) {
       polId = keys[p.polKey];
       if (this.polKind(polId) < 0) {
-        this.err(line, this.fieldOfKey(p.polKey), loc, "'theta' or 'phi'");
+        this.err(line, this.fieldOfKey(p.polKey), loc, "'theta' or 'phi' (or another pair: co/cross, H/V, LHCP/RHCP)");
         return;
       }
     }
@@ -153,8 +128,7 @@ export class LongSink implements RowSink {
   polKind(polId: number): number {
     let k = this.polOk[polId];
     if (k === undefined) {
-      const name = this.keys.names[this.plan.polKey][polId].toLowerCase();
-      k = name === 'theta' || name === 'th' || name === 'θ' ? 0 : name === 'phi' || name === 'ph' || name === 'φ' ? 1 : -1;
+      k = pairComponent(this.keys.names[this.plan.polKey][polId]);
       this.polOk[polId] = k;
     }
     return k;

@@ -8,8 +8,9 @@ import type { JobSpec } from '../types.js';
 import type { LayoutReader, PlanContext, PlanResult } from './layoutTypes.js';
 import { longLayout } from './longLayout.js';
 import { matrixLayout } from './matrixLayout.js';
+import { wideLayout } from './wideLayout.js';
 
-export const LAYOUTS: readonly LayoutReader[] = [matrixLayout, longLayout];
+export const LAYOUTS: readonly LayoutReader[] = [matrixLayout, wideLayout, longLayout];
 
 /** Plan a header with the first layout that recognizes it (the long layout always answers). */
 export function planLayout(cells: string[], ctx: PlanContext): PlanResult {

@@ -1,5 +1,7 @@
 import type { ExportBeam, ExportOptions, ExportTable } from './exportTypes.js';
 import { matrixLines } from './matrixLines.js';
+import { numberFormat, valueUnitSuffix } from './numberFormat.js';
+import { wideLines } from './wideLines.js';
 
 /**
  * The lines of one export file in the requested layout, generated lazily so large exports
@@ -17,11 +19,17 @@ import { matrixLines } from './matrixLines.js';
 export function* exportLines(table: ExportTable, opts: ExportOptions): Generator<string> {
   const fmt = numberFormat(opts);
   const nl = opts.lineEnding ?? '\n';
+  for (const line of opts.preamble ?? []) yield `${line}${nl}`;
   for (const [k, v] of Object.entries(opts.metadata ?? {})) yield `# ${k}: ${v}${nl}`;
   if (opts.layout === 'matrix') {
     yield* matrixLines(table, opts, fmt);
     return;
   }
+  if (opts.layout === 'wide' || opts.layout === 'wide-pair') {
+    yield* wideLines(table, opts, fmt);
+    return;
+  }
+  const [pa, pb] = opts.pairNames ?? ['theta', 'phi'];
   const sep = opts.delimiter ?? ',';
   const q = opts.quantity ?? 'eirp';
   const vu = valueUnitSuffix(opts);
@@ -38,7 +46,7 @@ export function* exportLines(table: ExportTable, opts: ExportOptions): Generator
   }
   const angleHead = opts.layout === 'az-el' ? ['azimuth_deg', 'elevation_deg'] : ['theta_deg', 'phi_deg'];
   const valueHead =
-    opts.layout === 'pol-pair' ? [`${q}_theta_${vu}`, `${q}_phi_${vu}`] : opts.layout === 'pol-column' ? ['pol', `${q}_${vu}`] : [`${q}_${vu}`];
+    opts.layout === 'pol-pair' ? [`${q}_${pa}_${vu}`, `${q}_${pb}_${vu}`] : opts.layout === 'pol-column' ? ['pol', `${q}_${vu}`] : [`${q}_${vu}`];
   yield [...leadHead, ...angleHead, ...(withBeam ? ['beam'] : []), ...valueHead].join(sep) + nl;
   const { thetaDeg, phiDeg } = table.grid;
   for (const beam of table.beams) {
@@ -53,42 +61,13 @@ export function* exportLines(table: ExportTable, opts: ExportOptions): Generator
         yield [...cells, fmt.value(t[i], beam, i), fmt.value(p[i], beam, i)].join(sep) + nl;
       } else if (opts.layout === 'pol-column') {
         const [t, p] = components(beam);
-        yield [...cells, 'theta', fmt.value(t[i], beam, i)].join(sep) + nl;
-        yield [...cells, 'phi', fmt.value(p[i], beam, i)].join(sep) + nl;
+        yield [...cells, pa, fmt.value(t[i], beam, i)].join(sep) + nl;
+        yield [...cells, pb, fmt.value(p[i], beam, i)].join(sep) + nl;
       } else {
         yield [...cells, fmt.value(beam.valuesDb[i], beam, i)].join(sep) + nl;
       }
     }
   }
-}
-
-export interface NumberFormat {
-  angle(x: number): string;
-  value(db: number, beam: ExportBeam, i: number): string;
-}
-
-/** Number printing shared by all layouts (decimal comma, mW, decimals). */
-export function numberFormat(opts: ExportOptions): NumberFormat {
-  const comma = opts.decimalComma ?? false;
-  if (comma && (opts.delimiter ?? ',') === ',') throw new Error('writer: a decimal comma needs a ";" or tab delimiter');
-  if (opts.linearMw && opts.quantity === 'gain') throw new Error('writer: gain cannot be written in mW');
-  const decimals = opts.decimals ?? 2;
-  const dot = (s: string): string => (comma ? s.replace('.', ',') : s);
-  return {
-    angle: (x) => dot(String(Math.round(x * 1e9) / 1e9 + 0)),
-    value: (db, beam, i) => {
-      if (!Number.isFinite(db)) {
-        throw new Error(`writer: beam ${beam.id} sample ${i}: value ${db} cannot be printed (apply a noise floor first)`);
-      }
-      return dot(opts.linearMw ? (10 ** (db / 10)).toPrecision(6) : db.toFixed(decimals));
-    },
-  };
-}
-
-/** Column-name suffix of the value's unit: dbm, dbi or mw. */
-export function valueUnitSuffix(opts: ExportOptions): string {
-  if (opts.linearMw) return 'mw';
-  return (opts.quantity ?? 'eirp') === 'gain' ? 'dbi' : 'dbm';
 }
 
 function components(beam: ExportBeam): [Float64Array, Float64Array] {

@@ -11,7 +11,11 @@ export type ExportLayout =
   /** azimuth_deg,elevation_deg[,beam],<value>: el = 90 − θ, az = φ written in [−180, 180). */
   | 'az-el'
   /** One beam: header `theta_deg,<φ values…>`, one row per θ; `# quantity:` metadata line. */
-  | 'matrix';
+  | 'matrix'
+  /** theta_deg,phi_deg,Beam <id> EIRP (dBm),…: one row per direction, one column per beam. */
+  | 'wide'
+  /** theta_deg,phi_deg,Beam <id> EIRP theta (dBm),Beam <id> EIRP phi (dBm),…: two polarization columns per beam. */
+  | 'wide-pair';
 
 export interface ExportBeam {
   id: string;
@@ -47,4 +51,10 @@ export interface ExportOptions {
   /** `# key: value` lines before the header. */
   metadata?: Record<string, string>;
   lineEnding?: '\n' | '\r\n';
+  /** Free-text lines written before everything else (a preamble without '#'). */
+  preamble?: string[];
+  /** Names of the two polarization components (pol-pair, pol-column, wide-pair); default theta, phi. */
+  pairNames?: [string, string];
+  /** Wide layouts: one column block per frequency (replaces the table's beams; same grid). */
+  frequencyBlocks?: { frequencyHz: number; beams: ExportBeam[] }[];
 }

@@ -1,6 +1,5 @@
 import type { ExportOptions, ExportTable } from './exportTypes.js';
-import type { NumberFormat } from './exportLines.js';
-import { valueUnitSuffix } from './exportLines.js';
+import { valueUnitSuffix, type NumberFormat } from './numberFormat.js';
 
 /**
  * The matrix layout of one beam: header `theta_deg,<φ₁>,<φ₂>,…`, then one row per θ starting
