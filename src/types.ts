@@ -48,6 +48,33 @@ export interface SphereGrid {
   solidAngleSr: number;
   /** Present when kind === 'regular'. */
   regular: RegularLayout | null;
+  /**
+   * Regions the scan leaves unmeasured (src/sphere/unmeasuredRule.ts): empty when the points
+   * cover the whole sphere. Σ solidAngleSr = 4π − Σ weightSr. Absent on hand-built grids.
+   */
+  unmeasured?: UnmeasuredRegion[];
+  /** Lattice points of a regular grid that were not measured and were absorbed by neighbours. */
+  missing?: MissingSample[];
+}
+
+/** A part of the sphere that the scan does not measure (empty cap, cut θ range, φ wedge, missing block). */
+export interface UnmeasuredRegion {
+  /** Unmeasured solid angle, sr. */
+  solidAngleSr: number;
+  /** Centre of the region (weighted by the empty caps that make it up). */
+  centre: Direction;
+  /** Largest angle from the centre to the region's edge, degrees. */
+  radiusDeg: number;
+  /** θ span of the region, degrees. */
+  thetaRangeDeg: [number, number];
+  /** φ span, degrees, counter-clockwise from the first to the second value (the second may be smaller: it wraps); [0, 360] for all φ. */
+  phiRangeDeg: [number, number];
+}
+
+/** A lattice point of a regular grid without a sample, absorbed by its measured neighbours. */
+export interface MissingSample extends Direction {
+  /** Exact cell solid angle the neighbours absorbed, sr. */
+  absorbedSr: number;
 }
 
 /** One beam of the codebook on the measurement's grid. */
@@ -222,6 +249,10 @@ export interface GridSummary {
   fullSphere: boolean;
   /** Σ weights, sr (4π for a full sphere). */
   solidAngleSr: number;
+  /** The unmeasured regions (empty for a full sphere). */
+  unmeasured: UnmeasuredRegion[];
+  /** Lattice points without a sample that neighbours absorbed (regular grids). */
+  missing: MissingSample[];
   /** Raw samples per beam merged into another sample's point (φ seam, poles, repeated rows). */
   duplicatesMerged: number;
   beamsResampled: number;

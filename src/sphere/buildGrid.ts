@@ -1,6 +1,8 @@
-import type { SphereGrid } from '../types.js';
+import type { MissingSample, SphereGrid, UnmeasuredRegion } from '../types.js';
+import { latticeWeights } from './latticeWeights.js';
 import { neumaierSum } from './neumaierSum.js';
 import { detectRegularLayout } from './regularLayout.js';
+import { regularUnmeasured } from './regularUnmeasured.js';
 import { regularWeights } from './regularWeights.js';
 import { voronoiWeights } from './voronoiWeights.js';
 
@@ -10,7 +12,7 @@ export interface GridBuild {
   pointOf: Int32Array;
   /** Raw samples that were merged into another sample's point (duplicates, seam, poles). */
   merged: number;
-  /** Voronoi cells limited by the clip cap (scattered partial spheres); 0 for regular grids. */
+  /** Voronoi cells limited because they border an unmeasured region; 0 for regular grids. */
   clippedCells: number;
 }
 
@@ -27,9 +29,13 @@ const POLE_S = 180 * STEPS_PER_DEG;
  *    θ = 0 (or 180) is one pole point at φ = 0 — so φ = 0/360 seams and pole rows are never
  *    double-counted.
  * 2. Canonical order: θ ascending, then φ ascending.
- * 3. Regular detection (detectRegularLayout): exact cell weights (regularWeights). Anything
- *    else is scattered: spherical Voronoi weights (voronoiWeights), clipped beside gaps.
- * 4. solidAngleSr = Σ weights (Neumaier).
+ * 3. Regular detection (detectRegularLayout): exact cell weights (regularWeights), the cut θ
+ *    range and φ wedge unmeasured (regularUnmeasured). Else a lattice with a few samples
+ *    missing (latticeWeights): exact cells, small missing groups absorbed by their neighbours
+ *    and listed, larger ones unmeasured; the grid is then 'scattered' for lookups (its layout
+ *    has holes). Anything else is scattered: unclipped spherical Voronoi weights, limited only
+ *    beside unmeasured regions found by the local rule (voronoiWeights, unmeasuredRule).
+ * 4. solidAngleSr = Σ weights (Neumaier); `unmeasured` lists the regions (Σ = 4π − Σw).
  * `forceScattered` skips step 3's regular path (for tests and comparisons).
  * Cost O(n log n) (one index sort; Voronoi for scattered grids).
  * @throws RangeError when the arrays differ in length, an angle is not finite, θ lies outside
@@ -81,12 +87,19 @@ export function buildSphereGrid(
   const regular = opts.forceScattered ? null : detectRegularLayout(thetaU, phiU);
   let weightSr: Float64Array;
   let clippedCells = 0;
+  let unmeasured: UnmeasuredRegion[];
+  let missing: MissingSample[] = [];
+  const lattice = regular || opts.forceScattered ? null : latticeWeights(thetaU, phiU);
   if (regular) {
     weightSr = regularWeights(regular, m);
+    unmeasured = regularUnmeasured(regular);
+  } else if (lattice) {
+    ({ weightSr, unmeasured, missing } = lattice);
   } else {
     const v = voronoiWeights(thetaU, phiU);
     weightSr = v.weightSr;
     clippedCells = v.clipped;
+    unmeasured = v.unmeasured;
   }
   const grid: SphereGrid = {
     kind: regular ? 'regular' : 'scattered',
@@ -95,6 +108,8 @@ export function buildSphereGrid(
     weightSr,
     solidAngleSr: neumaierSum(weightSr),
     regular,
+    unmeasured,
+    missing,
   };
   return { grid, pointOf, merged: n - m, clippedCells };
 }

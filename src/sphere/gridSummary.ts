@@ -22,7 +22,8 @@ function range(values: Float64Array): [number, number] {
 /**
  * The facts about a grid that a reader of results needs to trust them (inspect, results.json,
  * the report's data-quality section): kind, points, θ/φ ranges, steps (regular grids with
- * uniform steps; null otherwise), measured solid angle, full sphere or not, the samples merged
+ * uniform steps; null otherwise), measured solid angle, full sphere or not, the unmeasured
+ * regions and the absorbed missing samples, the samples merged
  * into coincident points and the beams resampled from another grid (one 'beam-resampled'
  * warning each). Cost O(n).
  * @example gridSummary(measurement).thetaStepDeg // 5 on a 5° grid
@@ -39,6 +40,8 @@ export function gridSummary(m: Pick<Measurement, 'grid' | 'mergedSamples' | 'war
     phiStepDeg: reg ? uniformStep(reg.phiColsDeg) : null,
     fullSphere: isFullSphere(grid),
     solidAngleSr: grid.solidAngleSr,
+    unmeasured: grid.unmeasured ?? [],
+    missing: grid.missing ?? [],
     duplicatesMerged: m.mergedSamples ?? 0,
     beamsResampled: m.warnings.filter((w) => w.code === 'beam-resampled').length,
   };

@@ -1,17 +1,20 @@
 import type { SphereGrid } from '../types.js';
 
-/** Relative tolerance on 4π for calling a grid a full sphere. */
+/** Relative tolerance on 4π for calling a grid a full sphere (rounding of the weight sums). */
 export const FULL_SPHERE_REL_TOL = 1e-6;
 
 /**
- * Whether the grid's measured solid angle is the whole sphere: |Σw − 4π| ≤ 1e-6·4π (Eq. 1).
- * Regular full grids hit 4π to ~1e-15 and Voronoi weights to ~1e-12, so 1e-6 separates
- * rounding from a real gap such as a blocked cap (an equatorial cell of a 1° grid alone is
- * 2.4e-5 of 4π).
+ * Whether the grid covers the whole sphere: no unmeasured region was found
+ * (unmeasuredRule.ts for scattered sets, the cut θ range or φ wedge of a regular grid, a
+ * missing block of a lattice) and |Σw − 4π| ≤ 1e-6·4π (Eq. 1). Without a region list (a
+ * hand-built grid) Eq. 1 alone decides. Full grids sum to 4π to ~1e-13 (exact cells,
+ * absorbed missing samples and unclipped Voronoi cells all tile the sphere), so Eq. 1 only
+ * guards rounding.
  * Cost O(1).
  * @throws never.
  * @example isFullSphere(buildSphereGrid(theta5deg, phi5deg).grid) // true
  */
-export function isFullSphere(grid: Pick<SphereGrid, 'solidAngleSr'>): boolean {
+export function isFullSphere(grid: Pick<SphereGrid, 'solidAngleSr' | 'unmeasured'>): boolean {
+  if (grid.unmeasured && grid.unmeasured.length > 0) return false;
   return Math.abs(grid.solidAngleSr - 4 * Math.PI) <= FULL_SPHERE_REL_TOL * 4 * Math.PI; // Eq. 1
 }
