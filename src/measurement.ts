@@ -1,6 +1,7 @@
 import type { BeamPattern, Measurement, Quantity, SourceFile, Warning } from './types.js';
 import { FULL_SPHERE_REL_TOL } from './sphere/isFullSphere.js';
 import { neumaierSum } from './sphere/neumaierSum.js';
+import { isQuantity, quantityUnit } from './quantity.js';
 
 /** A violated Measurement invariant: a programming error upstream, never an input problem. */
 export class MeasurementError extends Error {
@@ -13,7 +14,6 @@ export type MeasurementInput = Omit<Measurement, 'sources' | 'warnings' | 'metad
   metadata?: Record<string, string>;
 };
 
-const UNIT_OF: Record<Quantity, string> = { eirp: 'dBm', eis: 'dBm', gain: 'dBi' };
 
 /**
  * The one validating factory of Measurement; downstream code trusts what it returns.
@@ -32,8 +32,8 @@ export function createMeasurement(input: MeasurementInput): Measurement {
     throw new MeasurementError(`createMeasurement(${input.unit}): ${what}`);
   };
   const { grid, beams, quantity } = input;
-  if (!(quantity in UNIT_OF)) fail(`unknown quantity '${String(quantity)}'`);
-  if (input.valueUnit !== UNIT_OF[quantity]) fail(`valueUnit ${input.valueUnit} does not fit ${quantity} (${UNIT_OF[quantity]})`);
+  if (!isQuantity(quantity)) fail(`unknown quantity '${String(quantity)}'`);
+  if (input.valueUnit !== quantityUnit(quantity)) fail(`valueUnit ${input.valueUnit} does not fit ${quantity} (${quantityUnit(quantity)})`);
   if (input.frequencyHz !== null && !(Number.isFinite(input.frequencyHz) && input.frequencyHz > 0)) {
     fail(`frequencyHz ${input.frequencyHz} is not a positive number`);
   }

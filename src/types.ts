@@ -7,11 +7,10 @@
  * - solid angles in steradians; every fraction of the sphere is relative to 4π.
  */
 
-/** What the pattern values are. eirp/gain: larger is better; eis: smaller is better. */
-export type Quantity = 'eirp' | 'eis' | 'gain';
+import type { Quantity, ValueUnit } from './quantity.js';
 
-/** Unit of the stored values: dBm for eirp and eis, dBi for gain. */
-export type ValueUnit = 'dBm' | 'dBi';
+/** The quantity and its unit are owned by src/quantity.ts (list, unit, label, sense, resolution order). */
+export type { Quantity, ValueUnit };
 
 export type GridKind = 'regular' | 'scattered';
 

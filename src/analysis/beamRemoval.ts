@@ -2,6 +2,7 @@ import { sphereNormSr } from '../coverage/sphereNormSr.js';
 import type { BeamRemoval, Quantity, SphereGrid } from '../types.js';
 import { createPatchedPercentile } from './patchedPercentile.js';
 import { createPercentileSelector } from './percentileSelector.js';
+import { betterByDb, isLowerBetter, worstValue } from '../quantity.js';
 
 /**
  * What each beam is worth: how much the chosen percentile of the total scan pattern and the
@@ -36,8 +37,8 @@ export function beamRemoval(
   const n = grid.weightSr.length;
   if (beams.length === 0) throw new Error('beamRemoval: no beams');
   for (const b of beams) if (b.length !== n) throw new Error(`beamRemoval: beam of ${b.length} values on a grid of ${n}`);
-  const lowerIsBetter = quantity === 'eis';
-  const worst = lowerIsBetter ? Infinity : -Infinity;
+  const lowerIsBetter = isLowerBetter(quantity);
+  const worst = worstValue(quantity);
   const bestIdx = new Int32Array(n), bestVal = new Float64Array(n), secondVal = new Float64Array(n).fill(worst);
   // Beam by beam (sequential memory), the same per-point rule in the same beam order as a
   // point-by-point scan: a strictly better value takes the lead, an equal-or-better one the second place.
@@ -82,7 +83,7 @@ export function beamRemoval(
       }
     }
     const rest = beams.length > 1 ? (changed.length === 0 ? full : finite(patched.evaluate(changed, changed.length, secondVal) ?? null)) : null;
-    const percentileLossDb = full === null || rest === null ? null : lowerIsBetter ? rest - full : full - rest; // Eq. 1
+    const percentileLossDb = full === null || rest === null ? null : betterByDb(quantity, full, rest); // Eq. 1
     return { percentileLossDb, coverageLoss: threshold === null ? null : (lost + c) / sphereSr };
   });
 }

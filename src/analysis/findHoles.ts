@@ -1,5 +1,6 @@
 import { gridNeighbors, type GridAdjacency } from '../sphere/neighbors.js';
 import type { CoverageHole, Quantity, SphereGrid, TotalScanPattern } from '../types.js';
+import { isLowerBetter } from '../quantity.js';
 
 const RAD = Math.PI / 180;
 
@@ -55,7 +56,7 @@ export function findHolesWithLabels(
   if (beams.length !== beamIds.length) throw new Error(`findHoles: ${beams.length} beams but ${beamIds.length} ids`);
   const n = grid.thetaDeg.length;
   const values = tsp.values;
-  const lowerIsBetter = quantity === 'eis';
+  const lowerIsBetter = isLowerBetter(quantity);
   const inHole = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     const v = values[i];

@@ -1,5 +1,6 @@
 import type { BeamSubset, Quantity, SphereGrid } from '../types.js';
 import { createPercentileSelector } from './percentileSelector.js';
+import { isLowerBetter, worstValue } from '../quantity.js';
 
 /**
  * A small subset of the codebook that keeps the chosen percentile of the total scan pattern
@@ -46,15 +47,15 @@ export function greedySubset(
   if (beams.length !== ids.length) throw new Error(`greedySubset: ${beams.length} beams but ${ids.length} ids`);
   if (!(toleranceDb >= 0)) throw new Error(`greedySubset: tolerance ${toleranceDb} dB must be ≥ 0`);
   const n = grid.weightSr.length, weightSr = grid.weightSr, B = beams.length;
-  const lowerIsBetter = quantity === 'eis';
+  const lowerIsBetter = isLowerBetter(quantity);
   const select = createPercentileSelector(weightSr, quantity, levelPct);
   const finite = (v: number | null): number | null => (v === null || !Number.isFinite(v) ? null : v);
-  const running = new Float64Array(n).fill(lowerIsBetter ? Infinity : -Infinity);
+  const running = new Float64Array(n).fill(worstValue(quantity));
   const bestBeam = new Int32Array(n).fill(-1);
   for (let k = 0; k < B; k++) mergeBeam(running, beams[k], lowerIsBetter, bestBeam, k);
   const full = finite(select(running));
   const within = (v: number | null): boolean => full !== null && v !== null && Math.abs(full - v) <= toleranceDb + 1e-12;
-  running.fill(lowerIsBetter ? Infinity : -Infinity);
+  running.fill(worstValue(quantity));
   const order = full === null ? shareOrder(bestBeam, weightSr, B) : coverageOrder(beams, weightSr, lowerIsBetter ? full + toleranceDb : full - toleranceDb, lowerIsBetter);
   const subset: string[] = [];
   const curve: { count: number; value: number | null }[] = [];

@@ -1,5 +1,6 @@
 import type { Quantity } from '../types.js';
 import { createPercentileSelector, selectorPlan, weightedSelect } from './percentileSelector.js';
+import { isLowerBetter } from '../quantity.js';
 
 /** Unit roundoff doubled (2^-52): the per-operation error allowance of the certainty margin. */
 const ROUND = 2 ** -52;
@@ -54,7 +55,7 @@ export function createPatchedPercentile(
   // k0/p0: the base's crossing bin and the mass before it, where each evaluation starts its scan.
   const st = { base: new Float64Array(0) as Float64Array, lo: 0, inv: 0, stamp: 0, crossCum: 0, k0: 0, p0: 0 };
 
-  const lowerIsBetter = quantity === 'eis';
+  const lowerIsBetter = isLowerBetter(quantity);
   const viaReference = (points: Int32Array, count: number, patch: Float64Array, rest: Int32Array | null, restFrom: number): number | null => {
     stats.reference++;
     scratch.set(st.base);

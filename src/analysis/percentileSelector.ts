@@ -1,5 +1,6 @@
 import { sphereNormSr } from '../coverage/sphereNormSr.js';
 import type { Quantity } from '../types.js';
+import { worstValue } from '../quantity.js';
 
 /** Cumulative solid angle short of the target by less than this (relative) still reaches it; as the core's percentile. */
 const REACH_EPS = 1e-12;
@@ -60,7 +61,7 @@ export function selectorPlan(weightSr: Float64Array, quantity: Quantity, levelPc
   }
   measured += c;
   const sphereSr = sphereNormSr(measured);
-  const below = quantity === 'eis' ? 0 : Math.max(0, sphereSr - measured);
+  const below = worstValue(quantity) === -Infinity ? Math.max(0, sphereSr - measured) : 0; // the unmeasured share counts as the worst value
   const eps = REACH_EPS * sphereSr;
   const target = (levelPct / 100) * sphereSr;
   let mode: SelectorPlan['mode'] = 'select';

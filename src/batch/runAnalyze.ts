@@ -37,6 +37,7 @@ import { injectFault } from './faults.js';
 function interruptName(signal: AbortSignal | undefined): string {
   return signal?.reason === 'SIGTERM' ? 'stopped by SIGTERM' : 'interrupted';
 }
+import { resolveQuantity } from '../quantity.js';
 
 const silentIo: BatchIo = { stdout: () => undefined, stderr: () => undefined, stderrIsTTY: false };
 
@@ -81,7 +82,7 @@ function loadLimits(name: string | undefined, job: JobSpec | null, quantity: Qua
     base = limitSet;
   }
   if (!job?.checks || job.checks.length === 0) return base;
-  const q = base?.quantity ?? quantity ?? job.quantity ?? 'eirp';
+  const q = base?.quantity ?? resolveQuantity({ option: quantity, job: job.quantity }).quantity; // checks join the limit set's quantity
   const { checks, errors } = validateExtraChecks(job.checks, job.source, q, ['checks']);
   if (errors.length > 0) throw new RunError(`the job file's checks could not be used:\n  ${errors.map(formatError).join('\n  ')}`);
   base ??= { name: 'job-file checks', description: '', source: job.source, quantity: q, checks: [] };

@@ -3,6 +3,7 @@
  */
 import type { BuildSummary, UnitResult } from '../types.js';
 import { toCsv, type CsvCell } from './csv.js';
+import { isBetter } from '../quantity.js';
 
 /** Column label of a number: `-88` → `-88`, `12.5` → `12.5` (shortest round trip). */
 function num(x: number): string {
@@ -13,7 +14,7 @@ function num(x: number): string {
 function peakBeam(u: UnitResult): UnitResult['beams'][number] | null {
   let best: UnitResult['beams'][number] | null = null;
   for (const b of u.beams) {
-    const better = best === null || (u.quantity === 'eis' ? b.peak.value < best.peak.value : b.peak.value > best.peak.value);
+    const better = best === null || isBetter(u.quantity, b.peak.value, best.peak.value);
     if (better) best = b;
   }
   return best;

@@ -2,6 +2,7 @@
  * Every command-line option, declared once as data. The same list drives commander (flags and
  * parsing), `--help` and the README options table (`npm run docs:options`).
  */
+import { QUANTITIES } from '../quantity.js';
 
 export type CommandName = 'analyze' | 'inspect' | 'limits';
 
@@ -39,7 +40,7 @@ export const OPTIONS: OptionSpec[] = [
   { name: 'limits', short: 'l', value: 'file|profile', commands: ['analyze'],
     description: 'Limit set: a YAML/JSON file or a shipped profile name (see `spherecov limits`).',
     defaultText: 'none (verdict "none")' },
-  { name: 'quantity', value: 'name', choices: ['eirp', 'eis', 'gain'], commands: ['analyze', 'inspect'],
+  { name: 'quantity', value: 'name', choices: [...QUANTITIES], commands: ['analyze', 'inspect'],
     description: 'What the values are; overrides detection from headers and metadata.' },
   { name: 'pdf', negated: true, commands: ['analyze'],
     description: 'Skip the PDF reports (JSON and CSV only, for speed).' },

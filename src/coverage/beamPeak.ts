@@ -1,4 +1,5 @@
 import type { PeakValue, Quantity, SphereGrid } from '../types.js';
+import { isLowerBetter } from '../quantity.js';
 
 /**
  * Peak of a pattern and its direction: the maximum for eirp/gain, the minimum (most
@@ -13,7 +14,7 @@ export function beamPeak(values: ArrayLike<number>, grid: Pick<SphereGrid, 'thet
   const n = values.length;
   if (n === 0 || n !== grid.thetaDeg.length) throw new RangeError(`beamPeak: ${n} values for ${grid.thetaDeg.length} grid points`);
   let best = 0;
-  if (quantity === 'eis') {
+  if (isLowerBetter(quantity)) {
     for (let i = 1; i < n; i++) if (values[i] < values[best]) best = i;
   } else {
     for (let i = 1; i < n; i++) if (values[i] > values[best]) best = i;

@@ -1,4 +1,5 @@
 import type { Direction, Quantity, SphereGrid } from '../types.js';
+import { betterSign } from '../quantity.js';
 
 /** Unit vectors of the grid points, computed once per grid and shared by all its beams. */
 export interface GridVectors {
@@ -45,7 +46,7 @@ export function beamPointing(
   windowDb = 3,
   radiusDeg = 45,
 ): Direction {
-  const sign = quantity === 'eis' ? -1 : 1;
+  const sign = betterSign(quantity);
   const peak = values[peakIndex];
   const cosR = Math.cos((radiusDeg * Math.PI) / 180);
   const floor = 10 ** (-windowDb / 10);

@@ -9,6 +9,7 @@ import { percentile } from './percentile.js';
 import { totalScanPattern } from './totalScanPattern.js';
 import { beamTrpDbm } from './trp.js';
 import { weightedCdf } from './weightedCdf.js';
+import { hasTrp } from '../quantity.js';
 
 export interface MetricOptions {
   /** CDF levels, % in [0, 100]. */
@@ -49,7 +50,7 @@ export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: Tota
       return {
         id: b.id,
         peak,
-        trpDbm: quantity === 'eis' ? null : beamTrpDbm(b.values, grid.weightSr, full, grid.solidAngleSr),
+        trpDbm: !hasTrp(quantity) ? null : beamTrpDbm(b.values, grid.weightSr, full, grid.solidAngleSr),
         bestShare: shares[k],
         pointing: beamPointing(b.values, grid, vectors(), quantity, peakIndexOf(b.values, peak.value)),
       };

@@ -1,5 +1,6 @@
 import type { CoveragePoint, Quantity, RelativeCoveragePoint } from '../types.js';
 import type { WeightedCdf } from './weightedCdf.js';
+import { isLowerBetter, worsenedBy } from '../quantity.js';
 
 /**
  * Coverage efficiency at threshold t: the fraction of the sphere where the total scan pattern
@@ -14,14 +15,15 @@ export function coverageEfficiency(cdf: WeightedCdf, threshold: number, quantity
   if (Number.isNaN(threshold)) return NaN;
   const { values, cumulativeSr } = cdf;
   const m = values.length;
-  const strict = quantity !== 'eis'; // eirp: count x < t as not covered; eis: count x ≤ t as covered
+  const lowerIsBetter = isLowerBetter(quantity);
+  const strict = !lowerIsBetter; // eirp: count x < t as not covered; eis: count x ≤ t as covered
   let lo = 0, hi = m; // first index whose value is ≥ t (eirp) or > t (eis)
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
     if (strict ? values[mid] < threshold : values[mid] <= threshold) lo = mid + 1; else hi = mid;
   }
   const atOrBelowSr = lo > 0 ? cumulativeSr[lo - 1] : 0;
-  const coveredSr = quantity === 'eis' ? atOrBelowSr : cdf.measuredSr - atOrBelowSr; // Eq. 1
+  const coveredSr = lowerIsBetter ? atOrBelowSr : cdf.measuredSr - atOrBelowSr; // Eq. 1
   return coveredSr / cdf.sphereSr;
 }
 
@@ -37,9 +39,9 @@ export function coverageAt(cdf: WeightedCdf, thresholds: number[], quantity: Qua
 export function relativeCoverage(cdf: WeightedCdf, dbBelowPeak: number[], quantity: Quantity): RelativeCoveragePoint[] {
   const m = cdf.values.length;
   if (m === 0) return [];
-  const best = quantity === 'eis' ? cdf.values[0] : cdf.values[m - 1];
+  const best = isLowerBetter(quantity) ? cdf.values[0] : cdf.values[m - 1];
   return dbBelowPeak.map((d) => {
-    const threshold = quantity === 'eis' ? best + d : best - d; // Eq. 2
+    const threshold = worsenedBy(quantity, best, d); // Eq. 2
     return { threshold, efficiency: coverageEfficiency(cdf, threshold, quantity), dbBelowPeak: d };
   });
 }

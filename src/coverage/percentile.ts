@@ -1,5 +1,6 @@
 import type { Quantity } from '../types.js';
 import type { WeightedCdf } from './weightedCdf.js';
+import { worstValue } from '../quantity.js';
 
 /** Relative slack when comparing F(v) with p, for floating drift in summed weights. */
 const REL_TOL = 1e-12;
@@ -32,7 +33,7 @@ export function percentile(cdf: WeightedCdf, levelPct: number, quantity: Quantit
   const target = (levelPct / 100) * sphereSr;
   const tol = REL_TOL * sphereSr;
   const unmeasured = Math.max(0, sphereSr - cdf.measuredSr);
-  const below = quantity === 'eis' ? 0 : unmeasured; // Eq. 1: mass at −∞ for eirp/gain
+  const below = worstValue(quantity) === -Infinity ? unmeasured : 0; // Eq. 1: the unmeasured mass sits at the worst value, −∞ for eirp/gain
   if (below > 0 && below >= target - tol) return null;
   if (target <= tol) return values[0];
   if (below + cumulativeSr[m - 1] < target - tol) return null; // eis level inside the unmeasured +∞ mass

@@ -1,4 +1,5 @@
 import type { Quantity, TotalScanPattern } from '../types.js';
+import { isLowerBetter } from '../quantity.js';
 
 /**
  * Total scan pattern: per grid point the best beam's value and that beam's index —
@@ -14,7 +15,7 @@ export function totalScanPattern(beams: Float64Array[], quantity: Quantity): Tot
   const n = beams[0].length;
   const values = Float64Array.from(beams[0]);
   const bestBeam = new Int32Array(n);
-  const lowerIsBetter = quantity === 'eis';
+  const lowerIsBetter = isLowerBetter(quantity);
   for (let b = 1; b < beams.length; b++) {
     const v = beams[b];
     if (v.length !== n) throw new RangeError(`totalScanPattern: beam ${b} has ${v.length} values, beam 0 has ${n}`);

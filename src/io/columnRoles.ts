@@ -1,5 +1,6 @@
 import type { Quantity } from '../types.js';
 import type { ColumnRole } from './types.js';
+import { QUANTITIES } from '../quantity.js';
 
 /** Role and quantity a base header name stands for (CONTRACT.md, "Input folder"). */
 export interface NamedRole {
@@ -69,7 +70,6 @@ export function pairLabel(name: string): string {
   return `${pair[0][0]}/${pair[1][0]}`;
 }
 
-const QUANTITIES: Quantity[] = ['eirp', 'gain', 'eis'];
 
 /**
  * Role of a base header name, or null when the column is not one spherecov reads.

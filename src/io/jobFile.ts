@@ -4,6 +4,7 @@ import { LineCounter, parseDocument, isMap, isSeq, type Document } from 'yaml';
 import type { InputError } from '../types.js';
 import { clipText } from './inputError.js';
 import type { CalibrationPoint, ColumnRole, JobSpec } from './types.js';
+import { QUANTITIES } from '../quantity.js';
 
 /** Job-file names looked for in an input folder, in this order. */
 export const JOB_FILE_NAMES = ['spherecov.yaml', 'spherecov.yml', 'spherecov.json'];
@@ -168,7 +169,7 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
       }
     }
   }
-  job.quantity = c.oneOf(top.quantity, ['quantity'], ['eirp', 'eis', 'gain'] as const);
+  job.quantity = c.oneOf(top.quantity, ['quantity'], QUANTITIES);
   job.valueUnit = c.oneOf(top.value_unit, ['value_unit'], ['dBm', 'dBi', 'mW', 'W'] as const);
   job.frequencyUnit = c.oneOf(top.frequency_unit, ['frequency_unit'], ['Hz', 'MHz', 'GHz'] as const);
   if (top.header_line !== undefined) {

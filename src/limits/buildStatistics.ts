@@ -1,6 +1,7 @@
 import { mean as ssMean, sampleStandardDeviation } from 'simple-statistics';
 import type { BuildMetricStats, BuildSummary, UnitResult } from '../types.js';
 import { processCapability } from './processCapability.js';
+import { worstOf } from '../quantity.js';
 
 interface Series {
   values: number[];
@@ -53,7 +54,7 @@ export function buildStatistics(units: UnitResult[]): BuildSummary {
     const trps = u.beams.map((b) => b.trpDbm);
     if (trps.length && trps.every((t) => t !== null)) add('maxTrp', Math.max(...(trps as number[])));
     const peaks = u.beams.map((b) => b.peak.value);
-    if (peaks.length) add('minBeamPeak', u.quantity === 'eis' ? Math.max(...peaks) : Math.min(...peaks));
+    if (peaks.length) add('minBeamPeak', worstOf(u.quantity, peaks));
     for (const c of u.checks) {
       const s = series(f, `check:${c.name}`);
       if (c.value !== null && c.status !== 'not-evaluable') s.values.push(c.value);

@@ -1,5 +1,6 @@
 import type { CheckKind, Quantity } from '../types.js';
 import type { CheckDraft } from './limitSet.js';
+import { isLowerBetter, quantityLabelInText, quantityUnit } from '../quantity.js';
 
 /**
  * Which side of the limit is good for a check kind on a quantity.
@@ -15,7 +16,7 @@ import type { CheckDraft } from './limitSet.js';
 export function checkBound(kind: CheckKind, quantity: Quantity): 'lower' | 'upper' {
   if (kind === 'max-peak' || kind === 'max-trp') return 'upper';
   if (kind === 'min-coverage') return 'lower';
-  return quantity === 'eis' ? 'upper' : 'lower';
+  return isLowerBetter(quantity) ? 'upper' : 'lower';
 }
 
 /**
@@ -24,21 +25,14 @@ export function checkBound(kind: CheckKind, quantity: Quantity): 'lower' | 'uppe
  */
 export function kindAllowed(kind: CheckKind, quantity: Quantity): boolean {
   if (kind === 'max-trp') return quantity === 'eirp';
-  if (kind === 'max-peak') return quantity !== 'eis';
+  if (kind === 'max-peak') return !isLowerBetter(quantity);
   return true;
 }
 
-const LABEL: Record<Quantity, string> = { eirp: 'EIRP', eis: 'EIS', gain: 'gain' };
-const UNIT: Record<Quantity, string> = { eirp: 'dBm', eis: 'dBm', gain: 'dBi' };
-
-/** The value unit of a quantity, for messages and listings. */
-export function quantityUnit(quantity: Quantity): string {
-  return UNIT[quantity];
-}
 
 /** Name a check gets when the file gives none (stable: used as a metric key in build stats). */
 export function defaultCheckName(check: CheckDraft, quantity: Quantity): string {
-  const q = LABEL[quantity];
+  const q = quantityLabelInText(quantity);
   switch (check.kind) {
     case 'min-peak': return `peak ${q}`;
     case 'max-peak': return `max ${q}`;
@@ -46,6 +40,6 @@ export function defaultCheckName(check: CheckDraft, quantity: Quantity): string 
     case 'min-beam-peak': return `beam peak ${q}`;
     case 'percentile': return `${q} at ${check.levelPct} %`;
     case 'min-coverage':
-      return `coverage at ${check.threshold} ${UNIT[quantity]}`;
+      return `coverage at ${check.threshold} ${quantityUnit(quantity)}`;
   }
 }

@@ -1,6 +1,7 @@
 import type { CheckResult, CoverageMetrics, Quantity } from '../types.js';
 import type { LimitCheck } from './limitSet.js';
-import { checkBound, kindAllowed, quantityUnit } from './checkSense.js';
+import { checkBound, kindAllowed } from './checkSense.js';
+import { betterByDb, isLowerBetter, quantityUnit, worsenedBy } from '../quantity.js';
 
 /** Levels and thresholds are matched to the computed metrics within this (they are decimal inputs). */
 const MATCH_EPS = 1e-9;
@@ -55,7 +56,7 @@ export function evaluateCheck(check: LimitCheck, metrics: CoverageMetrics, quant
       break;
     }
     case 'min-coverage': {
-      const t = snap(quantity === 'eis' ? check.threshold + tol : check.threshold - tol); // Eq. L3
+      const t = snap(worsenedBy(quantity, check.threshold, tol)); // Eq. L3
       extra = { threshold: t };
       const c = metrics.coverage.find((x) => Math.abs(x.threshold - t) < MATCH_EPS)
         ?? metrics.curve.find((x) => Math.abs(x.threshold - t) < MATCH_EPS);
@@ -66,7 +67,7 @@ export function evaluateCheck(check: LimitCheck, metrics: CoverageMetrics, quant
       // at level e stays at or below t (Eq. L4; equal up to the step of the CDF at the boundary).
       const level = coverageLevelPct(check.minEfficiency, quantity);
       const v = metrics.percentiles.find((x) => Math.abs(x.levelPct - level) < MATCH_EPS)?.value ?? null;
-      extra.marginDb = v === null ? null : snap(quantity === 'eis' ? t - v : v - t); // Eq. L4
+      extra.marginDb = v === null ? null : snap(betterByDb(quantity, v, t)); // Eq. L4
       break;
     }
     case 'min-beam-peak':
@@ -104,5 +105,5 @@ export function evaluateCheck(check: LimitCheck, metrics: CoverageMetrics, quant
  * @example coverageLevelPct(0.55, 'eirp') // 45
  */
 export function coverageLevelPct(minEfficiency: number, quantity: Quantity): number {
-  return snap(100 * (quantity === 'eis' ? minEfficiency : 1 - minEfficiency));
+  return snap(100 * (isLowerBetter(quantity) ? minEfficiency : 1 - minEfficiency));
 }

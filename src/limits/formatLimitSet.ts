@@ -1,5 +1,6 @@
 import type { LimitCheck, LimitSet } from './limitSet.js';
-import { checkBound, quantityUnit } from './checkSense.js';
+import { checkBound } from './checkSense.js';
+import { isLowerBetter, quantityUnit, worsenedBy } from '../quantity.js';
 
 /** The rule of one check in words, e.g. "value at the 50 % CDF level ≥ 11.5 dBm". */
 export function describeCheck(c: LimitCheck, ls: Pick<LimitSet, 'quantity'>): string {
@@ -14,9 +15,9 @@ export function describeCheck(c: LimitCheck, ls: Pick<LimitSet, 'quantity'>): st
     case 'min-beam-peak':
       return `peak of ${c.beams ? `beams ${c.beams.join(', ')}` : 'every beam'} ${op} ${c.limit} ${u}${tol}`;
     case 'min-coverage': {
-      const cmp = ls.quantity === 'eis' ? '≤' : '≥';
+      const cmp = isLowerBetter(ls.quantity) ? '≤' : '≥';
       const relax = c.toleranceDb > 0
-        ? ` (threshold relaxed by the ${c.toleranceDb} dB test tolerance to ${ls.quantity === 'eis' ? c.threshold + c.toleranceDb : c.threshold - c.toleranceDb} ${u})`
+        ? ` (threshold relaxed by the ${c.toleranceDb} dB test tolerance to ${worsenedBy(ls.quantity, c.threshold, c.toleranceDb)} ${u})`
         : '';
       return `share of 4π with TSP ${cmp} ${c.threshold} ${u} ≥ ${(c.minEfficiency * 100).toFixed(1)} %${relax}`;
     }

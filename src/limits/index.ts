@@ -1,7 +1,8 @@
 // Limits stage: limit-set files and profiles, judging metrics, build statistics.
 export type { LimitSet, LimitCheck, CheckDraft, PeakCheck, PercentileCheck, CoverageCheck, BeamPeakCheck, ProfileInfo } from './limitSet.js';
 export { CHECK_KINDS } from './limitSet.js';
-export { checkBound, kindAllowed, defaultCheckName, quantityUnit } from './checkSense.js';
+export { checkBound, kindAllowed, defaultCheckName } from './checkSense.js';
+export { quantityUnit } from '../quantity.js';
 export { validateLimitSet, validateChecks, validateExtraChecks, errorSink, formatKeyPath, UNKNOWN_KEY, type KeyPath, type Locate, type Fail } from './validateLimitSet.js';
 export { parseLimitSetText } from './parseLimitSet.js';
 export { loadLimitSet } from './loadLimitSet.js';

@@ -1,5 +1,6 @@
 import type { LimitSet } from './limitSet.js';
 import { coverageLevelPct, snap } from './evaluateCheck.js';
+import { worsenedBy } from '../quantity.js';
 
 /**
  * What the batch must compute so every check can be judged: the CDF levels of percentile checks
@@ -18,7 +19,7 @@ export function metricNeeds(ls: LimitSet): { percentilesPct: number[]; threshold
     if (c.kind === 'min-coverage') {
       thresholds.add(c.threshold);
       levels.add(coverageLevelPct(c.minEfficiency, ls.quantity)); // for the check's margin in dB (Eq. L4)
-      thresholds.add(snap(ls.quantity === 'eis' ? c.threshold + c.toleranceDb : c.threshold - c.toleranceDb)); // Eq. L3
+      thresholds.add(snap(worsenedBy(ls.quantity, c.threshold, c.toleranceDb))); // Eq. L3
     }
   }
   const asc = (a: number, b: number): number => a - b;

@@ -1,6 +1,7 @@
 import type { CheckKind, InputError, Quantity } from '../types.js';
 import { CHECK_KINDS, type CheckDraft, type LimitCheck, type LimitSet } from './limitSet.js';
 import { defaultCheckName, kindAllowed } from './checkSense.js';
+import { QUANTITIES } from '../quantity.js';
 
 /** Key path inside a parsed file, e.g. ['checks', 2, 'limit']. */
 export type KeyPath = (string | number)[];
@@ -10,7 +11,6 @@ export type Locate = (path: KeyPath, atKey?: boolean) => { line: number; column:
 /** Stands for "the key itself is wrong" in error messages (points at the key, not its value). */
 export const UNKNOWN_KEY = Symbol('unknown key');
 
-const QUANTITIES: readonly Quantity[] = ['eirp', 'eis', 'gain'];
 const TOP_KEYS = ['name', 'description', 'source', 'quantity', 'band', 'frequencyRangeMHz', 'checks'];
 const COMMON_KEYS = ['kind', 'name', 'toleranceDb', 'source'];
 const KIND_KEYS: Record<CheckKind, string[]> = {

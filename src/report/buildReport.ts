@@ -10,6 +10,7 @@ import { drawCdfPlot, type CurveStyle } from './plots.js';
 import { getKeyed, unitKey, type BuildReportInput, type MapThumbnail, type ReportSettings } from './reportTypes.js';
 import { scaleT, valueScale } from './unitMaps.js';
 import { cdfLimitMarks } from './unitReport.js';
+import { isLowerBetter } from '../quantity.js';
 
 /** A thumbnail's pixels painted with one colour scale (each pixel is its own "point"). */
 function thumbnailPng(t: MapThumbnail, entry: (v: number) => number, table: Uint8Array): Buffer {
@@ -95,7 +96,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
   });
   if (curves.length > 0) {
     doc.addPage();
-    heading(doc, q === 'eis' ? 'CCDF of every unit (EIS)' : `CDF of every unit (${quantityLabel(q)})`, 250);
+    heading(doc, isLowerBetter(q) ? 'CCDF of every unit (EIS)' : `CDF of every unit (${quantityLabel(q)})`, 250);
     const box = { x: MARGIN.left + 44, y: doc.y + 6, w: w - 44 - 120, h: 220 };
     const limits = distinctLimits(units);
     drawCdfPlot(doc, box, q, vu, curves, [], [], limits);

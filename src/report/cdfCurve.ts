@@ -1,5 +1,6 @@
 import type { Quantity } from '../types.js';
 import { weightedCdf } from '../coverage/weightedCdf.js';
+import { worstValue } from '../quantity.js';
 
 /** A CDF as plain data (sendable between worker threads), at most a few hundred points. */
 export interface CdfCurve {
@@ -27,7 +28,7 @@ const FOUR_PI = 4 * Math.PI;
 export function cdfCurve(values: ArrayLike<number>, weightSr: ArrayLike<number>, quantity: Quantity = 'eirp', maxPoints = 400): CdfCurve {
   const { values: steps, cumulativeSr: cum, measuredSr: measured } = weightedCdf(...measuredOnly(values, weightSr));
   const n = steps.length;
-  const start = quantity === 'eis' ? 0 : Math.max(0, FOUR_PI - measured) / FOUR_PI;
+  const start = worstValue(quantity) === -Infinity ? Math.max(0, FOUR_PI - measured) / FOUR_PI : 0; // the unmeasured share sits at the worst value
   const keep: number[] = [];
   if (n <= maxPoints) for (let k = 0; k < n; k++) keep.push(k);
   else {

@@ -1,4 +1,3 @@
-import type { Quantity } from '../types.js';
 
 /** Fixed decimals, '—' for null/non-finite; '-0.00' printed as '0.00'. */
 export function fmt(v: number | null | undefined, digits = 2): string {
@@ -19,9 +18,8 @@ export function fmtFrequency(hz: number | null): string {
   return `${fmt(hz, 0)} Hz`;
 }
 
-export function quantityLabel(q: Quantity): string {
-  return q === 'eirp' ? 'EIRP' : q === 'eis' ? 'EIS' : 'Gain';
-}
+/** Owned by src/quantity.ts; re-exported for the report's imports. */
+export { quantityLabel } from '../quantity.js';
 
 export const verdictText = (v: 'pass' | 'fail' | 'none'): string => (v === 'pass' ? 'PASS' : v === 'fail' ? 'FAIL' : 'NOT JUDGED');
 

@@ -3,6 +3,7 @@ import { clipTo, drawAxes, px, py, type Axes } from './axes.js';
 import type { CdfCurve } from './cdfCurve.js';
 import { fmt, niceRange, quantityLabel } from './format.js';
 import { INK, MUTED, type Doc } from './pdfDoc.js';
+import { atOrBetterText, isLowerBetter, worsenedBy } from '../quantity.js';
 
 export interface Box {
   x: number;
@@ -27,12 +28,12 @@ export interface CurveStyle {
 }
 
 /** y of a CDF point as drawn: the CDF for eirp/gain, the CCDF (1 − F) for eis. */
-const drawnY = (q: Quantity, f: number) => (q === 'eis' ? 1 - f : f);
+const drawnY = (q: Quantity, f: number) => (isLowerBetter(q) ? 1 - f : f);
 
 function stepPath(doc: Doc, a: Axes, c: CdfCurve, q: Quantity): void {
   const n = c.values.length;
   if (n === 0) return;
-  let y = drawnY(q, q === 'eis' ? 0 : c.startFraction);
+  let y = drawnY(q, isLowerBetter(q) ? 0 : c.startFraction);
   doc.moveTo(a.x, py(a, y));
   for (let k = 0; k < n; k++) {
     const x = px(a, c.values[k]);
@@ -45,7 +46,7 @@ function stepPath(doc: Doc, a: Axes, c: CdfCurve, q: Quantity): void {
 
 /** The y-axis title saying exactly what is drawn. */
 export function cdfAxisTitle(q: Quantity): string {
-  return q === 'eis' ? 'share of 4π with EIS above x (CCDF)' : `share of 4π with ${quantityLabel(q)} at or below x (CDF)`;
+  return isLowerBetter(q) ? 'share of 4π with EIS above x (CCDF)' : `share of 4π with ${quantityLabel(q)} at or below x (CDF)`;
 }
 
 /**
@@ -157,19 +158,19 @@ export function drawCoveragePlot(doc: Doc, box: Box, q: Quantity, unit: string, 
   const xs = curve.slice(Math.max(0, first - 1), Math.min(curve.length, last + 2)).map((c) => c.threshold);
   const xr = niceRange(Math.min(...xs, ...marks.map((m) => m.threshold)), Math.max(...xs, ...marks.map((m) => m.threshold)), 8);
   const a: Axes = { ...box, xMin: xr.lo, xMax: xr.hi, yMin: 0, yMax: 1 };
-  const cmp = q === 'eis' ? '≤' : '≥';
+  const cmp = atOrBetterText(q).symbol;
   drawAxes(doc, a, xr.ticks, xr.step, [0, 0.2, 0.4, 0.6, 0.8, 1], `threshold t (${unit})`, `share of 4π with ${quantityLabel(q)} ${cmp} t`, (v) => `${fmt(100 * v, 0)} %`);
   // Top axis: distance from the peak in dB.
   const rel = niceRange(0, Math.abs(xr.hi - xr.lo), 7);
   doc.font('R').fontSize(6.5).fillColor(MUTED);
   for (const d of rel.ticks) {
-    const t = q === 'eis' ? peak + d : peak - d;
+    const t = worsenedBy(q, peak, d);
     if (t < xr.lo - 1e-9 || t > xr.hi + 1e-9) continue;
     const x = px(a, t);
     doc.moveTo(x, a.y).lineTo(x, a.y - 2.5).lineWidth(0.5).strokeColor(INK).stroke();
     doc.text(fmt(d, 0), x - 15, a.y - 10, { width: 30, align: 'center', lineBreak: false });
   }
-  doc.text(q === 'eis' ? 'dB above the best (lowest) EIS' : 'dB below the TSP peak', a.x, a.y - 20, { width: a.w, align: 'center', lineBreak: false });
+  doc.text(isLowerBetter(q) ? 'dB above the best (lowest) EIS' : 'dB below the TSP peak', a.x, a.y - 20, { width: a.w, align: 'center', lineBreak: false });
   clipTo(doc, a);
   curve.forEach((c, k) => (k === 0 ? doc.moveTo(px(a, c.threshold), py(a, c.efficiency)) : doc.lineTo(px(a, c.threshold), py(a, c.efficiency))));
   doc.lineWidth(1.3).strokeColor(INK).stroke();

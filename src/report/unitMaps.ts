@@ -5,6 +5,7 @@ import { classBoundaries, type MapRaster } from './mapRaster.js';
 import { colorTable, paintMapPng } from './paintMap.js';
 import { cachedRaster } from './rasterCache.js';
 import { rememberUnitRaster } from './thumbnail.js';
+import { isAtOrBetter, isLowerBetter } from '../quantity.js';
 
 /** A value → colour scale with best at t = 1 (top of the bar) for every quantity. */
 /** Differences to the reference beyond ± this many dB are outlined on the difference map. */
@@ -20,7 +21,7 @@ export interface ValueScale {
 
 export function valueScale(lo: number, hi: number, q: Quantity): ValueScale {
   const r = niceRange(lo, hi, 6);
-  return { lo: r.lo, hi: r.hi, step: r.step, ticks: r.ticks, invert: q === 'eis' };
+  return { lo: r.lo, hi: r.hi, step: r.step, ticks: r.ticks, invert: isLowerBetter(q) };
 }
 
 /** Position on the colour bar, 0 … 1, of a value (best at 1). */
@@ -29,7 +30,7 @@ export function scaleT(s: ValueScale, v: number): number {
   return s.invert ? 1 - t : t;
 }
 
-export const better = (q: Quantity, v: number, t: number): boolean => (q === 'eis' ? v <= t : v >= t);
+export const better = (q: Quantity, v: number, t: number): boolean => isAtOrBetter(q, v, t);
 
 /** Everything drawn on a unit's maps, rasterized once. */
 export interface UnitMaps {

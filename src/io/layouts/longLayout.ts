@@ -12,7 +12,7 @@ import { inputError } from '../inputError.js';
 import type { ColumnInfo, ColumnRole, JobSpec, RawBeam } from '../types.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
 import { LongSink, type LongGroup } from './longSink.js';
-import { angleColumns, checkValueUnit, fail, FREQ_FACTORS, headerRoles, metadataQuantity, resolveQuantity, rolesForDetection, VALUE_ROLES } from './planParts.js';
+import { angleColumns, checkValueUnit, fail, FREQ_FACTORS, headerRoles, metadataQuantity, quantityOfFile, rolesForDetection, VALUE_ROLES } from './planParts.js';
 
 /** Long layout: num slots 0,1 = angles (θ,φ or el,az), 2(,3) = value(s), then frequency. */
 export interface LongPlan extends PlanFacts {
@@ -112,7 +112,7 @@ export function planLong(cells: string[], ctx: PlanContext): PlanResult {
     }
     quantity = 'eirp';
   } else {
-    const q = resolveQuantity(ctx, colQuantity, cells[valueFields[0]].trim(), warnings);
+    const q = quantityOfFile(ctx, colQuantity, cells[valueFields[0]].trim(), warnings);
     if (typeof q !== 'string') return fail([q]);
     quantity = q;
   }

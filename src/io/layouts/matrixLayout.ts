@@ -11,7 +11,7 @@ import { parseNumberText } from '../numberText.js';
 import type { ColumnInfo, RawBeam } from '../types.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
 import { MatrixSink } from './matrixSink.js';
-import { checkValueUnit, fail, metadataQuantity, resolveQuantity } from './planParts.js';
+import { checkValueUnit, fail, metadataQuantity, quantityOfFile } from './planParts.js';
 
 /** Matrix layout: every field is a number; field 0 the row angle, the rest values at colAngles. */
 export interface MatrixPlan extends PlanFacts {
@@ -39,7 +39,7 @@ function planMatrix(cells: string[], ctx: PlanContext): PlanResult | null {
   const angleConvention = rowName === 'theta' ? 'theta-phi' : 'az-el';
   const unit = parseHeaderCell(cells[0]).unit;
   const warnings: Warning[] = [];
-  const q = resolveQuantity(ctx, undefined, undefined, warnings);
+  const q = quantityOfFile(ctx, undefined, undefined, warnings);
   if (typeof q !== 'string') return fail([q]);
   const writtenUnit = ctx.job?.valueUnit ?? metadataQuantity(ctx.metadata).unit ?? (q === 'gain' ? 'dBi' : 'dBm');
   const checked = checkValueUnit(q, false, writtenUnit);

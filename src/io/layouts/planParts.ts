@@ -4,6 +4,7 @@
  */
 import type { InputError, Quantity, ValueUnit, Warning } from '../../types.js';
 import { warning } from '../../warnings.js';
+import { isQuantity, resolveQuantity } from '../../quantity.js';
 import { roleOfName } from '../columnRoles.js';
 import { parseHeaderCell, type HeaderCell } from '../headerCell.js';
 import { inputError } from '../inputError.js';
@@ -22,7 +23,7 @@ export function metadataQuantity(meta: Record<string, string>): { quantity?: Qua
   const text = meta.quantity?.trim().toLowerCase();
   if (!text) return {};
   const [q, u] = text.split(/[\s,]+/);
-  const quantity = q === 'eirp' || q === 'eis' || q === 'gain' ? q : undefined;
+  const quantity = isQuantity(q) ? q : undefined;
   const unit = u ? parseHeaderCell(`x [${u}]`).unit ?? undefined : undefined;
   return { quantity, unit };
 }
@@ -41,24 +42,25 @@ export function checkValueUnit(
   return `dBm, mW or W for ${power ? 'power' : quantity}`;
 }
 
-/** Resolve the quantity: option > job > columns > metadata > assumed eirp (with a warning). */
-export function resolveQuantity(
+/**
+ * The file's quantity in the one resolution order of src/quantity.ts (option > job > columns >
+ * metadata > assumed eirp, with a warning). Columns and metadata that disagree, with neither
+ * option nor job deciding, are an input error at the metadata line.
+ */
+export function quantityOfFile(
   ctx: PlanContext,
   fromColumns: Quantity | undefined,
   columnName: string | undefined,
   warnings: Warning[],
 ): Quantity | InputError {
   const meta = metadataQuantity(ctx.metadata);
-  if (ctx.quantityOverride) return ctx.quantityOverride;
-  if (ctx.job?.quantity) return ctx.job.quantity;
-  if (fromColumns && meta.quantity && meta.quantity !== fromColumns) {
+  const r = resolveQuantity({ option: ctx.quantityOverride, job: ctx.job?.quantity, columns: fromColumns, metadata: meta.quantity });
+  if (r.from === 'columns' && meta.quantity && meta.quantity !== fromColumns) {
     const line = ctx.metadataLines.quantity ?? 1;
     return inputError(ctx.file, line, 1, 'quantity', meta.quantity, `'${fromColumns}' to agree with column '${columnName}'`);
   }
-  if (fromColumns) return fromColumns;
-  if (meta.quantity) return meta.quantity;
-  warnings.push(warning('quantity-assumed', `no quantity named; assumed eirp (dBm)`, { file: ctx.file }));
-  return 'eirp';
+  if (r.from === 'assumed') warnings.push(warning('quantity-assumed', `no quantity named; assumed eirp (dBm)`, { file: ctx.file }));
+  return r.quantity;
 }
 
 /** Header cells with their roles by name, after the job file's `columns:` mapping. */

@@ -19,7 +19,7 @@ import { SampleAccumulator } from '../sampleAccumulator.js';
 import type { ColumnInfo, ColumnRole, JobSpec, RawBeam } from '../types.js';
 import { halfPairExpected } from './longLayout.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
-import { angleColumns, checkValueUnit, fail, FREQ_FACTORS, headerRoles, resolveQuantity, rolesForDetection } from './planParts.js';
+import { angleColumns, checkValueUnit, fail, FREQ_FACTORS, headerRoles, quantityOfFile, rolesForDetection } from './planParts.js';
 import { RowAngles } from './rowAngles.js';
 
 /** A header cell of the wide layout: beam id, block frequency, and the value it holds. */
@@ -148,7 +148,7 @@ function planWide(cells: string[], ctx: PlanContext): PlanResult | null {
     if (!ctx.job?.calibration) return cellErr(firstWide, 'a calibration table in the job file (calibration.table) to turn received power into EIRP');
     quantity = 'eirp';
   } else {
-    const q = resolveQuantity(ctx, w0.quantity, cells[firstWide].trim(), warnings);
+    const q = quantityOfFile(ctx, w0.quantity, cells[firstWide].trim(), warnings);
     if (typeof q !== 'string') return fail([q]);
     quantity = q;
   }
