@@ -4,10 +4,10 @@ export const USAGE = `usage: npm run bench -- [--quick] [--peer] [--reps N] [--n
   --peer      also run the pandas peer (/work/shared/bench/peer.py) alternately with spherecov
   --reps N    repetitions of every timed process (default 3; 1 with --quick)
   --no-build  do not run the TypeScript build first (use dist/ as it is)
-  --only L    run only these stages: floor,read,measure,cli,growth,build,pdf,peer
+  --only L    run only these stages: floor,read,measure,cli,growth,build,pdf,build100,peer
   --keep      keep analyze outputs under bench/out/runs/ (default: deleted after each run)`;
 
-const STAGES = ['floor', 'read', 'measure', 'cli', 'growth', 'build', 'pdf', 'peer'];
+const STAGES = ['floor', 'read', 'measure', 'cli', 'growth', 'build', 'pdf', 'build100', 'peer'];
 
 /** Parse argv (without node and script) into options; throws Error with a usage message. */
 export function parseArgs(argv) {

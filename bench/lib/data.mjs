@@ -14,8 +14,8 @@ const GEN_PY = '/work/shared/bench/gen.py';
 /** The data sets of a full run and of a --quick smoke run. */
 export function dataPlan(quick) {
   return quick
-    ? { long: { beams: 16, step: 2, seed: 1 }, long4x: { beams: 64, step: 2, seed: 1 }, build: { units: 4, beams: 16, step: 5 } }
-    : { long: { beams: 64, step: 1, seed: 1 }, long4x: { beams: 256, step: 1, seed: 1 }, build: { units: 20, beams: 16, step: 5 } };
+    ? { long: { beams: 16, step: 2, seed: 1 }, long4x: { beams: 64, step: 2, seed: 1 }, build: { units: 4, beams: 16, step: 5 }, build100: { units: 12, beams: 16, step: 5 } }
+    : { long: { beams: 64, step: 1, seed: 1 }, long4x: { beams: 256, step: 1, seed: 1 }, build: { units: 20, beams: 16, step: 5 }, build100: { units: 100, beams: 16, step: 5 } };
 }
 
 /** Which generator is usable here: gen.py with numpy (the reference shape) or the Node port. */

@@ -14,8 +14,10 @@ export interface AnalyzeOptions {
   limits?: string;
   quantity?: Quantity;
   pdf?: boolean;
+  /** Skip the optional analysis (holes, beam removal, smallest subset). */
+  coreOnly?: boolean;
   /** Parallel units; default os.availableParallelism(). */
-  jobs?: number;
+  jobs?: number | 'auto';
   json?: boolean;
   quiet?: boolean;
   force?: boolean;

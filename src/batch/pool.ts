@@ -5,11 +5,16 @@
  * With `jobs` = N the main thread is one of the N lanes and N − 1 workers are started (none when
  * there is only one task): a worker pays its own module loading, font parsing and JIT warm-up
  * (about as much CPU as a few units), which the main thread has already paid or pays anyway.
+ * With `jobs` = 'auto' (the default) the work decides: the main thread starts alone, and after
+ * each of its tasks the pool estimates the work left (tasks left × the main thread's mean task
+ * time); workers (cores − 1) are started only when that is more than WORTH_IT times what a
+ * worker costs to start, so a build that one thread finishes sooner never pays for workers.
  * Tasks are handed out one at a time from a shared counter (the next free lane takes the next
  * task); each worker holds up to two tasks, so it does not sit idle while the main thread is busy
  * with a task of its own and cannot answer at once.
  */
 import { Worker } from 'node:worker_threads';
+import { availableParallelism } from 'node:os';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { safeRunTask, type TaskInput, type TaskOutput } from './unitTask.js';
@@ -34,6 +39,23 @@ function workerPath(): string | null {
 /** Tasks a worker holds at once (one running, one waiting) while enough work is left. */
 const WORKER_DEPTH = 2;
 
+/**
+ * CPU a worker costs to start (module loading, JIT warm-up; fonts and pdfkit when it writes
+ * PDFs), in ms, as measured with `npm run bench` on the 2-core machine class (0.55 s and
+ * 1.85 s). Machine-dependent; only the order of magnitude matters for the decision.
+ */
+const WORKER_START_MS = { plain: 550, pdf: 1850 };
+/** Start workers only when the work left is at least this many times their start-up cost. */
+const WORTH_IT = 2;
+
+/** 'auto': workers pay off when the work left (tasks × mean task time) outweighs WORTH_IT × their start-up. */
+export function workersPayOff(tasksLeft: number, meanTaskMs: number, startMs: number): boolean {
+  return tasksLeft * meanTaskMs > WORTH_IT * startMs;
+}
+
+/** `--jobs`: a fixed number of lanes, or 'auto' (up to the machine's cores, decided from the work). */
+export type Jobs = number | 'auto';
+
 interface Reply { id: number; ok: boolean; out?: TaskOutput; message?: string }
 
 export class TaskPool {
@@ -47,9 +69,11 @@ export class TaskPool {
   }
 
   /** Run all tasks with up to `jobs` in parallel (main thread included); outputs in the order of `tasks`. */
-  async run(tasks: TaskInput[], jobs: number, hooks: PoolHooks = {}): Promise<TaskOutput[]> {
+  async run(tasks: TaskInput[], jobs: Jobs, hooks: PoolHooks = {}): Promise<TaskOutput[]> {
     const script = workerPath();
-    const lanes = Math.max(1, Math.min(Math.floor(jobs) || 1, tasks.length));
+    const auto = jobs === 'auto';
+    const wanted = auto ? availableParallelism() : Math.floor(jobs) || 1;
+    const lanes = Math.max(1, Math.min(wanted, tasks.length));
     if (lanes === 1 || script === null) return this.runInProcess(tasks, hooks);
     const outputs: TaskOutput[] = new Array(tasks.length);
     let next = 0;
@@ -61,10 +85,22 @@ export class TaskPool {
       hooks.onDone?.(tasks[i], out);
     };
 
+    const workerLanes: Promise<void>[] = [];
+    const startWorkers = () => {
+      this.workers = Array.from({ length: lanes - 1 }, () => new Worker(script));
+      workerLanes.push(...this.workers.map(workerLane));
+    };
+    const startMs = tasks[0].report ? WORKER_START_MS.pdf : WORKER_START_MS.plain;
+    let mainMs = 0, mainDone = 0;
     const mainLane = async (): Promise<void> => {
       for (let i = take(); i !== null; i = take()) {
         hooks.onStart?.(tasks[i]);
+        const t0 = performance.now();
         finish(i, await safeRunTask(tasks[i]));
+        mainMs += performance.now() - t0;
+        mainDone++;
+        // 'auto': is the work left worth the workers' start-up?
+        if (auto && this.workers.length === 0 && !stop() && workersPayOff(tasks.length - next, mainMs / mainDone, startMs)) startWorkers();
       }
     };
 
@@ -113,10 +149,11 @@ export class TaskPool {
         refill();
       });
 
-    this.workers = Array.from({ length: lanes - 1 }, () => new Worker(script));
+    if (!auto) startWorkers();
     try {
-      const all = [mainLane(), ...this.workers.map(workerLane)];
-      const settled = await Promise.allSettled(all);
+      const main = await Promise.allSettled([mainLane()]);
+      // The main lane is done taking tasks, so no worker starts after this point.
+      const settled = [...main, ...(await Promise.allSettled(workerLanes))];
       const rejected = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
       if (rejected) throw rejected.reason;
     } finally {

@@ -1,7 +1,6 @@
 /**
  * `spherecov analyze`: discover → group → analyze units in parallel → write outputs.
  */
-import os from 'node:os';
 import path from 'node:path';
 import { existsSync, statSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
@@ -181,7 +180,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const generatedAt = opts.creationDate ?? new Date().toISOString();
   const pdf = opts.pdf !== false;
   const pageSize = opts.pageSize ?? 'a4';
-  const jobs = opts.jobs ?? os.availableParallelism();
+  const jobs = opts.jobs ?? 'auto';
   let report: ReportSettings | null = null;
   if (pdf) {
     try {
@@ -207,6 +206,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const makeTask = (key: string, files: string[]): TaskInput => ({
     key, files, inputRoot: discovery.root, job, quantityOverride: opts.quantity, percentilesPct, thresholds, relativeDb,
     limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null,
+    ...(opts.coreOnly ? { coreOnly: true } : {}),
   });
   if (referenceArg !== undefined) {
     referenceDir = referenceFolder(referenceArg, input, new Set(groups.keys()));

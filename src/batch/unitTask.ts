@@ -34,6 +34,8 @@ export interface TaskInput {
   thresholds: number[];
   relativeDb: number[];
   limitSet: LimitSet | null;
+  /** Skip the optional analysis (holes, beam removal, smallest subset): --core-only. */
+  coreOnly?: boolean;
   /** Report settings for the unit PDFs; null with --no-pdf. */
   report: ReportSettings | null;
   generatedAt: string;
@@ -119,7 +121,8 @@ export function measureUnit(m: Measurement, input: TaskInput): { result: UnitRes
   const beamIds = m.beams.map((b) => b.id);
   const level = analysisLevel(ls);
   const hT = holeThreshold(ls, input.thresholds);
-  const removal: BeamRemoval[] = beamValues.length > 1
+  const extras = input.coreOnly !== true;
+  const removal: (BeamRemoval | undefined)[] = !extras ? beamValues.map(() => undefined) : beamValues.length > 1
     ? beamRemoval(m.grid, beamValues, m.quantity, level, hT)
     : beamValues.map(() => ({ percentileLossDb: null, coverageLoss: null }));
   const result: UnitResult = {
@@ -143,8 +146,8 @@ export function measureUnit(m: Measurement, input: TaskInput): { result: UnitRes
     grid,
     sources: m.sources,
     limitSet: ls ? { name: ls.name, source: ls.source } : null,
-    holes: hT === null ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
-    subset: greedySubset(m.grid, beamValues, beamIds, m.quantity, level),
+    holes: hT === null || !extras ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
+    subset: extras ? greedySubset(m.grid, beamValues, beamIds, m.quantity, level) : null,
   };
   return { result, tsp };
 }

@@ -62,6 +62,7 @@ export function toAnalyzeOptions(input: string, o: Record<string, unknown>, io: 
     limits: str('limits'),
     quantity: str('quantity') as Quantity | undefined,
     pdf: o.pdf !== false,
+    coreOnly: o.coreOnly === true,
     jobs: str('jobs') !== undefined ? parseJobs(str('jobs') as string) : undefined,
     json: o.json === true,
     quiet: o.quiet === true,

@@ -38,10 +38,11 @@ export function parsePercentiles(text: string): number[] {
 }
 
 /** Worker count: a whole number ≥ 1. */
-export function parseJobs(text: string): number {
+export function parseJobs(text: string): number | 'auto' {
+  if (text.trim().toLowerCase() === 'auto') return 'auto';
   const n = Number(text);
   if (!/^\s*\d+\s*$/.test(text) || !Number.isInteger(n) || n < 1) {
-    throw new UsageError(`--jobs: found '${text}', expected a whole number of at least 1`);
+    throw new UsageError(`--jobs: found '${text}', expected a whole number of at least 1, or 'auto'`);
   }
   return n;
 }

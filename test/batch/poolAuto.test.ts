@@ -1,0 +1,23 @@
+// The default --jobs ('auto') starts workers only when the work left outweighs their start-up.
+import { describe, expect, it } from 'vitest';
+import { workersPayOff } from '../../src/batch/pool.js';
+import { parseJobs } from '../../src/cli/parse.js';
+
+describe("--jobs 'auto'", () => {
+  it('keeps a small build on the main thread and starts workers for a long one', () => {
+    // 20 units of 20 ms left: 0.4 s of work, less than twice a 0.55 s start-up.
+    expect(workersPayOff(20, 20, 550)).toBe(false);
+    // 100 units of 150 ms with PDFs: 15 s of work against 2 × 1.85 s.
+    expect(workersPayOff(100, 150, 1850)).toBe(true);
+    // The boundary: exactly twice the start-up is not enough (strictly more is).
+    expect(workersPayOff(11, 100, 550)).toBe(false);
+    expect(workersPayOff(12, 100, 550)).toBe(true);
+    expect(workersPayOff(0, 1e6, 550)).toBe(false);
+  });
+
+  it('is the word auto or a whole number on the command line', () => {
+    expect(parseJobs('auto')).toBe('auto');
+    expect(parseJobs('3')).toBe(3);
+    expect(() => parseJobs('0')).toThrow(/at least 1, or 'auto'/);
+  });
+});
