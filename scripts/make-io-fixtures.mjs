@@ -45,3 +45,19 @@ write('long_pol_column_h_v.csv', [...meta, 'theta,phi,beam,pol,eirp_dbm', ...pai
 const power = readFileSync(path.join(IO, 'calibrated/power.csv'), 'utf8');
 write('calibrated_rx/rx_power.csv', [power.split('\n')[0].replace('power_dbm', 'Rx Power (dBm)'), ...power.trimEnd().split('\n').slice(1)]);
 write('calibrated_rx/spherecov.yaml', [readFileSync(path.join(IO, 'calibrated/spherecov.yaml'), 'utf8').trimEnd()]);
+
+// Dropout cells: the same data with a few value cells replaced by dropout tokens. Direction
+// (θ 60, φ 90) is a dropout in both beams; (θ 120, φ 300) in beam 1 only. The equivalent long
+// file is long.csv without those rows (test/io/dropouts.test.ts builds it).
+const DROP = new Map([['60,90,0', 'OVLD'], ['60,90,1', 'NaN'], ['120,300,1', '--']]);
+write('dropouts/long_dropouts.csv', [
+  '# unit: DUT-A', '# frequency: 28 GHz', 'theta_deg,phi_deg,beam,eirp_dbm',
+  ...total.map((r) => [r[0], r[1], r[2], DROP.get(`${r[0]},${r[1]},${r[2]}`) ?? r[3]].join(',')),
+]);
+write('dropouts/spherecov.yaml', ['# cells a chamber writes for a sample it could not take', "dropout_tokens: [OVLD, NaN, '--', '']"]);
+const wideDrop = [...totals].map(([k, beams]) => {
+  const [t, p] = k.split(',');
+  const cell = (b) => (DROP.has(`${t},${p},${b}`) ? (b === '1' && t === '120' ? '' : DROP.get(`${t},${p},${b}`)) : beams.get(b)[0]);
+  return [t, p, cell('0'), cell('1')].join(',');
+});
+write('dropouts/wide_dropouts.csv', ['# unit: DUT-B', '# frequency: 28 GHz', 'theta,phi,Beam 0 EIRP (dBm),Beam 1 EIRP (dBm)', ...wideDrop]);

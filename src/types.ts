@@ -107,7 +107,8 @@ export type WarningCode =
   | 'identity-from-path'
   | 'angle-convention'
   | 'scattered-grid'
-  | 'frequency-unit-assumed';
+  | 'frequency-unit-assumed'
+  | 'dropout-samples';
 
 export interface Warning {
   code: WarningCode;

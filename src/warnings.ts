@@ -76,6 +76,10 @@ export const WARNINGS: Record<WarningCode, WarningInfo> = {
     title: 'Scattered grid',
     remedy: 'None needed: points are weighted by their spherical Voronoi cell areas.',
   },
+  'dropout-samples': {
+    title: 'Dropout cells read as missing samples',
+    remedy: 'Re-measure the directions named; a direction missing in every beam is an unmeasured grid point (it counts as not covered), one missing in some beams only is filled from that beam\'s neighbouring samples.',
+  },
   'frequency-unit-assumed': {
     title: 'Frequency unit assumed',
     remedy: 'Name the unit in the header (freq_ghz, "Frequency [MHz]") or set frequency_unit in the job file.',

@@ -143,6 +143,40 @@ export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[], op
   return { measurements, errors, warnings };
 }
 
+/**
+ * Dropout cells (job file dropout_tokens) leave a beam without a sample at a direction the other
+ * beams have. Such a direction is taken out of every beam of the unit (in place), so all beams
+ * stay on one grid and the direction becomes a missing grid point (its solid angle is then
+ * accounted by the grid's weights) instead of being interpolated. Only units with a file that had
+ * dropouts are touched. Gives the directions removed ('θ …°, φ …°'). Cost O(samples).
+ */
+function dropoutDirections(beams: RawBeam[]): string[] {
+  if (!beams.some((b) => b.hasDropouts)) return [];
+  const key = (b: RawBeam, i: number): string => `${b.thetaDeg[i]}|${b.phiDeg[i]}`;
+  const all = new Map<string, string>();
+  for (const b of beams) for (let i = 0; i < b.values.length; i++) if (!all.has(key(b, i))) all.set(key(b, i), `θ ${b.thetaDeg[i]}°, φ ${b.phiDeg[i]}°`);
+  const gone = new Set<string>();
+  for (const b of beams) {
+    if (!b.hasDropouts) continue;
+    const own = new Set<string>();
+    for (let i = 0; i < b.values.length; i++) own.add(key(b, i));
+    for (const k of all.keys()) if (!own.has(k)) gone.add(k);
+  }
+  if (gone.size === 0) return [];
+  const cache = new Map<Float64Array, Uint8Array>();
+  for (const b of beams) {
+    let keep = cache.get(b.thetaDeg);
+    if (!keep || keep.length !== b.values.length) {
+      keep = new Uint8Array(b.values.length);
+      for (let i = 0; i < keep.length; i++) keep[i] = gone.has(key(b, i)) ? 0 : 1;
+      cache.set(b.thetaDeg, keep);
+    }
+    const pick = (a: Float64Array): Float64Array => a.filter((_, i) => keep![i] === 1);
+    [b.thetaDeg, b.phiDeg, b.values] = [pick(b.thetaDeg), pick(b.phiDeg), pick(b.values)];
+  }
+  return [...gone].map((k) => all.get(k)!);
+}
+
 function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[], shared: Set<Float64Array>): Measurement | null {
   const ref = list[0];
   const freqText = ref.frequencyHz === null ? 'no frequency' : `${ref.frequencyHz / 1e9} GHz`;
@@ -166,6 +200,10 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     kept.push(b);
   }
   if (kept.length === 0) return null;
+  const dropped = dropoutDirections(kept);
+  if (dropped.length > 0) {
+    warnings.push(warning('dropout-samples', `${what}: ${dropped.length} direction${dropped.length === 1 ? '' : 's'} without a sample in some beam (dropout cells) left out of every beam, so ${dropped.length === 1 ? 'it is a missing grid point' : 'they are missing grid points'}: ${dropped.slice(0, 5).join('; ')}${dropped.length > 5 ? '; …' : ''}`, { file: ref.file }));
+  }
 
   const sets: AngleSet[] = [];
   for (const b of kept) {

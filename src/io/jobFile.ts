@@ -3,6 +3,7 @@ import path from 'node:path';
 import { LineCounter, parseDocument, isMap, isSeq, type Document } from 'yaml';
 import type { InputError } from '../types.js';
 import { clipText } from './inputError.js';
+import { parseNumberText } from './numberText.js';
 import type { CalibrationPoint, ColumnRole, JobSpec } from './types.js';
 import { QUANTITIES } from '../quantity.js';
 
@@ -22,7 +23,7 @@ const ROLE_KEYS: Record<string, ColumnRole> = {
   theta: 'theta', phi: 'phi', azimuth: 'azimuth', elevation: 'elevation', value: 'value', value_theta: 'valueTheta',
   value_phi: 'valuePhi', power: 'power', pol: 'pol', unit: 'unit', beam: 'beam', frequency: 'frequency',
 };
-const TOP_KEYS = ['columns', 'identity', 'quantity', 'value_unit', 'angles', 'frequency_unit', 'header_line', 'calibration', 'limits', 'checks',
+const TOP_KEYS = ['columns', 'identity', 'quantity', 'value_unit', 'angles', 'frequency_unit', 'header_line', 'dropout_tokens', 'calibration', 'limits', 'checks',
   'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference'];
 const FREQ_KEYS: Record<string, number> = { frequency_hz: 1, frequency_mhz: 1e6, frequency_ghz: 1e9 };
 
@@ -172,6 +173,19 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
   job.quantity = c.oneOf(top.quantity, ['quantity'], QUANTITIES);
   job.valueUnit = c.oneOf(top.value_unit, ['value_unit'], ['dBm', 'dBi', 'mW', 'W'] as const);
   job.frequencyUnit = c.oneOf(top.frequency_unit, ['frequency_unit'], ['Hz', 'MHz', 'GHz'] as const);
+  if (top.dropout_tokens !== undefined) {
+    const list = top.dropout_tokens;
+    if (!Array.isArray(list)) c.fail(['dropout_tokens'], list, "a list of cell texts read as missing samples, e.g. [OVLD, NaN, '--', '']");
+    else {
+      const tokens: string[] = [];
+      list.forEach((x, i) => {
+        if (typeof x !== 'string') c.fail(['dropout_tokens', i], x, 'a text such as OVLD (numbers are read as values, never as dropouts)');
+        else if (typeof parseNumberText(x, true) === 'number') c.fail(['dropout_tokens', i], x, 'a text that is not a number (numbers are read as values, never as dropouts)');
+        else tokens.push(x);
+      });
+      job.dropoutTokens = tokens;
+    }
+  }
   if (top.header_line !== undefined) {
     const n = c.number(top.header_line, ['header_line']);
     if (n !== undefined && !(Number.isInteger(n) && n >= 1)) c.fail(['header_line'], top.header_line, 'a line number (1 or more)');

@@ -10,6 +10,7 @@ import { generalTokenize } from './generalTokenizer.js';
 import { ErrorList, inputError } from './inputError.js';
 import { KeyTable } from './keyTable.js';
 import type { PlanFacts } from './layouts/layoutTypes.js';
+import { DropoutLog } from './layouts/dropoutLog.js';
 import { isLayoutHeader, planLayout } from './layouts/registry.js';
 import { parseNumberText } from './numberText.js';
 import { pathIdentity } from './pathIdentity.js';
@@ -87,25 +88,27 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       return result;
     }
 
+    const dropoutTokens = ctx.job?.dropoutTokens ? new Set(ctx.job.dropoutTokens.map((s) => s.trim().toLowerCase())) : null;
     const run = async (useFast: boolean) => {
       const errors = new ErrorList(file);
       const keys = new KeyTable(plan.fields.keyCount);
-      const sink = layout.newSink({ file, errors, keys, firstDataLine: sniff.headerLine + 1 });
+      const dropouts = new DropoutLog();
+      const sink = layout.newSink({ file, errors, keys, firstDataLine: sniff.headerLine + 1, dropouts });
       const limited = new SampleLimit(sink, layout.samplesPerRow, ctx.maxSamples ?? MAX_SAMPLES_PER_FILE, file, errors);
       const t: TokenContext = {
         file, fields: plan.fields, delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, errors, keys, sink: limited,
-        nums: new Float64Array(Math.max(1, plan.fields.numCount)), keyIds: new Int32Array(Math.max(1, plan.fields.keyCount)),
+        nums: new Float64Array(Math.max(1, plan.fields.numCount)), keyIds: new Int32Array(Math.max(1, plan.fields.keyCount)), dropoutTokens,
       };
       if (useFast) {
         const hash = createHash('sha256');
         const outcome = await fastTokenize(fh!, sniff.dataByteStart, sniff.headerLine + 1, t, hash, ctx.chunkBytes);
         if (outcome === 'quote') return null;
-        return { errors, keys, sink, sha: hash.digest('hex') };
+        return { errors, keys, sink, dropouts, sha: hash.digest('hex') };
       }
       const bytes = await readFile(absPath);
       const text = bytes.toString('utf8', sniff.bom ? 3 : 0);
       generalTokenize(text, sniff.dataCharStart, sniff.headerLine + 1, sniff.lineEnding === 'CRLF' ? '\r\n' : '\n', t);
-      return { errors, keys, sink, sha: createHash('sha256').update(bytes).digest('hex') };
+      return { errors, keys, sink, dropouts, sha: createHash('sha256').update(bytes).digest('hex') };
     };
     const wantFast = ctx.parser === 'fast' || (ctx.parser !== 'general' && !sniff.quoted);
     let outcome = wantFast ? await run(true) : null;
@@ -157,6 +160,12 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
         identity.beam === 'file-name' ? `beam '${beams[0].beam}' from the file name` : null,
       ].filter((t) => t !== null);
       result.warnings.push(warning('identity-from-path', `${fromPath.join(', ')}`, { file }));
+    }
+    const dl = outcome.dropouts;
+    if (dl.count > 0) {
+      for (const b of beams) b.hasDropouts = true;
+      const more = dl.count > dl.shown.length ? `, and ${dl.count - dl.shown.length} more` : '';
+      result.warnings.push(warning('dropout-samples', `${dl.count} dropout cell${dl.count === 1 ? '' : 's'} (dropout_tokens in the job file) read as missing samples: ${dl.shown.join(', ')}${more}`, { file, line: dl.firstLine }));
     }
     if (plan.fileValueUnit === 'mW' || plan.fileValueUnit === 'W') {
       result.warnings.push(warning('unit-converted', `values in ${plan.fileValueUnit} converted to dBm`, { file }));

@@ -113,7 +113,7 @@ export function sniffHead(file: string, head: Buffer, wholeFile: boolean, rule: 
         header = here;
         break;
       }
-      if (DELIMITERS.some((d) => rule.isHeader!(raw.split(d)))) {
+      if (DELIMITERS.some((d) => rule.isHeader!(raw.split(d).map(unquote)))) {
         header = here;
         break;
       }
@@ -171,6 +171,12 @@ export function sniffHead(file: string, head: Buffer, wholeFile: boolean, rule: 
     headerChoice,
     preambleLines: preamble.length,
   };
+}
+
+/** A header cell without surrounding quotes (detection only; the header itself is split by papaparse). */
+function unquote(cell: string): string {
+  const t = cell.trim();
+  return t.length >= 2 && t.startsWith('"') && t.endsWith('"') ? t.slice(1, -1) : t;
 }
 
 function readMeta(re: RegExp, raw: string, line: number, metadata: Record<string, string>, lines: Record<string, number>): void {

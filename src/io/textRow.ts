@@ -15,6 +15,8 @@ export interface TokenContext {
   sink: RowSink;
   nums: Float64Array;
   keyIds: Int32Array;
+  /** Dropout tokens (trimmed, lower case) read as missing samples in value fields; null = strict. */
+  dropoutTokens: ReadonlySet<string> | null;
 }
 
 /**
@@ -42,6 +44,10 @@ export function processTextRow(fields: string[], line: number, loc: RowLocator, 
     const kind = t.fields.kinds[f];
     if (kind === NUM) {
       const v = parseNumberText(fields[f], t.decimalComma);
+      if (typeof v !== 'number' && t.dropoutTokens !== null && t.fields.values[f] === 1 && t.dropoutTokens.has(fields[f].trim().toLowerCase())) {
+        t.nums[t.fields.slots[f]] = NaN; // a missing sample: the sink records and skips it
+        continue;
+      }
       if (typeof v !== 'number') {
         t.errors.add(inputError(t.file, line, loc.col(f), names[f], fields[f].trim(), expectedNumber(v)));
         return;

@@ -46,6 +46,11 @@ export interface JobSpec {
   frequencyUnit?: 'Hz' | 'MHz' | 'GHz';
   /** 1-based line of the header row, when detection below a preamble cannot settle it. */
   headerLine?: number;
+  /**
+   * Cell texts that stand for a missing sample in a value column (`OVLD`, `NaN`, `--`, '' for an
+   * empty cell), compared case-insensitively after trimming. Absent: strict (every such cell is an error).
+   */
+  dropoutTokens?: string[];
   calibration?: { table: CalibrationPoint[] };
   limits?: string;
   checks?: Record<string, unknown>[];
@@ -86,6 +91,8 @@ export interface RawBeam {
   metadata?: Record<string, string>;
   /** 1-based line of the first row of this beam. */
   firstLine?: number;
+  /** The file had dropout cells read as missing samples (job file dropout_tokens). */
+  hasDropouts?: boolean;
 }
 
 export type IdentitySource = 'column' | 'metadata' | 'job' | 'folder' | 'file-name' | 'none';

@@ -10,7 +10,7 @@ const README = readFileSync(path.resolve(__dirname, '../../README.md'), 'utf8');
 describe("README's job-file example", () => {
   it('loads without errors and shows every key the job file accepts', async () => {
     const start = README.indexOf('Every key it accepts');
-    const block = README.slice(README.indexOf('\n', start) + 1, README.indexOf('The `columns:` mapping goes'));
+    const block = README.slice(README.indexOf('\n', start) + 1, README.indexOf('**Dropout cells.**'));
     const yaml = block.split('\n').map((l) => l.slice(7)).join('\n');
     const dir = await mkdtemp(path.join(tmpdir(), 'readme-job-'));
     try {

@@ -1,12 +1,14 @@
 /**
- * Generated chamber exports for the reliability suite: valid files in random dialects (long and
- * matrix layouts) and random damage applied to them. All randomness comes from fast-check
+ * Generated chamber exports for the reliability suite: valid files in random dialects (long,
+ * matrix and wide layouts, with or without a free-text preamble) and random damage applied to them. All randomness comes from fast-check
  * (seeded by the caller), so a failure prints a replayable counterexample.
  */
 import fc from 'fast-check';
 
 export interface ExportSpec {
-  layout: 'long' | 'matrix';
+  layout: 'long' | 'matrix' | 'wide';
+  /** Free-text lines (a title, `Operator: …`, a blank line) before everything else. */
+  preamble: boolean;
   delimiter: ',' | ';' | '\t';
   decimalComma: boolean;
   crlf: boolean;
@@ -24,7 +26,8 @@ export interface ExportSpec {
 }
 
 export const exportSpec: fc.Arbitrary<ExportSpec> = fc.record({
-  layout: fc.constantFrom('long' as const, 'long' as const, 'matrix' as const),
+  layout: fc.constantFrom('long' as const, 'long' as const, 'matrix' as const, 'wide' as const),
+  preamble: fc.boolean(),
   delimiter: fc.constantFrom(',' as const, ';' as const, '\t' as const),
   decimalComma: fc.boolean(),
   crlf: fc.boolean(),
@@ -50,7 +53,7 @@ export interface Rendered {
 export function renderExport(s: ExportSpec): Rendered {
   const dc = s.decimalComma && s.delimiter !== ',';
   const num = (x: number) => (dc ? String(x).replace('.', ',') : String(x));
-  const q = (t: string) => (s.quoteCells && s.layout === 'long' ? `"${t}"` : t);
+  const q = (t: string) => (s.quoteCells && s.layout !== 'matrix' ? `"${t}"` : t);
   const nl = s.crlf ? '\r\n' : '\n';
   const thetas: number[] = [];
   for (let t = 0; t <= 180; t += s.thetaStepDeg) thetas.push(t);
@@ -59,6 +62,7 @@ export function renderExport(s: ExportSpec): Rendered {
   let k = 0;
   const nextValue = () => s.centi[k++ % s.centi.length] / 100;
   const lines: string[] = [];
+  if (s.preamble) lines.push('Pattern export of an invented range', 'Operator: fuzz', '');
   if (s.metadata) lines.push('# unit: FZ-01', '# frequency: 28 GHz');
   const expected: Rendered['expected'] = [];
   if (s.layout === 'matrix') {
@@ -77,6 +81,23 @@ export function renderExport(s: ExportSpec): Rendered {
       lines.push(row.join(s.delimiter));
     }
     expected.push(e);
+  } else if (s.layout === 'wide') {
+    const beamCols = Array.from({ length: s.beams }, (_, b) => `Beam ${b} EIRP (dBm)`);
+    const header = [s.azEl ? 'el_deg' : 'theta_deg', s.azEl ? 'az_deg' : 'phi_deg', ...beamCols, ...(s.extraColumn ? ['chamber_temp'] : [])];
+    lines.push(header.map(q).join(s.delimiter));
+    for (let b = 0; b < s.beams; b++) expected.push({ thetaDeg: [], phiDeg: [], values: [] });
+    for (const t of thetas) {
+      for (const p of phis) {
+        const vals = expected.map((e) => {
+          const v = nextValue();
+          e.thetaDeg.push(t);
+          e.phiDeg.push(p);
+          e.values.push(v);
+          return num(v);
+        });
+        lines.push([num(s.azEl ? 90 - t : t), num(p), ...vals, ...(s.extraColumn ? [num(21.5)] : [])].join(s.delimiter));
+      }
+    }
   } else {
     const header = [s.azEl ? 'el_deg' : 'theta_deg', s.azEl ? 'az_deg' : 'phi_deg', 'beam', 'eirp_dbm', ...(s.extraColumn ? ['chamber_temp'] : [])];
     lines.push(header.map(q).join(s.delimiter));

@@ -5,6 +5,7 @@
  */
 import type { InputError, Quantity, ValueUnit, Warning } from '../../types.js';
 import type { FieldPlan } from '../fieldPlan.js';
+import type { DropoutLog } from './dropoutLog.js';
 import type { ErrorList } from '../inputError.js';
 import type { KeyTable } from '../keyTable.js';
 import type { RowSink } from '../rowSink.js';
@@ -47,6 +48,8 @@ export interface SinkContext {
   keys: KeyTable;
   /** Line of the first data row (just below the header). */
   firstDataLine: number;
+  /** Where dropout cells (job file dropout_tokens) were read as missing samples. */
+  dropouts: DropoutLog;
 }
 
 /** What a finished sink needs to name its beams. */

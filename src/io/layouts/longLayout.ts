@@ -130,7 +130,7 @@ export function planLong(cells: string[], ctx: PlanContext): PlanResult {
   const fp = fieldPlan(cells.length, cells.map((c) => c.trim()));
   addField(fp, a1, NUM);
   addField(fp, a2, NUM);
-  for (const v of valueFields) addField(fp, v, NUM);
+  for (const v of valueFields) addField(fp, v, NUM, true);
   const freqIdx = find('frequency');
   const freqSlot = freqIdx >= 0 ? addField(fp, freqIdx, NUM) : -1;
   const keyOf = (role: ColumnRole): number => (find(role) >= 0 ? addField(fp, find(role), KEY) : -1);
@@ -161,7 +161,7 @@ export function planLong(cells: string[], ctx: PlanContext): PlanResult {
     angleConvention, angleUnit, power, pairValues: valueFields.length === 2, freqSlot, freqFactor, unitKey, beamKey, polKey,
   };
   return {
-    planned: { facts: plan, info: {}, samplesPerRow: 1, headerErrors: [], newSink: (s) => new LongLayoutSink(plan, s.file, s.errors, s.keys) },
+    planned: { facts: plan, info: {}, samplesPerRow: 1, headerErrors: [], newSink: (s) => new LongLayoutSink(plan, s.file, s.errors, s.keys, s.dropouts) },
     warnings,
     errors: [],
   };

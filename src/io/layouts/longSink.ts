@@ -1,6 +1,7 @@
 import { mwToDbm, powerSumDb, wToDbm } from '../../units.js';
 import { pairComponent } from '../columnRoles.js';
 import type { LongPlan } from './longLayout.js';
+import type { DropoutLog } from './dropoutLog.js';
 import { RowAngles } from './rowAngles.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { KeyTable } from '../keyTable.js';
@@ -49,6 +50,7 @@ export class LongSink implements RowSink {
     private readonly file: string,
     private readonly errors: ErrorList,
     private readonly keys: KeyTable,
+    private readonly dropouts: DropoutLog,
   ) {
     this.angles = new RowAngles(plan.angleConvention, plan.angleUnit);
     this.linear = plan.fileValueUnit === 'mW' || plan.fileValueUnit === 'W';
@@ -89,6 +91,11 @@ export class LongSink implements RowSink {
     const thetaDeg = angles.thetaDeg;
     const phiDeg = angles.phiDeg;
 
+    if (nums[2] !== nums[2] || (p.pairValues && nums[3] !== nums[3])) {
+      this.dropouts.add(line, p.fields.names[this.fieldOfNum(nums[2] !== nums[2] ? 2 : 3)], thetaDeg, phiDeg);
+      this.rows++;
+      return; // a dropout: no sample at this direction for this beam
+    }
     let value: number | null = nums[2];
     if (this.linear) value = this.toDb(value, 2, line, loc);
     if (value === null) return;

@@ -48,7 +48,7 @@ function planMatrix(cells: string[], ctx: PlanContext): PlanResult | null {
     return fail([inputError(ctx.file, line, 1, 'quantity', writtenUnit, checked)]);
   }
   const fp = fieldPlan(cells.length, cells.map((c, i) => (i === 0 ? c.trim() : `${angleConvention === 'az-el' ? 'az' : 'phi'}=${c.trim()}`)));
-  for (let i = 0; i < cells.length; i++) addField(fp, i, NUM);
+  for (let i = 0; i < cells.length; i++) addField(fp, i, NUM, i > 0);
   const angleUnit = ctx.job?.angles?.unit ?? (unit === 'rad' ? 'rad' : 'deg');
   const columns: ColumnInfo[] = cells.map((c, i) => ({ index: i, name: c.trim(), role: i === 0 ? 'matrix-angle' : 'value', unit: i === 0 ? unit : null }));
   const plan: MatrixPlan = {
@@ -58,7 +58,7 @@ function planMatrix(cells: string[], ctx: PlanContext): PlanResult | null {
   return {
     planned: {
       facts: plan, info: { matrixColumnsDeg: colAngles }, samplesPerRow: colAngles.length, headerErrors: columnErrors(plan, cells, ctx),
-      newSink: (s) => new MatrixLayoutSink(plan, s.file, s.errors, s.firstDataLine),
+      newSink: (s) => new MatrixLayoutSink(plan, s.file, s.errors, s.firstDataLine, s.dropouts),
     },
     warnings,
     errors: [],

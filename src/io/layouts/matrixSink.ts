@@ -3,6 +3,7 @@ import type { MatrixPlan } from './matrixLayout.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { RowLocator, RowSink } from '../rowSink.js';
 import { SampleAccumulator } from '../sampleAccumulator.js';
+import type { DropoutLog } from './dropoutLog.js';
 
 const RAD_TO_DEG = 180 / Math.PI;
 
@@ -21,6 +22,7 @@ export class MatrixSink implements RowSink {
     private readonly file: string,
     private readonly errors: ErrorList,
     firstLine: number,
+    private readonly dropouts: DropoutLog,
   ) {
     this.acc = new SampleAccumulator(null, firstLine);
     const f = plan.angleUnit === 'rad' ? RAD_TO_DEG : 1;
@@ -44,6 +46,10 @@ export class MatrixSink implements RowSink {
     const u = p.fileValueUnit;
     for (let c = 1; c < nums.length && c <= this.colDeg.length; c++) {
       let v = nums[c];
+      if (v !== v) {
+        this.dropouts.add(line, p.fields.names[c], thetaDeg, this.colDeg[c - 1]);
+        continue; // a dropout: no sample at this direction
+      }
       if (u === 'mW' || u === 'W') {
         if (!(v > 0)) {
           this.errors.add(inputError(this.file, line, loc.col(c), p.fields.names[c], loc.text(c).trim(), `a positive power in ${u}`));

@@ -6,12 +6,13 @@
  * from the headers; a unit or frequency column may stand beside the angles.
  */
 import type { InputError, Quantity, Warning } from '../../types.js';
-import { mwToDbm, powerSumDb, wToDbm } from '../../units.js';
+import { mwToDbm, wToDbm } from '../../units.js';
 import { warning } from '../../warnings.js';
 import { roleOfName } from '../columnRoles.js';
 import { addField, fieldPlan, KEY, NUM } from '../fieldPlan.js';
 import { assumedFrequencyHz } from '../frequencyText.js';
 import { parseHeaderCell } from '../headerCell.js';
+import { polarizationBeams } from '../polarizationBeams.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { KeyTable } from '../keyTable.js';
 import type { RowLocator } from '../rowSink.js';
@@ -20,6 +21,7 @@ import type { ColumnInfo, ColumnRole, JobSpec, RawBeam } from '../types.js';
 import { halfPairExpected } from './longLayout.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
 import { angleColumns, checkValueUnit, fail, FREQ_FACTORS, headerRoles, quantityOfFile, rolesForDetection } from './planParts.js';
+import type { DropoutLog } from './dropoutLog.js';
 import { RowAngles } from './rowAngles.js';
 
 /** A header cell of the wide layout: beam id, block frequency, and the value it holds. */
@@ -160,10 +162,10 @@ function planWide(cells: string[], ctx: PlanContext): PlanResult | null {
   addField(fp, angles.a1, NUM);
   addField(fp, angles.a2, NUM);
   for (const b of blocks) {
-    if (b.total >= 0) b.slotA = addField(fp, b.total, NUM);
+    if (b.total >= 0) b.slotA = addField(fp, b.total, NUM, true);
     else {
-      b.slotA = addField(fp, b.first, NUM);
-      b.slotB = addField(fp, b.second, NUM);
+      b.slotA = addField(fp, b.first, NUM, true);
+      b.slotB = addField(fp, b.second, NUM, true);
     }
   }
   const freqSlot = freqIdx >= 0 ? addField(fp, freqIdx, NUM) : -1;
@@ -192,23 +194,24 @@ function planWide(cells: string[], ctx: PlanContext): PlanResult | null {
     angleConvention: angles.convention, angleUnit, power, blocks, freqSlot, freqFactor, unitKey,
   };
   return {
-    planned: { facts: plan, info: {}, samplesPerRow: blocks.length, headerErrors: [], newSink: (s) => new WideSink(plan, s.file, s.errors, s.keys) },
+    planned: { facts: plan, info: {}, samplesPerRow: blocks.length, headerErrors: [], newSink: (s) => new WideSink(plan, s.file, s.errors, s.keys, s.dropouts) },
     warnings,
     errors: [],
   };
 }
 
-/** Per (unit, frequency-column value): one accumulator per block. */
+/** Per (unit, frequency-column value): one accumulator per block, and one more per pair block (its second component). */
 interface RowGroup {
   unitId: number;
   freqRaw: number;
   accs: SampleAccumulator[];
+  second: (SampleAccumulator | null)[];
 }
 
 /**
  * Wide rows → one sample group per beam block (and unit / frequency-column value). Angle checks
- * as in the long layout (RowAngles); linear power converted; a polarization pair combined as the
- * long layout's _theta/_phi pair is (power sum, DESIGN.md "Polarization pair"). The first
+ * as in the long layout (RowAngles); linear power converted; both components of a polarization
+ * pair kept and handed to polarizationBeams (one owner of how a pair combines). The first
  * block's accumulator is the template of all others, so the angles are stored once.
  */
 class WideSink implements LayoutSink {
@@ -219,15 +222,18 @@ class WideSink implements LayoutSink {
   private last: RowGroup | null = null;
   private template: SampleAccumulator | null = null;
   private readonly values: Float64Array;
+  private readonly seconds: Float64Array;
 
   constructor(
     private readonly plan: WidePlan,
     private readonly file: string,
     private readonly errors: ErrorList,
     private readonly keys: KeyTable,
+    private readonly dropouts: DropoutLog,
   ) {
     this.angles = new RowAngles(plan.angleConvention, plan.angleUnit);
     this.values = new Float64Array(plan.blocks.length);
+    this.seconds = new Float64Array(plan.blocks.length);
   }
 
   private err(line: number, f: number, loc: RowLocator, expected: string): void {
@@ -267,14 +273,21 @@ class WideSink implements LayoutSink {
     }
     const unitId = p.unitKey >= 0 ? keys[p.unitKey] : -1;
     const values = this.values;
+    const seconds = this.seconds;
     for (let k = 0; k < p.blocks.length; k++) {
       const b = p.blocks[k];
-      let v = this.toDb(nums[b.slotA], b.slotA, line, loc);
+      if (nums[b.slotA] !== nums[b.slotA] || (b.slotB >= 0 && nums[b.slotB] !== nums[b.slotB])) {
+        const missing = nums[b.slotA] !== nums[b.slotA] ? b.slotA : b.slotB;
+        this.dropouts.add(line, p.fields.names[this.field(missing)], this.angles.thetaDeg, this.angles.phiDeg);
+        values[k] = NaN; // missing sample of this beam
+        continue;
+      }
+      const v = this.toDb(nums[b.slotA], b.slotA, line, loc);
       if (v === null) return;
       if (b.slotB >= 0) {
         const w = this.toDb(nums[b.slotB], b.slotB, line, loc);
         if (w === null) return;
-        v = powerSumDb(v, w); // DESIGN.md "Polarization pair": 10·log10(10^(a/10) + 10^(b/10))
+        seconds[k] = w;
       }
       values[k] = v;
     }
@@ -285,7 +298,11 @@ class WideSink implements LayoutSink {
     }
     const t = this.angles.thetaDeg;
     const f = this.angles.phiDeg;
-    for (let k = 0; k < values.length; k++) g.accs[k].push(t, f, values[k]);
+    for (let k = 0; k < values.length; k++) {
+      if (values[k] !== values[k]) continue;
+      g.accs[k].push(t, f, values[k]);
+      g.second[k]?.push(t, f, seconds[k]);
+    }
     this.rows++;
   }
 
@@ -298,7 +315,8 @@ class WideSink implements LayoutSink {
         this.template ??= acc;
         return acc;
       });
-      g = { unitId, freqRaw, accs };
+      const second = this.plan.blocks.map((b, k) => (b.slotB >= 0 ? new SampleAccumulator(this.template, line) : null));
+      g = { unitId, freqRaw, accs, second };
       this.groups.push(g);
       this.byKey.set(key, g);
     }
@@ -323,10 +341,13 @@ class WideSink implements LayoutSink {
       }
       p.blocks.forEach((b, k) => {
         const acc = g.accs[k];
-        beams.push({
+        const { thetaDeg, phiDeg, values } = acc.finish();
+        const base = {
           ...ctx.base, unit: g.unitId >= 0 ? this.keys.names[p.unitKey][g.unitId] : ctx.fileUnit, beam: b.beam,
-          frequencyHz: b.frequencyHz ?? freqHz, ...acc.finish(), firstLine: acc.firstLine,
-        });
+          frequencyHz: b.frequencyHz ?? freqHz, thetaDeg, phiDeg, firstLine: acc.firstLine,
+        };
+        const second = g.second[k];
+        beams.push(...(second ? polarizationBeams(base, values, second.finish().values) : [{ ...base, values }]));
       });
     }
     if (assumed) {
