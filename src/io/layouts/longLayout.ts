@@ -12,7 +12,7 @@ import { inputError } from '../inputError.js';
 import type { ColumnInfo, ColumnRole, JobSpec, RawBeam } from '../types.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
 import { LongSink, type LongGroup } from './longSink.js';
-import { angleColumns, checkValueUnit, fail, FREQ_FACTORS, headerRoles, metadataQuantity, quantityOfFile, rolesForDetection, VALUE_ROLES } from './planParts.js';
+import { angleColumns, assumedValueUnit, checkValueUnit, fail, FREQ_FACTORS, headerRoles, metadataQuantity, quantityOfFile, rolesForDetection, VALUE_ROLES } from './planParts.js';
 
 /** Long layout: num slots 0,1 = angles (θ,φ or el,az), 2(,3) = value(s), then frequency. */
 export interface LongPlan extends PlanFacts {
@@ -121,7 +121,7 @@ export function planLong(cells: string[], ctx: PlanContext): PlanResult {
     return fail([inputError(ctx.file, ctx.headerLine, col(valueFields[1]), cells[valueFields[1]].trim(), units[1] ?? 'no unit',
       `the unit of '${cells[valueFields[0]].trim()}' (${units[0] ?? 'no unit'})`)]);
   }
-  const writtenUnit = units[0] ?? ctx.job?.valueUnit ?? metadataQuantity(ctx.metadata).unit ?? (quantity === 'gain' && !power ? 'dBi' : 'dBm');
+  const writtenUnit = units[0] ?? ctx.job?.valueUnit ?? metadataQuantity(ctx.metadata).unit ?? assumedValueUnit(quantity, power);
   const checked = checkValueUnit(quantity, power, writtenUnit);
   if (typeof checked === 'string') {
     return fail([inputError(ctx.file, ctx.headerLine, col(valueFields[0]), cells[valueFields[0]].trim(), writtenUnit, checked)]);

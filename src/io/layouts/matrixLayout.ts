@@ -11,7 +11,7 @@ import { parseNumberText } from '../numberText.js';
 import type { ColumnInfo, RawBeam } from '../types.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
 import { MatrixSink } from './matrixSink.js';
-import { checkValueUnit, fail, metadataQuantity, quantityOfFile } from './planParts.js';
+import { assumedValueUnit, checkValueUnit, fail, metadataQuantity, quantityOfFile } from './planParts.js';
 
 /** Matrix layout: every field is a number; field 0 the row angle, the rest values at colAngles. */
 export interface MatrixPlan extends PlanFacts {
@@ -41,7 +41,7 @@ function planMatrix(cells: string[], ctx: PlanContext): PlanResult | null {
   const warnings: Warning[] = [];
   const q = quantityOfFile(ctx, undefined, undefined, warnings);
   if (typeof q !== 'string') return fail([q]);
-  const writtenUnit = ctx.job?.valueUnit ?? metadataQuantity(ctx.metadata).unit ?? (q === 'gain' ? 'dBi' : 'dBm');
+  const writtenUnit = ctx.job?.valueUnit ?? metadataQuantity(ctx.metadata).unit ?? assumedValueUnit(q, false);
   const checked = checkValueUnit(q, false, writtenUnit);
   if (typeof checked === 'string') {
     const line = ctx.metadataLines.quantity ?? ctx.headerLine;

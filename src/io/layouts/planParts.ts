@@ -4,7 +4,7 @@
  */
 import type { InputError, Quantity, ValueUnit, Warning } from '../../types.js';
 import { warning } from '../../warnings.js';
-import { isQuantity, resolveQuantity } from '../../quantity.js';
+import { isQuantity, quantityUnit, resolveQuantity } from '../../quantity.js';
 import { roleOfName } from '../columnRoles.js';
 import { parseHeaderCell, type HeaderCell } from '../headerCell.js';
 import { inputError } from '../inputError.js';
@@ -26,6 +26,11 @@ export function metadataQuantity(meta: Record<string, string>): { quantity?: Qua
   const quantity = isQuantity(q) ? q : undefined;
   const unit = u ? parseHeaderCell(`x [${u}]`).unit ?? undefined : undefined;
   return { quantity, unit };
+}
+
+/** Unit assumed for values whose header, job file and metadata name none (received power is in dBm). */
+export function assumedValueUnit(quantity: Quantity, power: boolean): string {
+  return power ? 'dBm' : quantityUnit(quantity);
 }
 
 /** Check the written unit against the quantity; gives the stored unit or an error text. */

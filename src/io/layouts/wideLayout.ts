@@ -20,7 +20,7 @@ import { SampleAccumulator } from '../sampleAccumulator.js';
 import type { ColumnInfo, ColumnRole, JobSpec, RawBeam } from '../types.js';
 import { halfPairExpected } from './longLayout.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
-import { angleColumns, checkValueUnit, fail, FREQ_FACTORS, headerRoles, quantityOfFile, rolesForDetection } from './planParts.js';
+import { angleColumns, assumedValueUnit, checkValueUnit, fail, FREQ_FACTORS, headerRoles, quantityOfFile, rolesForDetection } from './planParts.js';
 import type { DropoutLog } from './dropoutLog.js';
 import { RowAngles } from './rowAngles.js';
 
@@ -154,7 +154,7 @@ function planWide(cells: string[], ctx: PlanContext): PlanResult | null {
     if (typeof q !== 'string') return fail([q]);
     quantity = q;
   }
-  const writtenUnit = w0.unit ?? ctx.job?.valueUnit ?? (quantity === 'gain' && !power ? 'dBi' : 'dBm');
+  const writtenUnit = w0.unit ?? ctx.job?.valueUnit ?? assumedValueUnit(quantity, power);
   const checked = checkValueUnit(quantity, power, writtenUnit);
   if (typeof checked === 'string') return fail([inputError(ctx.file, ctx.headerLine, col(firstWide), cells[firstWide].trim(), writtenUnit, checked)]);
 

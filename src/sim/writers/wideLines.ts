@@ -1,7 +1,7 @@
+import { quantityLabel } from '../../quantity.js';
 import type { ExportBeam, ExportOptions, ExportTable } from './exportTypes.js';
 import { valueUnitSuffix, type NumberFormat } from './numberFormat.js';
 
-const QUANTITY_LABEL = { eirp: 'EIRP', eis: 'EIS', gain: 'Gain' } as const;
 
 /**
  * The wide layout: one row per direction, one value column per beam, `Beam <id> EIRP (dBm)`
@@ -18,7 +18,7 @@ const QUANTITY_LABEL = { eirp: 'EIRP', eis: 'EIS', gain: 'Gain' } as const;
 export function* wideLines(table: ExportTable, opts: ExportOptions, fmt: NumberFormat): Generator<string> {
   const nl = opts.lineEnding ?? '\n';
   const sep = opts.delimiter ?? ',';
-  const label = QUANTITY_LABEL[opts.quantity ?? 'eirp'];
+  const label = quantityLabel(opts.quantity ?? 'eirp');
   const vu = valueUnitSuffix(opts);
   const unit = vu === 'dbi' ? 'dBi' : vu === 'mw' ? 'mW' : 'dBm';
   const [pa, pb] = opts.pairNames ?? ['theta', 'phi'];
