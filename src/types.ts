@@ -316,19 +316,48 @@ export interface BuildMetricStats {
   std: number | null;
   min: number | null;
   max: number | null;
-  /** Share of units whose check on this metric passes; null when the metric has no limit. */
+  /** Share of units whose check on this metric passes (of `judged`); null when the metric has no limit. */
   yield: number | null;
+  /** Check rows: units that passed, units that carry the check (the yield's denominator), and
+   * units in the build at this frequency (judged + not evaluable + could not be read). */
+  passedCount?: number | null;
+  judged?: number | null;
+  inBuild?: number | null;
+  /** Check rows: passed / inBuild, so that a unit that could not be read lowers the yield. */
+  yieldInBuild?: number | null;
   lowerLimit: number | null;
   upperLimit: number | null;
   cpk: number | null;
 }
 
 export interface BuildSummary {
+  /** Distinct units with at least one analyzed result (units[]). */
   units: number;
+  /** Distinct units in the build: analyzed ones plus those that could not be read or analyzed. */
+  unitsInBuild: number;
   passed: number;
   failed: number;
   notJudged: number;
+  /** Distinct units with at least one part that could not be read or analyzed (verdict "error"). */
+  errored: number;
   stats: BuildMetricStats[];
+}
+
+/**
+ * A unit (or one frequency of it) that could not be read or analyzed: results.json
+ * `unitsNotAnalyzed`, a row with verdict "error" in every output, never silently left out.
+ */
+export interface UnitNotAnalyzed {
+  unit: string;
+  /** The frequency when the unit was read but could not be assembled there; else null (unknown). */
+  frequencyHz: number | null;
+  verdict: 'error';
+  /** The first input error of this unit (file relative to the input, 1-based line). */
+  error: { file: string; line?: number; column?: number; message: string };
+  /** How many input errors belong to this unit. */
+  errorCount: number;
+  /** The unit's files (relative to the input). */
+  files: string[];
 }
 
 export interface ResultsFile {
@@ -337,6 +366,8 @@ export interface ResultsFile {
   generatedAt: string;
   settings: Record<string, unknown>;
   units: UnitResult[];
+  /** Units that could not be read or analyzed, each with its first error (verdict "error"). */
+  unitsNotAnalyzed: UnitNotAnalyzed[];
   build: BuildSummary | null;
   errors: InputError[];
 }

@@ -1,4 +1,5 @@
 import type { Quantity } from '../types.js';
+import type { FailOnCondition } from './exitCode.js';
 
 /** Everything `runAnalyze` needs, already parsed and validated by the CLI (or a library user). */
 export interface AnalyzeOptions {
@@ -18,8 +19,12 @@ export interface AnalyzeOptions {
   coreOnly?: boolean;
   /** Parallel units; default os.availableParallelism(). */
   jobs?: number | 'auto';
+  /** Write results.json to stdout instead of the verdict table. */
   json?: boolean;
+  /** No verdict table on stdout, no progress on stderr (errors still go to stderr). */
   quiet?: boolean;
+  /** CI gate: conditions that also give exit code 1 (see exitCode.ts). */
+  failOn?: FailOnCondition[];
   force?: boolean;
   /** Explicit job file; default: spherecov.yaml|yml|json in the input folder. */
   jobFile?: string;

@@ -2,9 +2,9 @@
  * `spherecov analyze`: discover → group → analyze units in parallel → write outputs.
  */
 import path from 'node:path';
-import { existsSync, statSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
-import type { InputError, Quantity, ResultsFile, UnitResult, Warning } from '../types.js';
+import type { InputError, Quantity, ResultsFile, UnitNotAnalyzed, UnitResult, Warning } from '../types.js';
 import type { JobSpec } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { loadLimitSet } from '../limits/loadLimitSet.js';
@@ -27,6 +27,8 @@ import { Progress } from './progress.js';
 import { summaryCsv, buildStatsCsv } from './summaryCsv.js';
 import { frequencyToken, uniqueStems } from './sanitize.js';
 import { exitCode } from './exitCode.js';
+import { checkReference } from './referenceCheck.js';
+import { consoleTable } from '../report/consoleTable.js';
 import { TOOL_VERSION } from './version.js';
 import { crossUnitExtras } from './crossUnit.js';
 import { fsReason, isFsError } from '../io/fsProblem.js';
@@ -115,20 +117,6 @@ function collidingGroups(outputs: TaskOutput[]): string[][] {
 }
 
 /**
- * The folder a --reference value names, or null when it names a unit of the build. A unit name
- * wins: a value equal to a group of the build (a unit folder or file stem) is that unit, and so
- * is a folder inside the input (it is part of the build). Only an existing folder outside the
- * input is a golden unit measured elsewhere.
- */
-function referenceFolder(ref: string, input: string, groupKeys: Set<string>): string | null {
-  if (groupKeys.has(ref)) return null;
-  const candidate = path.resolve(ref);
-  const rel = path.relative(input, candidate);
-  const inside = rel === '' || (!rel.startsWith('..') && !path.isAbsolute(rel));
-  return !inside && existsSync(candidate) && statSync(candidate).isDirectory() ? candidate : null;
-}
-
-/**
  * Read and measure a golden unit's exports from their own folder (no PDF for it; it is not part
  * of the build's results), and return its name and patterns for the difference maps and deltas.
  * @throws RunError when the folder holds no readable unit, or more than one.
@@ -208,9 +196,19 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null,
     ...(opts.coreOnly ? { coreOnly: true } : {}),
   });
+  let referenceAfterReading = false;
   if (referenceArg !== undefined) {
-    referenceDir = referenceFolder(referenceArg, input, new Set(groups.keys()));
-    if (referenceDir !== null) reference = undefined;
+    let named;
+    try {
+      named = checkReference(referenceArg, input, new Set(groups.keys()), discovery.files, job);
+    } catch (e) {
+      throw new RunError((e as Error).message);
+    }
+    if (named.kind === 'folder') {
+      referenceDir = named.dir;
+      reference = undefined;
+    } else if (named.kind === 'unit') reference = named.unit;
+    else referenceAfterReading = true;
   }
   const tasks = [...groups.keys()].sort(byCodePoint).map((k) => makeTask(k, groups.get(k) as string[]));
 
@@ -288,11 +286,13 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
 
     const unitOutputs: UnitOutput[] = outputs.flatMap((o) => o.units).sort((a, b) => compareUnits(a.result, b.result));
     const units = unitOutputs.map((u) => u.result);
+    const notAnalyzed: UnitNotAnalyzed[] = outputs.flatMap((o) => o.notAnalyzed ?? []);
+    notAnalyzed.sort((a, b) => byCodePoint(a.unit, b.unit) || (a.frequencyHz ?? -1) - (b.frequencyHz ?? -1));
     const errors: InputError[] = outputs.flatMap((o) => o.errors);
     errors.sort((a, b) => byCodePoint(a.file, b.file) || (a.line ?? 0) - (b.line ?? 0) || (a.column ?? 0) - (b.column ?? 0));
     const looseWarnings: Warning[] = outputs.flatMap((o) => o.warnings);
     const referenceProblem = crossUnitExtras(units, reference, referenceDir !== null);
-    const build = units.length > 0 ? buildStatistics(units) : null;
+    const build = units.length + notAnalyzed.length > 0 ? buildStatistics(units, notAnalyzed) : null;
 
     const results: ResultsFile = {
       schemaVersion: 1,
@@ -314,6 +314,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         warnings: [...looseWarnings.map(warningText), ...(referenceProblem ? [referenceProblem] : [])],
       },
       units,
+      unitsNotAnalyzed: notAnalyzed,
       build,
       errors,
     };
@@ -325,6 +326,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     };
     // No results.json while files are being replaced: a run killed here cannot look finished.
     await writer.discard('results.json');
+    const pdfNames: string[] = [];
     if (pdf) {
       const stems = uniqueStems(units.map((u) => (u.frequencyHz === null ? u.unit : `${u.unit}_${frequencyToken(u.frequencyHz)}`)));
       for (let i = 0; i < unitOutputs.length; i++) {
@@ -333,6 +335,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         const bytes = unitOutputs[i].pdf;
         if (file) await writer.commit(file, `${stems[i]}.pdf`);
         else if (bytes) await write(`${stems[i]}.pdf`, bytes);
+        if (file || bytes) pdfNames.push(`${stems[i]}.pdf`);
       }
       const thumbnails: Record<string, MapThumbnail> = {};
       const cdfs: Record<string, CdfCurve> = {};
@@ -345,6 +348,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       const summaryPdf = await renderBuildPdf(
         {
           units,
+          unitsNotAnalyzed: notAnalyzed,
           thumbnails,
           cdfs,
           build: build ?? buildStatistics([]),
@@ -356,7 +360,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       );
       await write('summary.pdf', summaryPdf);
     }
-    await write('summary.csv', summaryCsv(units));
+    await write('summary.csv', summaryCsv(units, notAnalyzed));
     await write('build-stats.csv', buildStatsCsv(build));
     const json = JSON.stringify(results, null, 2) + '\n';
     // results.json last: its presence (with this run's generatedAt) marks a finished run.
@@ -365,12 +369,15 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
 
     progress.clear();
     for (const e of errors) io.stderr(`spherecov: ${formatError(e)}\n`);
-    if (io.stderrIsTTY && !opts.quiet) {
-      const failed = units.filter((u) => u.verdict === 'fail').length;
-      io.stderr(`${units.length} unit result(s), ${failed} failed, ${errors.length} input error(s); outputs in ${opts.outDir}\n`);
-    }
+    // A --reference that only the files' contents could name, and they did not: a usage error.
+    const referenceMissing = referenceAfterReading && referenceProblem !== null;
+    if (referenceMissing) io.stderr(`spherecov: ${referenceProblem}\n`);
     if (opts.json) io.stdout(json);
-    return { results, exitCode: exitCode(results) };
+    else if (!opts.quiet) {
+      const written = ['results.json', 'summary.csv', 'build-stats.csv', ...(pdf ? ['summary.pdf', ...pdfNames] : [])];
+      io.stdout(consoleTable(results, written, opts.outDir));
+    }
+    return { results, exitCode: referenceMissing ? 2 : exitCode(results, opts.failOn ?? []) };
   } catch (e) {
     progress.clear();
     await writer.removeTemps();

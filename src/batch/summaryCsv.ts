@@ -1,7 +1,8 @@
 /**
  * summary.csv (one row per unit and frequency) and build-stats.csv (per frequency and metric).
  */
-import type { BuildSummary, UnitResult } from '../types.js';
+import type { BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
+import { errorLocation, errorMessage } from '../report/unitStatus.js';
 import { toCsv, type CsvCell } from './csv.js';
 import { isBetter } from '../quantity.js';
 
@@ -21,11 +22,13 @@ function peakBeam(u: UnitResult): UnitResult['beams'][number] | null {
 }
 
 /**
- * Rows of summary.csv. The percentile and coverage columns are the union over all units in
+ * Rows of summary.csv, one per analyzed unit and frequency and one per unit that could not be
+ * read or analyzed (verdict `error`, with its first error's location and message; its metric
+ * cells are empty). Rows are sorted by unit, then frequency. The percentile and coverage columns are the union over all units in
  * first-seen order (every unit of one run normally has the same lists); a unit without a
  * column leaves it empty. Text cells are neutralized against formula injection (csv.ts).
  */
-export function summaryCsv(units: UnitResult[]): string {
+export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] = []): string {
   const levels: number[] = [];
   const thresholds: number[] = [];
   const rel: number[] = [];
@@ -41,10 +44,12 @@ export function summaryCsv(units: UnitResult[]): string {
     ...thresholds.map((t) => `coverage_at_${num(t)}`),
     ...rel.map((d) => `coverage_within_${num(d)}db_of_peak`),
     'peak_beam', 'peak_beam_trp_dbm', 'verdict', 'checks_failed', 'checks_not_evaluable', 'worst_check', 'worst_margin', 'worst_margin_unit', 'worst_margin_db',
+    'full_sphere', 'warnings', 'error_location', 'error_message',
   ];
-  const rows: CsvCell[][] = units.map((u) => {
+  type Keyed = { unit: string; f: number | null; row: CsvCell[] };
+  const keyed: Keyed[] = units.map((u) => {
     const pb = peakBeam(u);
-    return [
+    const row: CsvCell[] = [
       u.unit, u.frequencyHz, u.quantity, u.valueUnit, u.beams.length, u.grid.points, u.solidAngleSr, u.solidAngleSr / (4 * Math.PI),
       u.tsp.peak.value, u.tsp.peak.thetaDeg, u.tsp.peak.phiDeg,
       ...levels.map((l) => u.tsp.percentiles.find((p) => p.levelPct === l)?.value ?? null),
@@ -54,16 +59,34 @@ export function summaryCsv(units: UnitResult[]): string {
       u.checks.filter((c) => c.status === 'fail').length, u.checks.filter((c) => c.status === 'not-evaluable').length,
       u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null, u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,
       u.worstCheck ? (u.worstCheck.marginUnit === 'fraction' ? u.worstCheck.marginDb ?? null : u.worstCheck.margin) : null,
+      u.grid.fullSphere ? 'yes' : 'no', u.warnings?.length ?? 0, null, null,
     ];
+    return { unit: u.unit, f: u.frequencyHz, row };
   });
-  return toCsv(header, rows);
+  const firstVerdict = header.indexOf('verdict');
+  for (const e of notAnalyzed) {
+    const row: CsvCell[] = header.map(() => null);
+    row[0] = e.unit;
+    row[1] = e.frequencyHz;
+    row[firstVerdict] = 'error';
+    row[header.length - 2] = errorLocation(e.error);
+    row[header.length - 1] = errorMessage(e.error);
+    keyed.push({ unit: e.unit, f: e.frequencyHz, row });
+  }
+  keyed.sort((a, b) => (a.unit < b.unit ? -1 : a.unit > b.unit ? 1 : (a.f ?? -1) - (b.f ?? -1)));
+  return toCsv(header, keyed.map((k) => k.row));
 }
 
-/** build-stats.csv: one row per frequency and metric of the build summary. */
+/**
+ * build-stats.csv: one row per frequency and metric of the build summary. `yield` is passed /
+ * judged; `yield_in_build` is passed / units in the build (a unit that could not be read counts).
+ */
 export function buildStatsCsv(build: BuildSummary | null): string {
-  const header = ['frequency_hz', 'metric', 'count', 'mean', 'std', 'min', 'max', 'yield', 'lower_limit', 'upper_limit', 'cpk'];
+  const header = ['frequency_hz', 'metric', 'count', 'mean', 'std', 'min', 'max', 'yield', 'lower_limit', 'upper_limit', 'cpk',
+    'passed', 'judged', 'in_build', 'yield_in_build'];
   const rows: CsvCell[][] = (build?.stats ?? []).map((s) => [
     s.frequencyHz, s.metric, s.count, s.mean, s.std, s.min, s.max, s.yield, s.lowerLimit, s.upperLimit, s.cpk,
+    s.passedCount ?? null, s.judged ?? null, s.inBuild ?? null, s.yieldInBuild ?? null,
   ]);
   return toCsv(header, rows);
 }

@@ -3,7 +3,7 @@
  * assemble the measurements, compute and judge each one, run the per-unit analysis and render
  * the unit PDFs. Input and output are plain data (structured-clone safe).
  */
-import type { BeamRemoval, InputError, Measurement, Quantity, SourceFile, SphereGrid, TotalScanPattern, UnitResult, Warning } from '../types.js';
+import type { BeamRemoval, InputError, Measurement, Quantity, SourceFile, SphereGrid, TotalScanPattern, UnitNotAnalyzed, UnitResult, Warning } from '../types.js';
 import type { JobSpec, RawBeam } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { readExportFile } from '../io/readExportFile.js';
@@ -70,6 +70,8 @@ export interface UnitOutput {
 export interface TaskOutput {
   key: string;
   units: UnitOutput[];
+  /** Units of this group that could not be read or analyzed, each with its first error. */
+  notAnalyzed: UnitNotAnalyzed[];
   errors: InputError[];
   /** Warnings that belong to a file but no measurement (e.g. a file that failed). */
   warnings: Warning[];
@@ -194,6 +196,8 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
   const errors: InputError[] = [];
   const fileWarnings = new Map<string, Warning[]>();
   const failedUnits = new Set<string>();
+  /** Every unit named by any row of this group (readable or not), with its files. */
+  const seen = new Map<string, Set<string>>();
   let groupFailed = false;
   const ctx = { inputRoot: input.inputRoot, job: input.job ?? undefined, quantityOverride: input.quantityOverride };
   for (const f of input.files) {
@@ -201,6 +205,7 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     sources.push({ path: r.file, sha256: r.sha256 });
     errors.push(...r.errors);
     fileWarnings.set(r.file, r.warnings);
+    for (const b of r.beams) seen.set(b.unit, (seen.get(b.unit) ?? new Set()).add(r.file));
     if (r.errors.length > 0) {
       if (r.beams.length === 0) groupFailed = true;
       for (const b of r.beams) failedUnits.add(b.unit);
@@ -235,7 +240,58 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     ? measured.filter((u) => input.exportAll || u.m.unit === input.reference).map((u) => ({ frequencyHz: u.m.frequencyHz, grid: u.m.grid, tsp: u.tsp, result: u.result }))
     : undefined;
   const leftover = [...fileWarnings.entries()].filter(([f]) => !usable.some((b) => b.file === f)).flatMap(([, w]) => w);
-  return { key: input.key, units, errors, warnings: [...leftover, ...assembled.warnings], referencePatterns };
+  const notAnalyzed = unitsNotAnalyzed(input.key, sources.map((s) => s.path), seen, usable, measured.map((u) => u.m), errors);
+  return { key: input.key, units, notAnalyzed, errors, warnings: [...leftover, ...assembled.warnings], referencePatterns };
+}
+
+/**
+ * The units of a group that produced no result, each with its first error: a unit named in the
+ * rows of an unreadable file, a unit read but not assembled at a frequency, and — when no file
+ * of the group named any unit — the group itself (a unit folder or file stem is its unit name).
+ * The first error is the first (file, line) among the errors of the unit's own files, else the
+ * group's first error.
+ */
+export function unitsNotAnalyzed(
+  key: string,
+  groupFiles: string[],
+  seen: Map<string, Set<string>>,
+  usable: RawBeam[],
+  measured: Measurement[],
+  errors: InputError[],
+): UnitNotAnalyzed[] {
+  if (errors.length === 0) return [];
+  const sorted = [...errors].sort((a, b) => (a.file < b.file ? -1 : a.file > b.file ? 1 : (a.line ?? 0) - (b.line ?? 0)));
+  const entry = (unit: string, frequencyHz: number | null, files: string[]): UnitNotAnalyzed => {
+    const own = sorted.filter((e) => files.includes(e.file));
+    const first = own[0] ?? sorted[0];
+    return {
+      unit, frequencyHz, verdict: 'error',
+      error: { file: first.file, ...(first.line !== undefined ? { line: first.line } : {}), ...(first.column !== undefined ? { column: first.column } : {}), message: first.message },
+      errorCount: own.length || sorted.length,
+      files: [...files].sort(),
+    };
+  };
+  const out: UnitNotAnalyzed[] = [];
+  const analyzed = new Set(measured.map((m) => `${m.unit}\u0000${m.frequencyHz}`));
+  const analyzedUnits = new Set(measured.map((m) => m.unit));
+  if (seen.size === 0) return [entry(key, null, groupFiles)];
+  // A file that named no unit (it failed before its first row) belongs to every unit of the group.
+  const named = new Set([...seen.values()].flatMap((f) => [...f]));
+  const orphans = groupFiles.filter((f) => !named.has(f));
+  for (const [unit, files] of seen) {
+    const parts = usable.filter((b) => b.unit === unit);
+    if (parts.length === 0) {
+      if (!analyzedUnits.has(unit)) out.push(entry(unit, null, [...files, ...orphans]));
+      continue;
+    }
+    // Read, but some frequency could not be assembled (e.g. a beam on a grid too far away).
+    const freqs = [...new Set(parts.map((b) => b.frequencyHz))];
+    for (const f of freqs) {
+      if (analyzed.has(`${unit}\u0000${f}`)) continue;
+      out.push(entry(unit, f, [...new Set(parts.filter((b) => b.frequencyHz === f).map((b) => b.file))]));
+    }
+  }
+  return out;
 }
 
 /**
@@ -247,6 +303,7 @@ export async function safeRunTask(input: TaskInput): Promise<TaskOutput> {
     return await runTask(input);
   } catch (e) {
     const message = e instanceof Error ? e.message : String(e);
-    return { key: input.key, units: [], errors: [{ file: input.key, message: `could not analyze this group (internal error: ${message})` }], warnings: [] };
+    const error = { file: input.key, message: `could not analyze this group (internal error: ${message})` };
+    return { key: input.key, units: [], notAnalyzed: [{ unit: input.key, frequencyHz: null, verdict: 'error', error, errorCount: 1, files: [] }], errors: [error], warnings: [] };
   }
 }

@@ -4,7 +4,7 @@
  */
 import { Command, CommanderError, Option } from 'commander';
 import { optionsFor, flagText, joinNegativeValues, type CommandName, type OptionSpec } from './options.js';
-import { UsageError, parseIsoDate, parseJobs, parseNumberList, parsePercentiles } from './parse.js';
+import { UsageError, parseFailOn, parseIsoDate, parseJobs, parseNumberList, parsePercentiles } from './parse.js';
 import { EXIT_INTERNAL, EXIT_INTERRUPTED } from './exitCode.js';
 import { runAnalyze } from '../batch/runAnalyze.js';
 import { InterruptedError, RunError } from '../batch/errors.js';
@@ -19,14 +19,15 @@ Examples:
   $ spherecov analyze exports/build-B --out reports/build-B
   $ spherecov analyze exports/build-B --out reports/build-B --limits 3gpp-fr2-pc3-n257 --jobs 2
   $ spherecov analyze exports/rx --out reports/rx --quantity eis --coverage-thresholds -88,-85
-  $ spherecov analyze exports/build-B --out /tmp/quick --no-pdf --json --quiet > results.json
+  $ spherecov analyze exports/build-B --out /tmp/quick --no-pdf --json > results.json
+  $ spherecov analyze exports/build-B --out ci-out --limits my-limits.yaml --fail-on not-judged,partial-sphere
   $ spherecov inspect exports/build-B/PX-01
   $ spherecov limits
   $ spherecov limits 3gpp-fr2-pc3-n257
 
-Exit codes: 0 all units analyzed and none failed a limit; 1 a unit failed a limit;
-2 usage error or an input could not be read (the rest is still analyzed and written);
-130 interrupted.`;
+Exit codes: 0 all units analyzed and none failed a limit; 1 a unit failed a limit (or met a
+--fail-on condition); 2 usage error or an input could not be read (the rest is still analyzed
+and written); 3 internal error; 130 interrupted.`;
 
 function defaultIo(): BatchIo {
   return {
@@ -66,6 +67,7 @@ export function toAnalyzeOptions(input: string, o: Record<string, unknown>, io: 
     jobs: str('jobs') !== undefined ? parseJobs(str('jobs') as string) : undefined,
     json: o.json === true,
     quiet: o.quiet === true,
+    failOn: str('failOn') !== undefined ? parseFailOn(str('failOn') as string) : undefined,
     force: o.force === true,
     jobFile: str('job'),
     reference: str('reference'),

@@ -1,3 +1,5 @@
+import { FAIL_ON_CONDITIONS, type FailOnCondition } from '../batch/exitCode.js';
+
 /**
  * Option value parsing: plain-words UsageError on bad values, never a stack trace.
  */
@@ -35,6 +37,18 @@ export function parsePercentiles(text: string): number[] {
     if (p < 0 || p > 100) throw new UsageError(`--percentiles: found '${p}', expected a level between 0 and 100 %`);
   }
   return list;
+}
+
+/** --fail-on: a comma list of the gate conditions. */
+export function parseFailOn(text: string): FailOnCondition[] {
+  const items = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  if (items.length === 0) throw new UsageError(`--fail-on: found '${text}', expected a comma list of ${FAIL_ON_CONDITIONS.join(', ')}`);
+  for (const i of items) {
+    if (!(FAIL_ON_CONDITIONS as readonly string[]).includes(i)) {
+      throw new UsageError(`--fail-on: found '${i}', expected one of ${FAIL_ON_CONDITIONS.join(', ')}`);
+    }
+  }
+  return [...new Set(items)] as FailOnCondition[];
 }
 
 /** Worker count: a whole number ≥ 1. */

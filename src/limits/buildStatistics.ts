@@ -1,5 +1,5 @@
 import { mean as ssMean, sampleStandardDeviation } from 'simple-statistics';
-import type { BuildMetricStats, BuildSummary, UnitResult } from '../types.js';
+import type { BuildMetricStats, BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
 import { processCapability } from './processCapability.js';
 import { worstOf } from '../quantity.js';
 
@@ -26,14 +26,19 @@ interface Series {
  *   not a pass). Cpk uses the limit as written, without the test tolerance: it describes the
  *   product against the requirement, while the tolerance is a measurement allowance used only
  *   for the verdict. Limits differing between units (mixed limit sets) give no limit and no Cpk.
- * - units/passed/failed/notJudged count distinct units: a unit fails if any of its frequencies
- *   fails, passes if all its frequencies pass, else is not judged.
+ * - yieldInBuild (check rows): passed / units in the build at that frequency, where a unit that
+ *   could not be read (frequency unknown) belongs to every frequency: a damaged export can
+ *   only lower it. `judged` and `inBuild` state both denominators.
+ * - units/passed/failed/notJudged/errored count distinct units: a unit with any part that could
+ *   not be read or analyzed is "errored"; otherwise it fails if any of its frequencies fails,
+ *   passes if all its frequencies pass, else is not judged. passed + failed + notJudged +
+ *   errored = unitsInBuild.
  * Rows are ordered by frequency (ascending, no-frequency last), then by the metric order above.
  *
  * Cost O(units × metrics).
- * @example buildStatistics([]) // { units: 0, passed: 0, failed: 0, notJudged: 0, stats: [] }
+ * @example buildStatistics([]) // { units: 0, unitsInBuild: 0, passed: 0, failed: 0, notJudged: 0, errored: 0, stats: [] }
  */
-export function buildStatistics(units: UnitResult[]): BuildSummary {
+export function buildStatistics(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] = []): BuildSummary {
   const byFreq = new Map<number | null, Map<string, Series>>();
   const series = (f: number | null, key: string): Series => {
     let m = byFreq.get(f);
@@ -69,9 +74,10 @@ export function buildStatistics(units: UnitResult[]): BuildSummary {
   for (const f of freqs) {
     const rows = [...(byFreq.get(f) as Map<string, Series>)];
     rows.sort((a, b) => metricRank(a[0]) - metricRank(b[0]));
-    for (const [metric, s] of rows) stats.push(row(f, metric, s));
+    const errored = new Set(notAnalyzed.filter((e) => e.frequencyHz === null || e.frequencyHz === f).map((e) => e.unit)).size;
+    for (const [metric, s] of rows) stats.push(row(f, metric, s, errored));
   }
-  return { ...countUnits(units), stats };
+  return { ...countUnits(units, notAnalyzed), stats };
 }
 
 /** Stable order: peak, percentiles, coverage, TRP, beam peak, checks (insertion order), margin. */
@@ -85,32 +91,38 @@ function metricRank(key: string): number {
   return 7e6; // checks: Array.prototype.sort is stable, so they keep the limit-set order
 }
 
-function row(frequencyHz: number | null, metric: string, s: Series): BuildMetricStats {
+function row(frequencyHz: number | null, metric: string, s: Series, errored: number): BuildMetricStats {
   const n = s.values.length;
   const mean = n ? ssMean(s.values) : null;
   const std = n >= 2 ? sampleStandardDeviation(s.values) : null;
   const isCheck = metric.startsWith('check:');
   const limit = isCheck && s.limits.size === 1 ? [...s.limits][0] : null;
   const bound = s.bound ?? null;
+  const passed = s.judged.filter(Boolean).length;
+  const inBuild = s.judged.length + errored;
   return {
     frequencyHz, metric, count: n, mean, std,
     min: n ? Math.min(...s.values) : null,
     max: n ? Math.max(...s.values) : null,
-    yield: isCheck && s.judged.length ? s.judged.filter(Boolean).length / s.judged.length : null,
+    yield: isCheck && s.judged.length ? passed / s.judged.length : null,
+    ...(isCheck ? { passedCount: passed, judged: s.judged.length, inBuild, yieldInBuild: inBuild ? passed / inBuild : null } : {}),
     lowerLimit: limit !== null && bound === 'lower' ? limit : null,
     upperLimit: limit !== null && bound === 'upper' ? limit : null,
     cpk: limit !== null && bound && mean !== null ? processCapability(mean, std, limit, bound) : null,
   };
 }
 
-function countUnits(units: UnitResult[]): Omit<BuildSummary, 'stats'> {
+function countUnits(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[]): Omit<BuildSummary, 'stats'> {
   const verdicts = new Map<string, string[]>();
   for (const u of units) verdicts.set(u.unit, [...(verdicts.get(u.unit) ?? []), u.verdict]);
-  let passed = 0, failed = 0, notJudged = 0;
+  const analyzed = verdicts.size;
+  for (const e of notAnalyzed) verdicts.set(e.unit, [...(verdicts.get(e.unit) ?? []), 'error']);
+  let passed = 0, failed = 0, notJudged = 0, errored = 0;
   for (const v of verdicts.values()) {
-    if (v.includes('fail')) failed++;
+    if (v.includes('error')) errored++;
+    else if (v.includes('fail')) failed++;
     else if (v.every((x) => x === 'pass')) passed++;
     else notJudged++;
   }
-  return { units: verdicts.size, passed, failed, notJudged };
+  return { units: analyzed, unitsInBuild: verdicts.size, passed, failed, notJudged, errored };
 }

@@ -11,6 +11,7 @@ import { getKeyed, unitKey, type BuildReportInput, type MapThumbnail, type Repor
 import { scaleT, valueScale } from './unitMaps.js';
 import { cdfLimitMarks } from './unitReport.js';
 import { isLowerBetter } from '../quantity.js';
+import { errorLocation, errorMessage, verdictWord, worstMarginText } from './unitStatus.js';
 
 /** A thumbnail's pixels painted with one colour scale (each pixel is its own "point"). */
 function thumbnailPng(t: MapThumbnail, entry: (v: number) => number, table: Uint8Array): Buffer {
@@ -26,11 +27,6 @@ function thumbnailPng(t: MapThumbnail, entry: (v: number) => number, table: Uint
 
 const label = (u: UnitResult) => `${u.unit}${u.frequencyHz === null ? '' : ` @ ${fmtFrequency(u.frequencyHz)}`}`;
 
-function worstMarginText(u: UnitResult): string {
-  if (!u.worstCheck) return '—';
-  const c = u.checks.find((k) => k.name === u.worstCheck!.name);
-  return c?.marginUnit === 'fraction' ? `${fmt(100 * u.worstCheck.margin, 1)} pt` : `${fmt(u.worstCheck.margin)} dB`;
-}
 
 /** Distinct limits over all units, for drawing once on the overlaid CDFs. */
 function distinctLimits(units: UnitResult[]) {
@@ -55,9 +51,16 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
   doc.moveDown(0.3).font('B').fontSize(12.5).fillColor(INK).text('Build summary');
   doc.moveDown(0.3);
   const b = input.build;
+  const notAnalyzed = input.unitsNotAnalyzed ?? [];
+  const inBuild = b.unitsInBuild ?? b.units;
+  const errored = b.errored ?? 0;
+  const judged = b.passed + b.failed;
+  const share = (n: number, d: number) => (d === 0 ? `${n} of 0` : `${n} of ${d} (${fmt((100 * n) / d, 1)} %)`);
+  const partial = units.filter((u) => !u.grid.fullSphere).length;
   keyValues(doc, [
-    ['Units', `${b.units} (${units.length} unit × frequency results)`],
-    ['Passed / failed', `${b.passed} passed, ${b.failed} failed, ${b.notJudged} not judged`],
+    ['Units in build', `${inBuild}: ${b.units} analyzed (${units.length} unit × frequency results)` + (errored ? `, ${errored} could not be read or analyzed` : '')],
+    ['Verdicts', `${b.passed} passed, ${b.failed} failed, ${b.notJudged} not judged, ${errored} error` + (partial ? `; ${partial} result(s) on a partial sphere` : '')],
+    ['Passed', `${share(b.passed, inBuild)} units in the build; ${share(b.passed, judged)} units judged`],
     ['Quantity', `${quantityLabel(q)} (${vu})`],
     ['Limit set', input.limitSetName ?? 'none (not judged)'],
     ['Generated', input.generatedAt],
@@ -67,13 +70,26 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
 
   heading(doc, 'Units', 40);
   const cols: Column[] = [
-    { header: 'Unit', width: w - 382 }, { header: 'Frequency', width: 70 }, { header: 'Verdict', width: 70 },
-    { header: 'Passed', width: 62, align: 'right' }, { header: 'Worst check', width: 110 }, { header: 'Worst margin', width: 70, align: 'right' },
+    { header: 'Unit', width: w - 436 }, { header: 'Frequency', width: 62 }, { header: 'Verdict', width: 62 },
+    { header: 'Checks passed', width: 48, align: 'right' }, { header: 'Worst check', width: 106 }, { header: 'Worst margin', width: 82, align: 'right' },
+    { header: 'Sphere', width: 76 },
   ];
-  table(doc, cols, units.map((u) => [
-    u.unit, fmtFrequency(u.frequencyHz), verdictText(u.verdict),
-    `${u.checks.filter((c) => c.status === 'pass').length} / ${u.checks.length}`, u.worstCheck?.name ?? '—', worstMarginText(u),
-  ]), { emphasis: (k) => units[k].verdict === 'fail' });
+  type Row = { unit: string; f: number | null; cells: string[]; bold: boolean };
+  const rows: Row[] = units.map((u) => ({
+    unit: u.unit, f: u.frequencyHz, bold: u.verdict === 'fail',
+    cells: [
+      u.unit, fmtFrequency(u.frequencyHz), verdictWord(u.verdict),
+      `${u.checks.filter((c) => c.status === 'pass').length} / ${u.checks.length}`, u.worstCheck?.name ?? '—', worstMarginText(u),
+      u.grid.fullSphere ? 'full' : `partial: ${fmt((100 * u.solidAngleSr) / (4 * Math.PI), 1)} % measured`,
+    ],
+  }));
+  for (const e of notAnalyzed) {
+    rows.push({ unit: e.unit, f: e.frequencyHz, bold: true, cells: [e.unit, fmtFrequency(e.frequencyHz), 'ERROR', '—', `not analyzed: ${errorLocation(e.error)}`, '—', '—'] });
+  }
+  rows.sort((a, c) => (a.unit < c.unit ? -1 : a.unit > c.unit ? 1 : (a.f ?? -1) - (c.f ?? -1)));
+  table(doc, cols, rows.map((r) => r.cells), { emphasis: (k) => rows[k].bold });
+  for (const e of notAnalyzed) note(doc, `${e.unit} could not be read or analyzed: ${errorLocation(e.error)}: ${errorMessage(e.error)}` + (e.errorCount > 1 ? ` (${e.errorCount} errors in its files; all in results.json).` : '.'));
+  note(doc, 'Verdict: PASS every check passed; FAIL a check failed; NOT JUDGED no limit set, or a check could not be evaluated; ERROR the unit could not be read or analyzed (it counts in the build, never as passed). Worst margin: dB, or percentage points (pt) of 4π for a coverage check.');
 
   heading(doc, 'Statistics per metric', 40);
   const scols: Column[] = [

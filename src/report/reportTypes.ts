@@ -1,4 +1,4 @@
-import type { BuildSummary, Measurement, TotalScanPattern, UnitResult } from '../types.js';
+import type { BuildSummary, Measurement, TotalScanPattern, UnitNotAnalyzed, UnitResult } from '../types.js';
 import type { CdfCurve } from './cdfCurve.js';
 import type { ColorMapName } from './colorMap.js';
 
@@ -62,6 +62,8 @@ export type KeyedData<T> = Map<string, T> | Record<string, T>;
 
 export interface BuildReportInput {
   units: UnitResult[];
+  /** Units that could not be read or analyzed: rows with verdict ERROR, counted in the build. */
+  unitsNotAnalyzed?: UnitNotAnalyzed[];
   /** Keyed by unitKey(unit, frequencyHz). */
   thumbnails: KeyedData<MapThumbnail>;
   /** TSP CDF of each unit, keyed by unitKey(unit, frequencyHz). */

@@ -121,7 +121,8 @@ describe('exit codes', () => {
     expect(res.errors.length).toBeGreaterThan(0);
     expect(res.errors[0]).toMatchObject({ file: 'U-02/U-02_beam1_28GHz.csv', line: 5 });
     expect(r.stderr).toContain('U-02/U-02_beam1_28GHz.csv:5');
-    expect(readFileSync(path.join(out, 'summary.csv'), 'utf8').trim().split('\r\n')).toHaveLength(3);
+    // header, U-01, U-02 (verdict error), U-03
+    expect(readFileSync(path.join(out, 'summary.csv'), 'utf8').trim().split('\r\n')).toHaveLength(4);
   });
 
   it('2 on usage errors, in plain words', () => {

@@ -59,4 +59,14 @@ describe('exitCode (CONTRACT.md "Exit")', () => {
     expect(exitCode({ units: [unit('pass')], errors: [{ file: 'a.csv', message: 'x' }] })).toBe(2);
     expect(exitCode({ units: [unit('fail')], errors: [{ file: 'a.csv', message: 'x' }] })).toBe(2);
   });
+
+  it('--fail-on adds conditions that give 1, never hiding an unreadable input (2)', () => {
+    const u = (verdict: 'pass' | 'none', fullSphere = true, warnings: string[] = []) => ({ verdict, grid: { fullSphere }, warnings }) as never;
+    expect(exitCode({ units: [u('none')], errors: [] }, ['not-judged'])).toBe(1);
+    expect(exitCode({ units: [u('pass', false)], errors: [] }, ['not-judged'])).toBe(0);
+    expect(exitCode({ units: [u('pass', false)], errors: [] }, ['partial-sphere'])).toBe(1);
+    expect(exitCode({ units: [u('pass', true, ['w'])], errors: [] }, ['warnings'])).toBe(1);
+    expect(exitCode({ units: [u('pass', true, ['w'])], errors: [] }, ['not-judged', 'partial-sphere'])).toBe(0);
+    expect(exitCode({ units: [u('none')], errors: [{ file: 'a.csv', message: 'x' }] }, ['not-judged'])).toBe(2);
+  });
 });

@@ -42,7 +42,12 @@ describe('README', () => {
   it('npm run demo analyzes the demo build and shows which unit fails', () => {
     const r = spawnSync(process.execPath, [path.join(ROOT, 'scripts', 'run-demo.mjs')], { cwd: ROOT, encoding: 'utf8' });
     expect(r.status, r.stderr).toBe(0);
-    expect(r.stdout).toMatch(/RV28-P1-004\s+28\.00\s+[\d.]+\s+FAIL/);
-    expect(r.stdout).toContain('summary.pdf');
+    expect(r.stdout).toMatch(/^RV28-P1-004\s+28\.000 GHz\s+FAIL\s/m);
+    // The closing line names every file written.
+    expect(r.stdout).toMatch(/^Wrote results\.json, summary\.csv, build-stats\.csv, summary\.pdf, RV28-P1-001_28GHz\.pdf, .* in reports\/demo\/$/m);
+    // The README shows the same table: header and every unit's verdict.
+    const rows = r.stdout.split('\n').filter((l) => /^(unit\s|RV28-)/.test(l));
+    expect(rows.length).toBeGreaterThan(6);
+    for (const row of rows) expect(README.split('\n').some((l) => l.trim().split(/\s{2,}/).slice(0, 3).join('|') === row.split(/\s{2,}/).slice(0, 3).join('|')), row).toBe(true);
   }, 120_000);
 });

@@ -89,7 +89,16 @@ describe('buildStatistics (hand-computed)', () => {
   it('distinct units: a unit failing at any frequency fails', () => {
     expect({ units: s.units, passed: s.passed, failed: s.failed, notJudged: s.notJudged })
       .toEqual({ units: 3, passed: 0, failed: 2, notJudged: 1 });
-    expect(buildStatistics([])).toEqual({ units: 0, passed: 0, failed: 0, notJudged: 0, stats: [] });
+    expect(buildStatistics([])).toEqual({ units: 0, unitsInBuild: 0, passed: 0, failed: 0, notJudged: 0, errored: 0, stats: [] });
+  });
+  it('a unit that could not be read counts in the build as errored and lowers the yield in the build, not the yield of the judged', () => {
+    const u = (name: string) => unit(name, 28e9, 23, 12, 15, 'pass'); // all three checks pass
+    const err = { unit: 'E', frequencyHz: null, verdict: 'error' as const, error: { file: 'E/x.csv', line: 3, message: 'm' }, errorCount: 1, files: ['E/x.csv'] };
+    const s = buildStatistics([u('A'), u('B')], [err]);
+    expect({ units: s.units, unitsInBuild: s.unitsInBuild, passed: s.passed, errored: s.errored }).toEqual({ units: 2, unitsInBuild: 3, passed: 2, errored: 1 });
+    const row = s.stats.find((r) => r.metric === 'check:minimum peak EIRP')!;
+    // hand count: 2 passed of 2 judged; 2 passed of 3 in the build
+    expect([row.yield, row.passedCount, row.judged, row.inBuild, row.yieldInBuild]).toEqual([1, 2, 2, 3, 2 / 3]);
   });
   it('processCapability: zero σ is unbounded and reported as null', () => {
     expect(processCapability(12, 0, 11.5, 'lower')).toBeNull();
