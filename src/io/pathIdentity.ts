@@ -4,12 +4,15 @@ export interface PathIdentity {
   unit: string;
   beam: string;
   frequencyHz: number | null;
+  /** A `tx` / `rx` token in the file stem (transmit or receive export of the unit), else null. */
+  link: 'tx' | 'rx' | null;
   sources: { unit: IdentitySource; beam: IdentitySource; frequency: IdentitySource };
 }
 
 const SEP = '[_\\-\\s.]';
 const BEAM_RE = new RegExp(`(^|${SEP})(beam[_-]?(\\d+)|b(\\d+))(?=$|${SEP})`, 'i');
 const FREQ_RE = new RegExp(`(^|${SEP})(\\d+(?:[.p]\\d+)?)\\s?ghz(?=$|${SEP})`, 'i');
+const LINK_RE = new RegExp(`(^|${SEP})(tx|rx)(?=$|${SEP})`, 'i');
 
 /** First capture group (or the whole match) of a job-file identity pattern. */
 function capture(pattern: string | undefined, relPath: string): string | null {
@@ -21,7 +24,8 @@ function capture(pattern: string | undefined, relPath: string): string | null {
 
 /**
  * Identity of a file from its path (CONTRACT.md "Input folder"): unit = first subfolder below
- * the input root, else the file stem without beam and frequency tokens — and when nothing is
+ * the input root, else the file stem without beam, frequency and tx/rx tokens (so `X_tx.csv`
+ * analyzed on its own is unit X, as it is inside a folder X/) — and when nothing is
  * left of the stem (`beam_3_28GHz.csv` directly in the folder analyzed), the name of that
  * folder (`rootName`), so one unit's folder analyzed on its own is still one unit; beam = a beam<N>,
  * beam_<N>, beam-<N> or b<N> token, else the stem; frequency = a <number>GHz token, else none.
@@ -34,8 +38,9 @@ export function pathIdentity(relPath: string, job?: JobSpec, rootName?: string):
   const stem = base.replace(/\.[^.]*$/, '');
   const beamM = BEAM_RE.exec(stem);
   const freqM = FREQ_RE.exec(stem);
+  const linkM = LINK_RE.exec(stem);
   let rest = stem;
-  for (const m of [beamM, freqM]) if (m) rest = rest.replace(m[0].slice(m[1].length), ' ');
+  for (const m of [beamM, freqM, linkM]) if (m) rest = rest.replace(m[0].slice(m[1].length), ' ');
   rest = rest.replace(/^[_\-\s.]+|[_\-\s.]+$/g, '').replace(/([_\-.])[\s_\-.]+/g, '$1').replace(/\s+/g, '_');
 
   const sources: PathIdentity['sources'] = { unit: 'file-name', beam: 'file-name', frequency: 'none' };
@@ -52,5 +57,5 @@ export function pathIdentity(relPath: string, job?: JobSpec, rootName?: string):
   if (jb !== null) [beam, sources.beam] = [jb, 'job'];
   const jf = capture(job?.identity?.frequencyGhz, relPath);
   if (jf !== null && Number.isFinite(Number(jf))) [frequencyHz, sources.frequency] = [Number(jf) * 1e9, 'job'];
-  return { unit, beam, frequencyHz, sources };
+  return { unit, beam, frequencyHz, link: linkM ? (linkM[2].toLowerCase() as 'tx' | 'rx') : null, sources };
 }

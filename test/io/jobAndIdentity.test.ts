@@ -20,6 +20,10 @@ describe('identity from the path (CONTRACT.md "Input folder")', () => {
     ['lot3_b7.csv', 'lot3', '7', null, 'file-name'],
     ['unitA.csv', 'unitA', 'unitA', null, 'file-name'],
     ['U9/sweep/beam3.csv', 'U9', '3', null, 'folder'],
+    ['X_tx.csv', 'X', 'X_tx', null, 'file-name'],
+    ['X/X_tx.csv', 'X', 'X_tx', null, 'folder'],
+    ['PX-3_beam_2_RX_28GHz.csv', 'PX-3', '2', 28e9, 'file-name'],
+    ['tx_power_PX-3.csv', 'power_PX-3', 'tx_power_PX-3', null, 'file-name'],
   ])('%s', (rel, unit, beam, f, src) => {
     const id = pathIdentity(rel);
     expect([id.unit, id.beam, id.frequencyHz, id.sources.unit]).toEqual([unit, beam, f, src]);
@@ -29,6 +33,11 @@ describe('identity from the path (CONTRACT.md "Input folder")', () => {
     const id = pathIdentity('beam_3_28GHz.csv', undefined, 'PX-07');
     expect([id.unit, id.beam, id.frequencyHz, id.sources.unit]).toEqual(['PX-07', '3', 28e9, 'folder']);
     expect(pathIdentity('PX-02_beam_3.csv', undefined, 'lab').unit).toBe('PX-02'); // a stem that names the unit wins
+  });
+  it('a unit analyzed from a single file gets the name it has in its folder (tx/rx tokens are not part of it)', () => {
+    // `analyze build/` sees build/X/X_tx.csv (unit from the folder); `analyze build/X/X_tx.csv` sees X_tx.csv alone
+    expect(pathIdentity('X/X_tx.csv', undefined, 'build').unit).toBe(pathIdentity('X_tx.csv', undefined, 'X').unit);
+    expect([pathIdentity('X_tx.csv').link, pathIdentity('X_Rx_beam1.csv').link, pathIdentity('Xtx.csv').link]).toEqual(['tx', 'rx', null]);
   });
   it('job-file patterns override the path rules', () => {
     const id = pathIdentity('run7/SN-0042__cw17__f27p9.csv', {
