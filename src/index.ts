@@ -70,6 +70,12 @@ export {
 } from './report/index.js';
 export type { BuildReportInput, MapThumbnail, ReportSettings, ReportSections, UnitReportInput, CdfCurve } from './report/index.js';
 
+// library: data in memory → the UnitResult the CLI writes → the unit PDF
+export { analyzeBeams, BeamsInputError } from './library/analyzeBeams.js';
+export type { BeamsInput, SampleDirections, UnitAnalysis } from './library/analyzeBeams.js';
+export { unitReportPdf } from './library/unitReportPdf.js';
+export type { UnitReportOptions } from './library/unitReportPdf.js';
+
 // batch: the whole analyze run (discover → analyze units in parallel → write outputs)
 export { runAnalyze } from './batch/runAnalyze.js';
 export type { AnalyzeOptions, BatchIo } from './batch/options.js';

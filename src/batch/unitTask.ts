@@ -100,8 +100,11 @@ function analysisLevel(ls: LimitSet | null): number {
   return pct && pct.kind === 'percentile' ? pct.levelPct : 50;
 }
 
+/** What measureUnit reads of a task: the metrics asked for, the limit set, and whether to skip the optional analysis. */
+export type MeasureOptions = Pick<TaskInput, 'percentilesPct' | 'thresholds' | 'relativeDb' | 'limitSet' | 'coreOnly'>;
+
 /** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis. */
-export function measureUnit(m: Measurement, input: TaskInput): { result: UnitResult; tsp: TotalScanPattern } {
+export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {
   const { tsp, metrics } = computeMetrics(m, {
     percentilesPct: input.percentilesPct,
     thresholds: input.thresholds,
