@@ -249,10 +249,10 @@ export interface GridSummary {
   fullSphere: boolean;
   /** Σ weights, sr (4π for a full sphere). */
   solidAngleSr: number;
-  /** The unmeasured regions (empty for a full sphere). */
-  unmeasured: UnmeasuredRegion[];
-  /** Lattice points without a sample that neighbours absorbed (regular grids). */
-  missing: MissingSample[];
+  /** The unmeasured regions (empty for a full sphere; always set by gridSummary). */
+  unmeasured?: UnmeasuredRegion[];
+  /** Lattice points without a sample that neighbours absorbed (always set by gridSummary). */
+  missing?: MissingSample[];
   /** Raw samples per beam merged into another sample's point (φ seam, poles, repeated rows). */
   duplicatesMerged: number;
   beamsResampled: number;

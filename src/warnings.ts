@@ -26,11 +26,11 @@ export const WARNINGS: Record<WarningCode, WarningInfo> = {
   },
   'partial-sphere': {
     title: 'Partial sphere measured',
-    remedy: 'Unmeasured directions count as not covered; TRP is not reported.',
+    remedy: 'Unmeasured directions count as not covered and TRP is not reported; a verdict on a partial sphere is shown as partial. Measure the region or judge only what the scan covers.',
   },
   'missing-points': {
     title: 'Grid points missing',
-    remedy: 'Re-export the full grid; missing points count as not covered.',
+    remedy: 'Re-export the full grid; until then the neighbouring samples stand in for the missing directions (their cells absorbed the solid angle).',
   },
   'column-ignored': {
     title: 'Column ignored',

@@ -22,6 +22,14 @@ function peakBeam(u: UnitResult): UnitResult['beams'][number] | null {
 }
 
 /**
+ * The verdict as the summary shows it: a verdict reached on a partial sphere says so
+ * ("pass (partial sphere)"), so a unit judged without part of the sphere is never a bare pass.
+ */
+function verdictCell(u: UnitResult): string {
+  return u.verdict !== 'none' && !u.grid.fullSphere ? `${u.verdict} (partial sphere)` : u.verdict;
+}
+
+/**
  * Rows of summary.csv, one per analyzed unit and frequency and one per unit that could not be
  * read or analyzed (verdict `error`, with its first error's location and message; its metric
  * cells are empty). Rows are sorted by unit, then frequency. The percentile and coverage columns are the union over all units in
@@ -44,7 +52,7 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
     ...thresholds.map((t) => `coverage_at_${num(t)}`),
     ...rel.map((d) => `coverage_within_${num(d)}db_of_peak`),
     'peak_beam', 'peak_beam_trp_dbm', 'verdict', 'checks_failed', 'checks_not_evaluable', 'worst_check', 'worst_margin', 'worst_margin_unit', 'worst_margin_db',
-    'full_sphere', 'warnings', 'error_location', 'error_message',
+    'full_sphere', 'unmeasured_sr', 'missing_points', 'warnings', 'error_location', 'error_message',
   ];
   type Keyed = { unit: string; f: number | null; row: CsvCell[] };
   const keyed: Keyed[] = units.map((u) => {
@@ -55,11 +63,11 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
       ...levels.map((l) => u.tsp.percentiles.find((p) => p.levelPct === l)?.value ?? null),
       ...thresholds.map((t) => u.tsp.coverage.find((c) => c.threshold === t)?.efficiency ?? null),
       ...rel.map((d) => u.tsp.relativeCoverage.find((c) => c.dbBelowPeak === d)?.efficiency ?? null),
-      pb?.id ?? null, pb?.trpDbm ?? null, u.verdict,
+      pb?.id ?? null, pb?.trpDbm ?? null, verdictCell(u),
       u.checks.filter((c) => c.status === 'fail').length, u.checks.filter((c) => c.status === 'not-evaluable').length,
       u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null, u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,
       u.worstCheck ? (u.worstCheck.marginUnit === 'fraction' ? u.worstCheck.marginDb ?? null : u.worstCheck.margin) : null,
-      u.grid.fullSphere ? 'yes' : 'no', u.warnings?.length ?? 0, null, null,
+      u.grid.fullSphere ? 'yes' : 'no', u.grid.fullSphere ? 0 : 4 * Math.PI - u.solidAngleSr, u.grid.missing?.length ?? 0, u.warnings?.length ?? 0, null, null,
     ];
     return { unit: u.unit, f: u.frequencyHz, row };
   });

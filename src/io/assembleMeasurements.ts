@@ -1,6 +1,7 @@
 import { compareBeamIds } from './compareBeamIds.js';
 import { createMeasurement } from '../measurement.js';
 import { buildSphereGrid, type GridBuild } from '../sphere/buildGrid.js';
+import { gridWarnings } from '../sphere/gridWarnings.js';
 import { mergeSamples } from '../sphere/mergeSamples.js';
 import { resampleBeam } from '../sphere/resample.js';
 import type { BeamPattern, InputError, Measurement, SourceFile, Warning } from '../types.js';
@@ -220,6 +221,7 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     errors.push(inputError(b.file, b.firstLine ?? 1, 1, 'grid', (e as Error).message.replace(/^buildSphereGrid: /, ''), 'at least 4 distinct directions on the sphere', true));
     return null;
   }
+  warnings.push(...gridWarnings(build.grid, ref.quantity, { file: main.beams[0].file }));
   const patterns = new Map<RawBeam, BeamPattern>();
   const pairs = literalDuplicatePairs(build, main);
   for (const b of main.beams) {

@@ -1,6 +1,7 @@
 import { existsSync } from 'node:fs';
 import type { CheckResult, UnitResult } from '../types.js';
 import { WARNINGS } from '../warnings.js';
+import { regionText } from '../sphere/gridWarnings.js';
 import { cdfCurve, type CdfCurve } from './cdfCurve.js';
 import { colorAt, divergingAt } from './colorMap.js';
 import { directionToPage, drawBoundaries, drawColorBar, drawMapFrame, mapLabel, unmeasuredSwatch, type MapBox } from './drawMap.js';
@@ -98,6 +99,10 @@ function verdictBlock(doc: Doc, r: UnitResult): void {
   const line2 = r.worstCheck && worst ? `Smallest margin: ${r.worstCheck.name}, ${checkValue(worst, r.worstCheck.margin, 'dB')}.` : '';
   doc.font('R').fontSize(8.6).text(line1, MARGIN.left + 190, y + 9, { width: w - 200 });
   doc.text(line2, MARGIN.left + 190, y + 21, { width: w - 200 });
+  if (!r.grid.fullSphere && r.verdict !== 'none') {
+    // A verdict reached without part of the sphere is never a bare pass (issue 12).
+    doc.font('B').fontSize(7.6).text(`Judged on a partial sphere: ${pct(1 - r.solidAngleSr / (4 * Math.PI), 2)} of 4π unmeasured (see Data quality).`, MARGIN.left + 190, y + 31, { width: w - 200, lineBreak: false });
+  }
   doc.y = y + 48;
 }
 
@@ -423,6 +428,8 @@ function qualitySection(doc: Doc, input: UnitReportInput): void {
     ['θ range / step', `${fmt(g.thetaRangeDeg[0], 1)}° … ${fmt(g.thetaRangeDeg[1], 1)}° / ${g.thetaStepDeg === null ? 'non-uniform' : `${fmt(g.thetaStepDeg, 2)}°`}`],
     ['φ range / step', `${fmt(g.phiRangeDeg[0], 1)}° … ${fmt(g.phiRangeDeg[1], 1)}° / ${g.phiStepDeg === null ? 'non-uniform' : `${fmt(g.phiStepDeg, 2)}°`}`],
     ['Measured Ω', `${fmt(r.solidAngleSr, 4)} sr of 4π = 12.5664 sr (${pct(r.solidAngleSr / (4 * Math.PI), 2)}); ${g.fullSphere ? 'full sphere' : 'partial sphere: the rest counts as not covered'}`],
+    ...(g.unmeasured?.length ? g.unmeasured.map((u, k): [string, string] => [`Unmeasured ${k + 1}`, regionText(u)]) : []),
+    ...(g.missing?.length ? [['Missing samples', `${g.missing.length}, absorbed by neighbouring cells (${g.missing.slice(0, 6).map((p) => `θ ${p.thetaDeg}° φ ${p.phiDeg}°`).join(', ')}${g.missing.length > 6 ? ', …' : ''})`] as [string, string]] : []),
     ['Samples merged', `${g.duplicatesMerged} per beam (φ seam, poles, repeated rows: coincident directions counted once)`],
     ['Beams resampled', `${g.beamsResampled}`],
     ['Warnings', r.warnings.length === 0 && input.measurement.warnings.length === 0 ? 'none' : `${Math.max(r.warnings.length, input.measurement.warnings.length)}`],
