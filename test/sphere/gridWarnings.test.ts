@@ -53,7 +53,7 @@ describe('every partial or patched grid says so (issue 12)', () => {
     const [header, row] = summaryCsv([u]).trim().split(/\r?\n/);
     const cells = Object.fromEntries(header.split(',').map((h, k) => [h, row.split(',')[k]]));
     expect(cells.verdict).toBe('pass (partial sphere)');
-    expect(cells.sphere).toBe('partial');
+    expect(cells.full_sphere).toBe('no');
     expect(Number(cells.unmeasured_sr)).toBeCloseTo(2 * Math.PI * (1 + Math.cos((92.5 * Math.PI) / 180)), 9);
   });
 });
