@@ -108,7 +108,9 @@ export type WarningCode =
   | 'angle-convention'
   | 'scattered-grid'
   | 'frequency-unit-assumed'
-  | 'dropout-samples';
+  | 'dropout-samples'
+  | 'grid-below-pc3-minimum'
+  | 'grid-pc1-systematic-error';
 
 export interface Warning {
   code: WarningCode;
@@ -232,6 +234,64 @@ export interface CheckResult {
   threshold?: number;
   /** min-beam-peak checks: the beam that set the value (the worst one judged). */
   beam?: string;
+  /** How sure the verdict is: present when a measurement uncertainty is given (src/analysis/uncertainty). */
+  decision?: CheckDecision;
+}
+
+/** ILAC-G8:09/2019 §4.2.3 statements; the binary rules give 'pass' or 'fail'. */
+export type ConformityStatement = 'pass' | 'conditional pass' | 'conditional fail' | 'fail';
+
+/** The decision rule applied to one check, and the probability that the unit truly meets it. */
+export interface CheckDecision {
+  rule: 'shared-risk' | 'guarded' | 'non-binary';
+  /** What the measured value was compared with (the check's unit; min-coverage: the efficiency). */
+  acceptanceLimit: number;
+  /** guarded: the guard band w, dB; null for the other rules. */
+  guardBandDb: number | null;
+  /** null when the check is not evaluable. */
+  statement: ConformityStatement | null;
+  /** P(true value meets the limit as written | measurement), Monte-Carlo; null when not evaluable. */
+  probabilityOfConformance: number | null;
+  /** Binomial standard error of that probability (its own sampling error). */
+  probabilityStdErr: number | null;
+  /** Standard deviation of the check value over the draws (its propagated standard uncertainty). */
+  valueStdDev: number | null;
+  /** Mean shift of the re-read value over the draws (max-over-noisy-beams bias; same unit). */
+  bias: number | null;
+}
+
+/** Measurement-uncertainty summary of one unit (present when an uncertainty is given). */
+export interface UnitConfidence {
+  decisionRule: 'shared-risk' | 'guarded' | 'non-binary';
+  /** U (95 %), u_c, u_r and the guard band w, dB. */
+  expandedDb: number;
+  commonDb: number;
+  perDirectionDb: number;
+  guardBandDb: number;
+  draws: number;
+  seed: number;
+  /** P(every check truly met), Monte-Carlo (joint over the checks); null without checks or with one not evaluable. */
+  probabilityOfConformance: number | null;
+  probabilityStdErr: number | null;
+  /** Worst statement over the checks (non-binary rule), or pass/fail; null without checks. */
+  statement: ConformityStatement | null;
+  /** Per reported percentile: bias (mean shift of the re-read value) and spread; 95 % band of the bias-corrected value. */
+  percentiles: { levelPct: number; value: number | null; biasDb: number | null; stdDevDb: number | null; low95: number | null; high95: number | null }[];
+  coverage: { threshold: number; efficiency: number; bias: number | null; stdDev: number | null }[];
+  /** Candidate (direction, beam) pairs drawn per trial (the cost driver). */
+  pairsPerDraw: number;
+}
+
+/** Grid sufficiency of one unit, from re-reading it on sub-grids of itself (src/analysis/gridAdequacy). */
+export interface GridAdequacy {
+  /** 'four 2Δ sub-grids' (regular) or 'four thinned quarter sets' (scattered); null when the grid is too small. */
+  method: string;
+  /** Calibration factor applied to the sub-grid spread (see README, "How sure is the verdict"). */
+  calibrationFactor: number;
+  percentiles: { levelPct: number; adequacyDb: number | null; subGridSpreadDb: number | null; at1p5StepDb: number | null; at2StepDb: number | null }[];
+  coverage: { threshold: number; adequacy: number | null; subGridSpread: number | null }[];
+  /** Share of the points (test time) a grid 1.5× and 2× coarser would save. */
+  coarser: { stepFactor: number; pointsSavedShare: number }[];
 }
 
 /** pass: every check evaluated and passed; fail: any failed; none: no limits, or some not evaluable. */
@@ -303,6 +363,10 @@ export interface UnitResult {
   subset?: BeamSubset | null;
   reference?: { unit: string; deltas: Record<string, number | null> } | null;
   frequencyTrend?: ({ frequencyHz: number } & Record<string, number | null>)[] | null;
+  /** Measurement uncertainty and decision rule (issue 17); absent when no uncertainty is given. */
+  confidence?: UnitConfidence | null;
+  /** Grid sufficiency estimate (issue 17). */
+  gridAdequacy?: GridAdequacy | null;
   /** Per beam, how far its peak direction moves across the measured frequencies (issue 9). */
   pointingDrift?: { beam: string; driftDeg: number; flagged: boolean; betweenHz: [number, number] | null }[] | null;
 }
@@ -341,6 +405,22 @@ export interface BuildSummary {
   /** Distinct units with at least one part that could not be read or analyzed (verdict "error"). */
   errored: number;
   stats: BuildMetricStats[];
+  /** Yield with confidence (issue 17); present when the units carry a measurement uncertainty. */
+  confidence?: BuildConfidence | null;
+}
+
+/** Build-level confidence: expected conforming units beside the count of passes, Cpk against the decision rule's limit. */
+export interface BuildConfidence {
+  decisionRule: 'shared-risk' | 'guarded' | 'non-binary';
+  /** Unit results (unit × frequency) with a probability of conformance. */
+  judged: number;
+  passes: number;
+  /** Σ P(conformance) over those unit results. */
+  expectedConforming: number;
+  /** Its Monte-Carlo standard error: √Σ se². */
+  expectedConformingStdErr: number;
+  checks: { frequencyHz: number | null; name: string; count: number; passes: number; expectedConforming: number;
+    acceptanceLimit: number | null; bound: 'lower' | 'upper' | null; mean: number | null; std: number | null; cpk: number | null }[];
 }
 
 /**

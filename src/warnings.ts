@@ -84,6 +84,14 @@ export const WARNINGS: Record<WarningCode, WarningInfo> = {
     title: 'Frequency unit assumed',
     remedy: 'Name the unit in the header (freq_ghz, "Frequency [MHz]") or set frequency_unit in the job file.',
   },
+  'grid-below-pc3-minimum': {
+    title: 'Fewer grid points than the PC3 beam-peak-search minimum',
+    remedy: 'Measure at least 1,106 constant-step (7.5°) or 800 constant-density points (3GPP TS 38.521-2 Annex M.2.1.3; verify against the current release), or read the grid-adequacy estimate before trusting a marginal verdict.',
+  },
+  'grid-pc1-systematic-error': {
+    title: 'Grid coarser than the PC1 systematic-error table allows for 0.3 dB',
+    remedy: 'For a 0.3 dB beam-peak systematic error measure 10,226 constant-step (2.5°) or 7,000 constant-density points (3GPP TS 38.521-2 Annex M.2.1.1; verify against the current release).',
+  },
 };
 
 /** Build a typed warning. */

@@ -160,6 +160,8 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
   const thresholds = unionSorted(opts.thresholds ?? job?.coverageThresholds, needs.thresholds);
   const relativeDb = unionSorted(opts.relativeDb);
+  // Measurement uncertainty and decision rule: the job file's block wins over the limit set's.
+  const uncertainty = job?.uncertainty ?? limitSet?.uncertainty ?? null;
   // --reference names a unit of this build, or a folder of a golden unit's exports measured
   // elsewhere (resolved once the build's groups are known, below).
   const referenceArg = opts.reference ?? job?.reference;
@@ -195,6 +197,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     key, files, inputRoot: discovery.root, job, quantityOverride: opts.quantity, percentilesPct, thresholds, relativeDb,
     limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null,
     ...(opts.coreOnly ? { coreOnly: true } : {}),
+    uncertainty,
   });
   let referenceAfterReading = false;
   if (referenceArg !== undefined) {
@@ -307,6 +310,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         quantityOverride: opts.quantity ?? null,
         jobFile: job ? path.basename(job.source) : null,
         reference: reference ?? null,
+        ...(uncertainty ? { uncertainty } : {}),
         referenceFolder: referenceDir === null ? null : toPosix(referenceArg as string),
         pdf,
         pageSize,

@@ -21,6 +21,10 @@ import type { CdfCurve } from '../report/cdfCurve.js';
 import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';
 import { gridSummary } from '../sphere/gridSummary.js';
 import { collapseWarnings } from './collapseWarnings.js';
+import { resolveUncertainty, type UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js';
+import { assessConfidence } from '../analysis/uncertainty/assessConfidence.js';
+import { gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
+import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -50,6 +54,8 @@ export interface TaskInput {
   exportAll?: boolean;
   /** The reference comes from its own folder: a build unit of the same name is compared too. */
   referenceExternal?: boolean;
+  /** Measurement uncertainty and decision rule (job file, else limit set); null: today's shared-risk verdicts only. */
+  uncertainty?: UncertaintySpec | null;
 }
 
 /** A reference unit's total scan pattern on its grid, with its result (plain data, cloneable). */
@@ -112,10 +118,19 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
   });
   const grid = gridSummary(m);
   const ls = input.limitSet;
-  const judged = ls
+  let judged = ls
     ? judge(metrics, ls, { quantity: m.quantity, fullSphere: grid.fullSphere })
     : { checks: [], verdict: 'none' as const, worstCheck: null };
   const warnings = m.warnings.map(warningText);
+  // How sure the verdict is (issue 17): only with an uncertainty for this quantity; else nothing changes.
+  const resolved = resolveUncertainty(input.uncertainty, m.quantity);
+  let confidence: UnitResult['confidence'];
+  if (resolved) {
+    const assessed = assessConfidence({ grid: m.grid, beams: m.beams, quantity: m.quantity, tsp, metrics, limitSet: ls, judged, uncertainty: resolved });
+    judged = assessed.judged;
+    confidence = assessed.confidence;
+    warnings.push(...gridCountWarnings(grid.points, grid.kind, m.quantity, input.uncertainty?.powerClass).map(warningText));
+  }
   if (ls && frequencyInRange(ls, m.frequencyHz) === false) {
     warnings.push(`limit set '${ls.name}' is for ${ls.frequencyRangeMHz?.join('–')} MHz but this measurement is at ${(m.frequencyHz as number) / 1e6} MHz`);
   }
@@ -153,6 +168,8 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     limitSet: ls ? { name: ls.name, source: ls.source } : null,
     holes: hT === null || !extras ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
     subset: extras ? greedySubset(m.grid, beamValues, beamIds, m.quantity, level) : null,
+    gridAdequacy: extras ? gridAdequacy(m.grid, tsp.values, m.quantity, input.percentilesPct, input.thresholds) : null,
+    ...(confidence ? { confidence } : {}),
   };
   return { result, tsp };
 }

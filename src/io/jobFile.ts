@@ -6,6 +6,7 @@ import { clipText } from './inputError.js';
 import { parseNumberText } from './numberText.js';
 import type { CalibrationPoint, ColumnRole, JobSpec } from './types.js';
 import { QUANTITIES } from '../quantity.js';
+import { validateUncertainty } from '../analysis/uncertainty/uncertaintySpec.js';
 
 /** Job-file names looked for in an input folder, in this order. */
 export const JOB_FILE_NAMES = ['spherecov.yaml', 'spherecov.yml', 'spherecov.json'];
@@ -24,7 +25,7 @@ const ROLE_KEYS: Record<string, ColumnRole> = {
   value_phi: 'valuePhi', power: 'power', pol: 'pol', unit: 'unit', beam: 'beam', frequency: 'frequency',
 };
 const TOP_KEYS = ['columns', 'identity', 'quantity', 'value_unit', 'angles', 'frequency_unit', 'header_line', 'dropout_tokens', 'calibration', 'limits', 'checks',
-  'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference'];
+  'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference', 'uncertainty'];
 const FREQ_KEYS: Record<string, number> = { frequency_hz: 1, frequency_mhz: 1e6, frequency_ghz: 1e9 };
 
 type Path = (string | number)[];
@@ -242,6 +243,10 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
     if (r) job.report = r;
   }
   if (top.reference !== undefined) job.reference = c.string(top.reference, ['reference']);
+  if (top.uncertainty !== undefined) {
+    const spec = validateUncertainty(top.uncertainty, ['uncertainty'], (p, found, expected) => c.fail(p, found, expected));
+    if (spec) job.uncertainty = spec;
+  }
   for (const k of Object.keys(job) as (keyof JobSpec)[]) if (job[k] === undefined) delete job[k];
   return c.errors.length ? { job: null, errors: c.errors } : { job, errors: [] };
 }

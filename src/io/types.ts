@@ -1,3 +1,4 @@
+import type { UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js';
 /**
  * Types of the readers (src/io): what one file read gives, the job file, and the inspect report.
  */
@@ -58,6 +59,8 @@ export interface JobSpec {
   coverageThresholds?: number[];
   report?: Record<string, unknown>;
   reference?: string;
+  /** Measurement uncertainty and decision rule (src/analysis/uncertainty/uncertaintySpec.ts). */
+  uncertainty?: UncertaintySpec;
 }
 
 export interface ReadContext {

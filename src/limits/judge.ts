@@ -26,6 +26,16 @@ export interface JudgeResult {
 export function judge(metrics: CoverageMetrics, ls: LimitSet,
   ctx: { quantity: Quantity; fullSphere: boolean }): JudgeResult {
   const checks = ls.checks.map((c) => evaluateCheck(c, metrics, ctx.quantity, ctx.fullSphere, ls.quantity));
+  return summarizeChecks(checks);
+}
+
+/**
+ * The verdict and worst check of judged checks (the rules documented on `judge`); also used when
+ * a decision rule re-judges the checks (src/analysis/uncertainty).
+ * Cost O(checks).
+ * @example summarizeChecks([]).verdict // 'none'
+ */
+export function summarizeChecks(checks: CheckResult[]): JudgeResult {
   const anyFail = checks.some((c) => c.status === 'fail');
   const allPass = checks.length > 0 && checks.every((c) => c.status === 'pass');
   const verdict: Verdict = anyFail ? 'fail' : allPass ? 'pass' : 'none';

@@ -1,4 +1,5 @@
 import type { CheckKind, Quantity } from '../types.js';
+import type { UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js';
 
 /**
  * The data model of a limit set (the file format is described in formatLimitSet.ts and the
@@ -63,6 +64,8 @@ export interface LimitSet {
   /** Frequency range the set applies to, MHz [low, high] (informative; see frequencyInRange). */
   frequencyRangeMHz?: [number, number];
   checks: LimitCheck[];
+  /** Measurement uncertainty and decision rule for this set (a job file's `uncertainty` wins). */
+  uncertainty?: UncertaintySpec;
   /** File the set was read from (absolute path), when loaded from disk. */
   file?: string;
 }

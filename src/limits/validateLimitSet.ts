@@ -2,6 +2,7 @@ import type { CheckKind, InputError, Quantity } from '../types.js';
 import { CHECK_KINDS, type CheckDraft, type LimitCheck, type LimitSet } from './limitSet.js';
 import { defaultCheckName, kindAllowed } from './checkSense.js';
 import { QUANTITIES } from '../quantity.js';
+import { validateUncertainty } from '../analysis/uncertainty/uncertaintySpec.js';
 
 /** Key path inside a parsed file, e.g. ['checks', 2, 'limit']. */
 export type KeyPath = (string | number)[];
@@ -11,7 +12,7 @@ export type Locate = (path: KeyPath, atKey?: boolean) => { line: number; column:
 /** Stands for "the key itself is wrong" in error messages (points at the key, not its value). */
 export const UNKNOWN_KEY = Symbol('unknown key');
 
-const TOP_KEYS = ['name', 'description', 'source', 'quantity', 'band', 'frequencyRangeMHz', 'checks'];
+const TOP_KEYS = ['name', 'description', 'source', 'quantity', 'band', 'frequencyRangeMHz', 'checks', 'uncertainty'];
 const COMMON_KEYS = ['kind', 'name', 'toleranceDb', 'source'];
 const KIND_KEYS: Record<CheckKind, string[]> = {
   'min-peak': ['limit'], 'max-peak': ['limit'], 'max-trp': ['limit'],
@@ -71,8 +72,10 @@ export function validateLimitSet(raw: unknown, file: string, locate: Locate = ()
     const q = QUANTITIES.includes(quantity) ? quantity : 'eirp';
     checks.push(...validateChecks(top.checks, ['checks'], q, fail));
   }
+  const uncertainty = top.uncertainty === undefined ? undefined : validateUncertainty(top.uncertainty, ['uncertainty'], fail);
   if (errors.length > 0 || name === undefined) return { limitSet: null, errors };
   const ls: LimitSet = { name, description, source, quantity, checks };
+  if (uncertainty) ls.uncertainty = uncertainty;
   if (band !== undefined) ls.band = band;
   if (frequencyRangeMHz) ls.frequencyRangeMHz = frequencyRangeMHz;
   return { limitSet: ls, errors };

@@ -1,0 +1,67 @@
+import type { SphereGrid } from '../../types.js';
+import { buildSphereGrid } from '../../sphere/buildGrid.js';
+
+/** One sub-grid of a grid: its own grid (weights rebuilt) and, per sub-grid point, the parent point. */
+export interface SubGrid {
+  grid: SphereGrid;
+  parentIndex: Int32Array;
+}
+
+/**
+ * The four coarser grids a grid contains, for re-reading a unit on them.
+ * - Regular grid: the four 2Δ grids of even/odd θ rows × even/odd φ columns (a pole row, one
+ *   merged point, belongs to the row parity only). Each is a constant-step grid at twice the
+ *   step; its cell weights are rebuilt (regularWeights: the outer rows extend half a step, so
+ *   the odd-row grid of a full sphere still covers 4π).
+ * - Scattered set (stated thinning): points in canonical order (θ, then φ), point i to set
+ *   i mod 4; each quarter set is a scattered grid with its own spherical Voronoi weights, at
+ *   about twice the mean spacing.
+ * A sub-grid whose cells cover within 1 % of the parent's solid angle is rescaled to it (the
+ * Voronoi clipping of a thinned set can read a thin rim near a pole as unmeasured): a sub-grid
+ * of a full sphere is read as a full sphere.
+ * Sub-grids that cannot be built (fewer than 4 points, or all on one row) are left out.
+ * Cost: four grid builds, O(n log n) (Voronoi for scattered grids).
+ * @example subGrids(grid5deg).length // 4, each a 10° grid
+ */
+export function subGrids(grid: SphereGrid): SubGrid[] {
+  const n = grid.thetaDeg.length;
+  const rowPar = new Int8Array(n);
+  const colPar = new Int8Array(n); // −1: a pole point, in both column parities of its row parity
+  const reg = grid.regular;
+  if (reg) {
+    for (let r = 0; r < reg.thetaRowsDeg.length; r++) {
+      const pole = reg.rowLength[r] === 1 && (reg.thetaRowsDeg[r] === 0 || reg.thetaRowsDeg[r] === 180);
+      for (let c = 0; c < reg.rowLength[r]; c++) {
+        const i = reg.rowStart[r] + c;
+        rowPar[i] = r % 2;
+        colPar[i] = pole ? -1 : c % 2;
+      }
+    }
+  }
+  const out: SubGrid[] = [];
+  for (let k = 0; k < 4; k++) {
+    const members: number[] = [];
+    const a = k >> 1, b = k & 1;
+    for (let i = 0; i < n; i++) {
+      if (reg ? rowPar[i] === a && (colPar[i] === -1 || colPar[i] === b) : i % 4 === k) members.push(i);
+    }
+    if (members.length < 4) continue;
+    try {
+      const theta = Float64Array.from(members, (i) => grid.thetaDeg[i]);
+      const phi = Float64Array.from(members, (i) => grid.phiDeg[i]);
+      const built = buildSphereGrid(theta, phi);
+      const parentIndex = new Int32Array(built.grid.thetaDeg.length);
+      for (let j = 0; j < members.length; j++) parentIndex[built.pointOf[j]] = members[j];
+      out.push({ grid: sameSolidAngle(built.grid, grid.solidAngleSr), parentIndex });
+    } catch {
+      // a degenerate sub-grid (too few distinct rows) is simply not used
+    }
+  }
+  return out;
+}
+
+function sameSolidAngle(g: SphereGrid, parentSr: number): SphereGrid {
+  const r = parentSr / g.solidAngleSr;
+  if (r === 1 || Math.abs(r - 1) > 0.01) return g;
+  return { ...g, weightSr: g.weightSr.map((w) => w * r), solidAngleSr: parentSr };
+}

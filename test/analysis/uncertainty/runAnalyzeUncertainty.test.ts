@@ -1,0 +1,69 @@
+/**
+ * The uncertainty block end to end through runAnalyze (in-process): job file → results.json.
+ */
+import { describe, expect, it } from 'vitest';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { runAnalyze } from '../../../src/batch/runAnalyze.js';
+import { loadJobFile } from '../../../src/io/jobFile.js';
+import { handsetModule, regularGrid, simulateBeams } from '../../../src/sim/index.js';
+
+/** One invented handset unit on a constant-step grid, long layout. */
+function writeUnit(dir: string, unit: string, stepDeg: number, powerDbm = 13): void {
+  const { model, codebook } = handsetModule({ conductedPowerDbm: powerDbm });
+  const g = regularGrid({ thetaStepDeg: stepDeg, phiStepDeg: stepDeg, polesOnce: true });
+  const beams = simulateBeams(model, codebook, g, 28e9);
+  const lines = ['unit,beam,theta_deg,phi_deg,eirp_dbm'];
+  for (const b of beams) for (let i = 0; i < g.thetaDeg.length; i++) lines.push(`${unit},${b.id},${g.thetaDeg[i]},${g.phiDeg[i]},${b.eirpDbm[i].toFixed(3)}`);
+  writeFileSync(path.join(dir, `${unit}.csv`), lines.join('\n') + '\n');
+}
+
+const CHECKS = `checks:
+  - { kind: percentile, name: cov50, levelPct: 50, limit: 4, toleranceDb: 0.5 }
+  - { kind: min-peak, name: peak, limit: 15 }
+  - { kind: min-coverage, name: cov4, threshold: 4, minEfficiency: 0.5 }
+`;
+
+async function run(job: string, stepDeg = 5) {
+  const input = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-'));
+  writeUnit(input, 'PX-1', stepDeg);
+  writeFileSync(path.join(input, 'spherecov.yaml'), job);
+  const out = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-out-'));
+  return runAnalyze({ input, outDir: out, pdf: false, jobs: 1 });
+}
+
+describe('uncertainty through runAnalyze', () => {
+  it('without an uncertainty block nothing about the verdict changes; with shared-risk the checks only gain a decision', async () => {
+    const plain = (await run(CHECKS)).results.units[0];
+    const mu = (await run(`${CHECKS}uncertainty:\n  decisionRule: shared-risk\n  draws: 200\n  eirp: { expandedDb: 2, perDirectionDb: 0.3 }\n`)).results;
+    const u = mu.units[0];
+    expect(plain.confidence).toBeUndefined();
+    expect(plain.checks.every((c) => c.decision === undefined)).toBe(true);
+    expect(u.verdict).toBe(plain.verdict);
+    expect(u.checks.map((c) => ({ ...c, decision: undefined }))).toEqual(plain.checks.map((c) => ({ ...c, decision: undefined })));
+    expect(u.confidence!.draws).toBe(200);
+    expect(u.checks.every((c) => c.decision!.probabilityOfConformance! >= 0 && c.decision!.probabilityOfConformance! <= 1)).toBe(true);
+    expect(mu.settings.uncertainty).toMatchObject({ decisionRule: 'shared-risk' });
+    // grid adequacy is reported for every unit, uncertainty or not
+    expect(plain.gridAdequacy!.percentiles.find((p) => p.levelPct === 50)!.adequacyDb).toBeGreaterThanOrEqual(0);
+  });
+  it('guarded with a large guard band fails a unit that passes shared-risk, and a 15° grid is warned about', async () => {
+    const r = await run(`${CHECKS}uncertainty:\n  decisionRule: guarded\n  guardBandDb: 20\n  draws: 100\n  eirp: { expandedDb: 2, perDirectionDb: 0.3 }\n`, 15);
+    const u = r.results.units[0];
+    expect(u.verdict).toBe('fail');
+    expect(r.exitCode).toBe(1);
+    expect(u.checks[0].decision!.guardBandDb).toBe(20);
+    expect(u.warnings.some((w) => w.includes('PC3 beam-peak-search minimum'))).toBe(true);
+  });
+  it('rejects a bad block with the key path and position', () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-job-'));
+    const f = path.join(dir, 'spherecov.yaml');
+    writeFileSync(f, 'uncertainty:\n  decisionRule: lenient\n  eirp: { expandedDb: 1, perDirectionDb: 0.9 }\n');
+    const { errors } = loadJobFile(f);
+    expect(errors.map((e) => e.message)).toEqual([
+      "spherecov.yaml:2:17: uncertainty.decisionRule: found 'lenient', expected one of shared-risk, guarded, non-binary",
+      "spherecov.yaml:3:42: uncertainty.eirp.perDirectionDb: found '0.9', expected at most U/1.96 = 0.5102 dB (the per-direction part cannot exceed the whole)",
+    ]);
+  });
+});
