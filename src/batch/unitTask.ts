@@ -107,7 +107,7 @@ function analysisLevel(ls: LimitSet | null): number {
 }
 
 /** What measureUnit reads of a task: the metrics asked for, the limit set, and whether to skip the optional analysis. */
-export type MeasureOptions = Pick<TaskInput, 'percentilesPct' | 'thresholds' | 'relativeDb' | 'limitSet' | 'coreOnly'>;
+export type MeasureOptions = Pick<TaskInput, 'percentilesPct' | 'thresholds' | 'relativeDb' | 'limitSet' | 'coreOnly' | 'uncertainty'>;
 
 /** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis. */
 export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {

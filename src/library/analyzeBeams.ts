@@ -135,6 +135,8 @@ export function analyzeBeams(input: BeamsInput): UnitAnalysis {
     relativeDb: input.relativeDb ?? [],
     limitSet,
     coreOnly: input.coreOnly,
+    // A limit set's `uncertainty:` block applies here as in the CLI (src/analysis/uncertainty).
+    uncertainty: limitSet?.uncertainty ?? null,
   });
   return { result, measurement, tsp };
 }
