@@ -3,7 +3,8 @@
  * against a reference unit, and the trend over frequency of a unit measured at several
  * frequencies. Mutates the results in place; the input order is kept.
  */
-import type { CoverageMetrics, UnitResult } from '../types.js';
+import type { UnitResult } from '../types.js';
+import { metricsOfUnit } from '../metrics/catalogue.js';
 import { referenceDeltas } from '../analysis/referenceDeltas.js';
 import { frequencyTrend } from '../analysis/frequencyTrend.js';
 import { pointingDrift } from '../analysis/pointingDrift.js';
@@ -11,10 +12,8 @@ import { pointingDrift } from '../analysis/pointingDrift.js';
 /** A beam whose peak direction moves more than this across the measured band is flagged (our default). */
 export const MAX_POINTING_DRIFT_DEG = 5;
 
-/** The metrics part of a unit result, in the shape the analysis functions take. */
-export function metricsOf(u: UnitResult): CoverageMetrics {
-  return { ...u.tsp, solidAngleSr: u.solidAngleSr, beams: u.beams };
-}
+/** The metrics part of a unit result, in the shape the analysis functions take (owned by the metric catalogue). */
+export const metricsOf = metricsOfUnit;
 
 /**
  * reference: every unit gets `reference = { unit, deltas }` against the reference unit at the

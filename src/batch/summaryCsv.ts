@@ -4,21 +4,17 @@
 import type { BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
 import { errorLocation, errorMessage } from '../report/unitStatus.js';
 import { toCsv, type CsvCell } from './csv.js';
-import { isBetter } from '../quantity.js';
+import { coverageMetricValues, csvColumn, FAMILY_ORDER, metricsOfUnit, peakBeamIndex, type MetricValue } from '../metrics/catalogue.js';
 
-/** Column label of a number: `-88` → `-88`, `12.5` → `12.5` (shortest round trip). */
-function num(x: number): string {
-  return String(x);
-}
-
-/** The beam that gives the TSP peak (the first beam whose peak equals it), else null. */
-function peakBeam(u: UnitResult): UnitResult['beams'][number] | null {
-  let best: UnitResult['beams'][number] | null = null;
-  for (const b of u.beams) {
-    const better = best === null || isBetter(u.quantity, b.peak.value, best.peak.value);
-    if (better) best = b;
-  }
-  return best;
+/**
+ * The metric columns of summary.csv: every catalogued metric with a CSV column, the union over
+ * all units in first-seen order within each family, families in catalogue order (every unit of
+ * one run normally has the same lists); a unit without a column leaves it empty.
+ */
+function metricColumns(perUnit: Map<string, MetricValue>[]): string[] {
+  const cols = new Map<string, MetricValue['metric']>();
+  for (const m of perUnit) for (const [col, v] of m) if (!cols.has(col)) cols.set(col, v.metric);
+  return [...cols].sort((a, b) => FAMILY_ORDER.indexOf(a[1].family) - FAMILY_ORDER.indexOf(b[1].family)).map(([c]) => c);
 }
 
 /**
@@ -32,37 +28,33 @@ function verdictCell(u: UnitResult): string {
 /**
  * Rows of summary.csv, one per analyzed unit and frequency and one per unit that could not be
  * read or analyzed (verdict `error`, with its first error's location and message; its metric
- * cells are empty). Rows are sorted by unit, then frequency. The percentile and coverage columns are the union over all units in
- * first-seen order (every unit of one run normally has the same lists); a unit without a
- * column leaves it empty. Text cells are neutralized against formula injection (csv.ts).
+ * cells are empty). Rows are sorted by unit, then frequency. Metric columns come from the metric
+ * catalogue (see metricColumns). Text cells are neutralized against formula injection (csv.ts).
  */
 export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] = []): string {
-  const levels: number[] = [];
-  const thresholds: number[] = [];
-  const rel: number[] = [];
-  for (const u of units) {
-    for (const p of u.tsp.percentiles) if (!levels.includes(p.levelPct)) levels.push(p.levelPct);
-    for (const c of u.tsp.coverage) if (!thresholds.includes(c.threshold)) thresholds.push(c.threshold);
-    for (const c of u.tsp.relativeCoverage) if (!rel.includes(c.dbBelowPeak)) rel.push(c.dbBelowPeak);
-  }
+  const perUnit = units.map((u) => {
+    const m = new Map<string, MetricValue>();
+    for (const v of coverageMetricValues(metricsOfUnit(u), u.quantity)) {
+      const col = csvColumn(v.metric);
+      if (col !== null && !m.has(col)) m.set(col, v);
+    }
+    return m;
+  });
+  const columns = metricColumns(perUnit);
   const header = [
     'unit', 'frequency_hz', 'quantity', 'value_unit', 'beams', 'points', 'measured_solid_angle_sr', 'measured_fraction',
     'peak', 'peak_theta_deg', 'peak_phi_deg',
-    ...levels.map((l) => `p${num(l)}`),
-    ...thresholds.map((t) => `coverage_at_${num(t)}`),
-    ...rel.map((d) => `coverage_within_${num(d)}db_of_peak`),
+    ...columns,
     'peak_beam', 'peak_beam_trp_dbm', 'verdict', 'checks_failed', 'checks_not_evaluable', 'worst_check', 'worst_margin', 'worst_margin_unit', 'worst_margin_db',
     'full_sphere', 'unmeasured_sr', 'missing_points', 'warnings', 'error_location', 'error_message',
   ];
   type Keyed = { unit: string; f: number | null; row: CsvCell[] };
-  const keyed: Keyed[] = units.map((u) => {
-    const pb = peakBeam(u);
+  const keyed: Keyed[] = units.map((u, k) => {
+    const pb = u.beams[peakBeamIndex(metricsOfUnit(u))] ?? null;
     const row: CsvCell[] = [
       u.unit, u.frequencyHz, u.quantity, u.valueUnit, u.beams.length, u.grid.points, u.solidAngleSr, u.solidAngleSr / (4 * Math.PI),
       u.tsp.peak.value, u.tsp.peak.thetaDeg, u.tsp.peak.phiDeg,
-      ...levels.map((l) => u.tsp.percentiles.find((p) => p.levelPct === l)?.value ?? null),
-      ...thresholds.map((t) => u.tsp.coverage.find((c) => c.threshold === t)?.efficiency ?? null),
-      ...rel.map((d) => u.tsp.relativeCoverage.find((c) => c.dbBelowPeak === d)?.efficiency ?? null),
+      ...columns.map((c) => perUnit[k].get(c)?.value ?? null),
       pb?.id ?? null, pb?.trpDbm ?? null, verdictCell(u),
       u.checks.filter((c) => c.status === 'fail').length, u.checks.filter((c) => c.status === 'not-evaluable').length,
       u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null, u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,

@@ -1,9 +1,10 @@
 import { mean as ssMean, sampleStandardDeviation } from 'simple-statistics';
 import type { BuildMetricStats, BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
 import { processCapability } from './processCapability.js';
-import { worstOf } from '../quantity.js';
+import { coverageMetricValues, FAMILY_ORDER, judgementMetricValues, metricsOfUnit, statsKey, statsOnlyWhenDefined, type MetricInstance } from '../metrics/catalogue.js';
 
 interface Series {
+  metric: MetricInstance;
   values: number[];
   /** Per judged unit: passed or not (not-evaluable counts as not passed). */
   judged: boolean[];
@@ -14,7 +15,8 @@ interface Series {
 /**
  * Statistics across the units of a build, per frequency and metric.
  *
- * Metrics: `peak`, `p<level>` per percentile, `coverage@<threshold>` per absolute coverage
+ * Metrics: the metric catalogue's statistics metrics (src/metrics/catalogue.ts), by name:
+ * `peak`, `p<level>` per percentile, `coverage@<threshold>` per absolute coverage
  * threshold, `maxTrp` (largest beam TRP; full-sphere units only), `minBeamPeak` (worst beam
  * peak: lowest for eirp/gain, highest for eis), one `check:<name>` row per check (the check's
  * value), and `worstMargin` (the unit's worst-check margin).
@@ -40,62 +42,56 @@ interface Series {
  */
 export function buildStatistics(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] = []): BuildSummary {
   const byFreq = new Map<number | null, Map<string, Series>>();
-  const series = (f: number | null, key: string): Series => {
+  const series = (f: number | null, metric: MetricInstance): Series => {
+    const key = statsKey(metric) as string;
     let m = byFreq.get(f);
     if (!m) byFreq.set(f, (m = new Map()));
     let s = m.get(key);
-    if (!s) m.set(key, (s = { values: [], judged: [], limits: new Set() }));
+    if (!s) m.set(key, (s = { metric, values: [], judged: [], limits: new Set() }));
     return s;
   };
   for (const u of units) {
     const f = u.frequencyHz;
-    const add = (key: string, v: number | null): void => {
-      const s = series(f, key); // created even when v is null so the row shows count 0
-      if (v !== null && Number.isFinite(v)) s.values.push(v);
-    };
-    add('peak', u.tsp.peak.value);
-    for (const p of u.tsp.percentiles) add(`p${p.levelPct}`, p.value);
-    for (const c of u.tsp.coverage) add(`coverage@${c.threshold}`, c.efficiency);
-    const trps = u.beams.map((b) => b.trpDbm);
-    if (trps.length && trps.every((t) => t !== null)) add('maxTrp', Math.max(...(trps as number[])));
-    const peaks = u.beams.map((b) => b.peak.value);
-    if (peaks.length) add('minBeamPeak', worstOf(u.quantity, peaks));
-    for (const c of u.checks) {
-      const s = series(f, `check:${c.name}`);
-      if (c.value !== null && c.status !== 'not-evaluable') s.values.push(c.value);
+    for (const { metric, value } of coverageMetricValues(metricsOfUnit(u), u.quantity)) {
+      if (statsKey(metric) === null || (value === null && statsOnlyWhenDefined(metric))) continue;
+      const s = series(f, metric); // created even when the value is null so the row shows count 0
+      if (value !== null && Number.isFinite(value)) s.values.push(value);
+    }
+    const judgement = judgementMetricValues(u);
+    u.checks.forEach((c, k) => {
+      const s = series(f, judgement[k].metric);
+      if (judgement[k].value !== null) s.values.push(judgement[k].value as number);
       s.judged.push(c.status === 'pass');
       s.limits.add(c.limit);
       s.bound ??= c.bound;
-    }
-    add('worstMargin', u.worstCheck ? u.worstCheck.margin : null);
+    });
+    const margin = judgement[judgement.length - 1];
+    const s = series(f, margin.metric);
+    if (margin.value !== null && Number.isFinite(margin.value)) s.values.push(margin.value);
   }
   const stats: BuildMetricStats[] = [];
   const freqs = [...byFreq.keys()].sort((a, b) => (a === null ? 1 : b === null ? -1 : a - b));
   for (const f of freqs) {
     const rows = [...(byFreq.get(f) as Map<string, Series>)];
-    rows.sort((a, b) => metricRank(a[0]) - metricRank(b[0]));
+    rows.sort((a, b) => outputOrder(a[1].metric, b[1].metric));
     const errored = new Set(notAnalyzed.filter((e) => e.frequencyHz === null || e.frequencyHz === f).map((e) => e.unit)).size;
-    for (const [metric, s] of rows) stats.push(row(f, metric, s, errored));
+    for (const [key, s] of rows) stats.push(row(f, key, s, errored));
   }
   return { ...countUnits(units, notAnalyzed), stats };
 }
 
-/** Stable order: peak, percentiles, coverage, TRP, beam peak, checks (insertion order), margin. */
-function metricRank(key: string): number {
-  if (key === 'peak') return 0;
-  if (/^p\d/.test(key)) return 1e3 + Number(key.slice(1));
-  if (key.startsWith('coverage@')) return 2e6 + Number(key.slice(9));
-  if (key === 'maxTrp') return 5e6;
-  if (key === 'minBeamPeak') return 6e6;
-  if (key === 'worstMargin') return 9e9;
-  return 7e6; // checks: Array.prototype.sort is stable, so they keep the limit-set order
+/** Catalogue order of the families; inside a numeric family by parameter; checks keep the limit-set order (stable sort). */
+function outputOrder(a: MetricInstance, b: MetricInstance): number {
+  const fa = FAMILY_ORDER.indexOf(a.family), fb = FAMILY_ORDER.indexOf(b.family);
+  if (fa !== fb) return fa - fb;
+  return typeof a.param === 'number' && typeof b.param === 'number' ? a.param - b.param : 0;
 }
 
 function row(frequencyHz: number | null, metric: string, s: Series, errored: number): BuildMetricStats {
   const n = s.values.length;
   const mean = n ? ssMean(s.values) : null;
   const std = n >= 2 ? sampleStandardDeviation(s.values) : null;
-  const isCheck = metric.startsWith('check:');
+  const isCheck = s.metric.family === 'check';
   const limit = isCheck && s.limits.size === 1 ? [...s.limits][0] : null;
   const bound = s.bound ?? null;
   const passed = s.judged.filter(Boolean).length;

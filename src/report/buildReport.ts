@@ -12,6 +12,7 @@ import { scaleT, valueScale } from './unitMaps.js';
 import { cdfLimitMarks } from './unitReport.js';
 import { isLowerBetter } from '../quantity.js';
 import { errorLocation, errorMessage, verdictWord, worstMarginText } from './unitStatus.js';
+import { formatMetric, metricLabel, statsMetricIndex } from '../metrics/catalogue.js';
 
 /** A thumbnail's pixels painted with one colour scale (each pixel is its own "point"). */
 function thumbnailPng(t: MapThumbnail, entry: (v: number) => number, table: Uint8Array): Buffer {
@@ -97,10 +98,12 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
     { header: 'Mean', width: 50, align: 'right' }, { header: 'σ', width: 46, align: 'right' }, { header: 'Min', width: 50, align: 'right' },
     { header: 'Max', width: 50, align: 'right' }, { header: 'Yield', width: 52, align: 'right' }, { header: 'Cpk', width: 56, align: 'right' },
   ];
-  const frac = (metric: string) => metric.startsWith('coverage@') || /coverage/i.test(metric) && !metric.startsWith('check:');
+  const metricOf = statsMetricIndex(units);
   table(doc, scols, b.stats.map((s) => {
-    const f = (v: number | null) => (frac(s.metric) && v !== null ? pct(v) : fmt(v));
-    return [fmtFrequency(s.frequencyHz), s.metric, `${s.count}`, f(s.mean), frac(s.metric) && s.std !== null ? `${fmt(100 * s.std, 1)} pt` : fmt(s.std), f(s.min), f(s.max), pct(s.yield, 0), fmt(s.cpk)];
+    const m = metricOf.get(s.metric);
+    const f = (v: number | null) => (m ? formatMetric(m, v) : fmt(v));
+    const spread = m ? formatMetric(m, s.std, 'spread') : fmt(s.std);
+    return [fmtFrequency(s.frequencyHz), m ? metricLabel(m, vu) : s.metric, `${s.count}`, f(s.mean), spread, f(s.min), f(s.max), pct(s.yield, 0), fmt(s.cpk)];
   }), { fontSize: 7.2 });
   note(doc, 'σ: sample standard deviation (n − 1). Yield: share of units whose check passed. Cpk: min(mean − lower, upper − mean) / 3σ against the limit as written (no test tolerance). Values in the unit\'s dB unit; coverage as share of 4π.');
 

@@ -11,6 +11,7 @@ import { drawCdfPlot, drawCoveragePlot, type LimitMark } from './plots.js';
 import type { ReportSettings, UnitReportInput } from './reportTypes.js';
 import { beamColor, buildUnitMaps, DELTA_OUTLINE_DB, scaleT, type UnitMaps } from './unitMaps.js';
 import { drawAxes, px, py, type Axes } from './axes.js';
+import { formatMetric, metricLabel, metricsOfUnit, rowKey, rowMetrics, type MetricInstance } from '../metrics/catalogue.js';
 
 const PERCENTILE_RULE =
   'step rule: the smallest value whose solid-angle-weighted CDF over 4π reaches p; unmeasured solid angle counts as worst';
@@ -329,26 +330,9 @@ function referenceSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: R
     doc.y = box.y + box.h + 14;
     note(doc, `This unit's total scan pattern minus the reference's, per direction (same projection). ${input.result.quantity === 'eis' ? 'For EIS a negative difference is better.' : 'Positive: this unit is stronger.'} Outlined: directions where the difference exceeds ±${DELTA_OUTLINE_DB} dB (about the repeatability of an over-the-air measurement).`);
   }
-  const entries = Object.entries(ref.deltas).map(([k, v]) => [metricLabel(k, input.result.valueUnit), fmtDelta(k, v)]);
+  const entries = rowMetrics(metricsOfUnit(input.result)).filter(({ key }) => key in ref.deltas)
+    .map(({ metric, key }) => [metricLabel(metric, input.result.valueUnit), formatMetric(metric, ref.deltas[key], 'delta')]);
   pairedTable(doc, entries, ['Metric', 'Δ (this − reference)']);
-}
-
-/** Plain-words name of a metricRow key (src/analysis/metricRow.ts) for the tables. */
-function metricLabel(key: string, unit: string): string {
-  let m: RegExpMatchArray | null;
-  if (key === 'peak') return `peak (${unit})`;
-  if ((m = key.match(/^p([\d.]+)$/))) return `${m[1]} %-tile (${unit})`;
-  if ((m = key.match(/^coverage@(.+)$/))) return `coverage ≥ ${m[1]} ${unit}`;
-  if ((m = key.match(/^relativeCoverage@(.+)dB$/))) return `coverage within ${m[1]} dB of peak`;
-  if (key === 'trpBestBeamDbm') return 'TRP of the peak beam (dBm)';
-  if (key === 'trpMaxDbm') return 'highest beam TRP (dBm)';
-  return key;
-}
-
-/** Coverage deltas are fractions of 4π, shown in percentage points; the rest in dB. */
-function fmtDelta(key: string, v: number | null): string {
-  if (v === null) return '—';
-  return /overage/.test(key) ? `${fmt(100 * v, 2)} pt` : `${fmt(v, 2)} dB`;
 }
 
 /** A list of (name, value) pairs set in three side-by-side column pairs to save space. */
@@ -367,17 +351,15 @@ function trendSection(doc: Doc, r: UnitResult): void {
   const trend = r.frequencyTrend;
   if (!trend || trend.length === 0) return;
   heading(doc, 'Metrics versus frequency', 200);
-  const keys = [...new Set(trend.flatMap((t) => Object.keys(t)).filter((k) => k !== 'frequencyHz'))];
+  const inTrend = new Set(trend.flatMap((t) => Object.keys(t)));
+  const metrics = rowMetrics(metricsOfUnit(r)).filter(({ key }) => inTrend.has(key));
   const judged = r.checks.find((c) => c.kind === 'percentile') as (CheckResult & { levelPct?: number }) | undefined;
-  const lineKeys = ['peak', judged?.levelPct !== undefined ? `p${judged.levelPct}` : 'p50', 'trpMaxDbm'].filter((k) => keys.includes(k));
-  trendPlot(doc, trend, lineKeys, r.valueUnit);
+  const lines: MetricInstance[] = [{ family: 'peak' }, { family: 'percentile', param: judged?.levelPct ?? 50 }, { family: 'trpMax' }];
+  trendPlot(doc, trend, metrics.filter(({ metric }) => lines.some((l) => rowKey(l) === rowKey(metric))), r.valueUnit);
   const w = contentWidth(doc);
   const fw = Math.min(80, (w - 190) / trend.length);
   table(doc, [{ header: 'Metric', width: w - fw * trend.length }, ...trend.map((t) => ({ header: fmtFrequency(t.frequencyHz), width: fw, align: 'right' as const }))],
-    keys.map((k) => [metricLabel(k, r.valueUnit), ...trend.map((t) => {
-      const v = t[k] as number | null;
-      return v === null ? '—' : /overage/.test(k) ? `${fmt(100 * v, 1)} %` : fmt(v);
-    })]), { fontSize: 7.2 });
+    metrics.map(({ metric, key }) => [metricLabel(metric, r.valueUnit), ...trend.map((t) => formatMetric(metric, t[key] as number | null))]), { fontSize: 7.2 });
   const drift = r.pointingDrift;
   if (drift && drift.length > 0) {
     const worst = drift.reduce((a, b) => (b.driftDeg > a.driftDeg ? b : a));
@@ -389,7 +371,8 @@ function trendSection(doc: Doc, r: UnitResult): void {
 }
 
 /** Selected metrics against frequency, one line each (markers at the measured frequencies). */
-function trendPlot(doc: Doc, trend: NonNullable<UnitResult['frequencyTrend']>, keys: string[], unit: string): void {
+function trendPlot(doc: Doc, trend: NonNullable<UnitResult['frequencyTrend']>, metrics: { metric: MetricInstance; key: string }[], unit: string): void {
+  const keys = metrics.map((m) => m.key);
   const vals = trend.flatMap((t) => keys.map((k) => t[k] as number | null)).filter((v): v is number => v !== null);
   if (vals.length === 0 || trend.length < 2) return;
   const fs = trend.map((t) => t.frequencyHz / 1e9);
@@ -411,7 +394,7 @@ function trendPlot(doc: Doc, trend: NonNullable<UnitResult['frequencyTrend']>, k
     doc.moveTo(lx, ly + 3).lineTo(lx + 22, ly + 3);
     if (d.length) doc.dash(d[0], { space: d[1] });
     doc.lineWidth(1.1).strokeColor(INK).stroke().undash();
-    doc.font('R').fontSize(7.2).fillColor(INK).text(metricLabel(k, unit), lx + 26, ly, { width: 120, lineBreak: false });
+    doc.font('R').fontSize(7.2).fillColor(INK).text(metricLabel(metrics[i].metric, unit), lx + 26, ly, { width: 120, lineBreak: false });
   });
   doc.y = box.y + box.h + 28;
   doc.fontSize(9);
