@@ -9,7 +9,8 @@
  *     waits there until it is interrupted (SIGINT/SIGTERM).
  * `<where>` is an output file name (`summary.pdf`, `results.json`, …), `spool` (a unit's PDF
  * parked while the analysis goes on), `manifest`, or `analysis` (the start of the analyzing
- * stage, after the output folder was locked).
+ * stage, after the output folder was locked), or `folder:<path>` (listing that input subfolder,
+ * its path relative to the input, for example `folder:PX-02`).
  * Unset (the normal case) it does nothing. Never used by the program itself.
  */
 

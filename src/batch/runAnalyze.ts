@@ -17,7 +17,7 @@ import { unitKey, type MapThumbnail, type ReportSettings } from '../report/repor
 import type { CdfCurve } from '../report/cdfCurve.js';
 import { DEFAULT_PERCENTILES_PCT, type AnalyzeOptions, type BatchIo } from './options.js';
 import { InterruptedError, RunError, formatInputError as formatError } from './errors.js';
-import { discoverInputs, groupKey, toPosix, byCodePoint } from './discover.js';
+import { discoverInputs, groupKey, toPosix, byCodePoint, NotFileOrFolderError, type Discovery } from './discover.js';
 import { OutputWriter, outputDirProblem, randomRunId } from './outputDir.js';
 import { acquireLock, LockBusyError } from './lock.js';
 import { TaskPool, type PoolHooks } from './pool.js';
@@ -33,6 +33,11 @@ import { TOOL_VERSION } from './version.js';
 import { crossUnitExtras } from './crossUnit.js';
 import { fsReason, isFsError } from '../io/fsProblem.js';
 import { injectFault } from './faults.js';
+import { clipText } from '../io/inputError.js';
+import pngjs from 'pngjs';
+
+const { PNG } = pngjs;
+import { readTrustedBytes, resolveNamed, TrustedFileError } from '../io/trustedFile.js';
 
 /** "interrupted" (SIGINT, or an abort without a named signal) or "stopped by SIGTERM". */
 function interruptName(signal: AbortSignal | undefined): string {
@@ -72,14 +77,59 @@ async function loadJob(opts: AnalyzeOptions, found: string | null): Promise<JobS
 }
 
 /**
+ * Discovery with its failures in the user's words: an input that is a pipe or a device, or a
+ * folder that cannot be listed at all, stops the run (exit 2); unreadable entries inside it are
+ * collected in `problems` and the rest is analyzed.
+ * @throws RunError
+ */
+async function discover(abs: string, shown: string, exclude: string[]): Promise<Discovery> {
+  try {
+    return await discoverInputs(abs, exclude);
+  } catch (e) {
+    if (e instanceof NotFileOrFolderError) throw new RunError(e.message);
+    if (isFsError(e)) throw new RunError(`cannot read the input '${shown}': ${fsReason(e)}`);
+    throw e;
+  }
+}
+
+/**
+ * The report logo named by the job file, read once across the trust boundary (a regular PNG or
+ * JPEG file of at most 4 MiB, relative to the job file) and handed to the report renderers as a
+ * data URL, so no renderer opens a path from the job file itself.
+ * @throws RunError naming the file and the reason
+ */
+function logoDataUrl(ref: string, baseDir: string): string {
+  let bytes: Buffer;
+  try {
+    bytes = readTrustedBytes(resolveNamed(ref, baseDir), 'logo', ref);
+  } catch (e) {
+    if (e instanceof TrustedFileError) throw new RunError(`the job file's report.logo: ${e.message}`);
+    throw e;
+  }
+  const png = bytes.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+  const jpeg = bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff;
+  if (!png && !jpeg) throw new RunError(`the job file's report.logo: '${clipText(ref)}' is neither a PNG nor a JPEG image (the report can embed only those)`);
+  if (png) {
+    // Decoded once here: a damaged PNG would otherwise fail inside the PDF writer's inflate,
+    // asynchronously, where no report can catch it.
+    try {
+      PNG.sync.read(bytes);
+    } catch (e) {
+      throw new RunError(`the job file's report.logo: '${clipText(ref)}' is a damaged PNG image (${clipText((e as Error).message)})`);
+    }
+  }
+  return `data:image/${png ? 'png' : 'jpeg'};base64,${bytes.toString('base64')}`;
+}
+
+/**
  * The limit set of the run: --limits (else the job file's `limits`), plus the job file's own
  * `checks` (validated, merged by name; a job with checks but no limit set judges those alone).
  */
-function loadLimits(name: string | undefined, job: JobSpec | null, quantity: Quantity | undefined): LimitSet | null {
+function loadLimits(name: string | undefined, baseDir: string, fromJob: boolean, job: JobSpec | null, quantity: Quantity | undefined): LimitSet | null {
   let base: LimitSet | null = null;
   if (name) {
-    const { limitSet, errors } = loadLimitSet(name);
-    if (!limitSet) throw new RunError(`--limits: ${errors.map(formatError).join('; ')}`);
+    const { limitSet, errors } = loadLimitSet(name, baseDir);
+    if (!limitSet) throw new RunError(`${fromJob ? "the job file's limits" : '--limits'}: ${errors.map(formatError).join('; ')}`);
     base = limitSet;
   }
   if (!job?.checks || job.checks.length === 0) return base;
@@ -127,7 +177,8 @@ async function loadReferenceFolder(
   makeTask: (key: string, files: string[]) => TaskInput,
   pool: TaskPool,
 ): Promise<{ unit: string; patterns: ReferencePattern[] }> {
-  const found = await discoverInputs(dir, [outDir]);
+  const found = await discover(dir, dir, [outDir]);
+  if (found.problems.length > 0) throw new RunError(`--reference: ${formatError(found.problems[0])}`);
   if (found.files.length === 0) throw new RunError(`--reference: no export files (.csv, .tsv, .txt) in the folder '${dir}'`);
   const task: TaskInput = { ...makeTask('reference', found.files), inputRoot: found.root, report: null, exportReference: true, exportAll: true };
   const [out] = await pool.run([task], 1);
@@ -153,9 +204,12 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   const problem = await outputDirProblem(input, outDir, opts.force === true);
   if (problem) throw new RunError(problem);
 
-  const discovery = await discoverInputs(input, [outDir]);
+  const discovery = await discover(input, opts.input, [outDir]);
   const job = await loadJob(opts, discovery.jobFile);
-  const limitSet = loadLimits(opts.limits ?? job?.limits, job, opts.quantity);
+  // A limit-set path in the job file is relative to the job file, one on the command line to the
+  // working directory: the verdict never depends on where the command is run from.
+  const limitsBase = opts.limits === undefined && job ? path.dirname(job.source) : process.cwd();
+  const limitSet = loadLimits(opts.limits ?? job?.limits, limitsBase, opts.limits === undefined, job, opts.quantity);
   const needs = limitSet ? metricNeeds(limitSet) : { percentilesPct: [], thresholds: [] };
   const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
   const thresholds = unionSorted(opts.thresholds ?? job?.coverageThresholds, needs.thresholds);
@@ -183,6 +237,10 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       if (e instanceof ReportSettingsError) throw new RunError(e.message);
       throw e;
     }
+    if (report.logo) report = { ...report, logo: logoDataUrl(report.logo, job ? path.dirname(job.source) : process.cwd()) };
+  }
+  if (discovery.files.length === 0 && discovery.problems.length > 0) {
+    throw new RunError(`no readable export files in '${opts.input}':\n  ${discovery.problems.map(formatError).join('\n  ')}`);
   }
   if (discovery.files.length === 0) {
     throw new RunError(`no export files (.csv, .tsv, .txt) found in '${opts.input}'`);
@@ -206,6 +264,11 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       named = checkReference(referenceArg, input, new Set(groups.keys()), discovery.files, job);
     } catch (e) {
       throw new RunError((e as Error).message);
+    }
+    if (named.kind === 'folder' && opts.reference === undefined) {
+      // A job file travels with an input folder someone else prepared: it may name a unit of
+      // the build, never make the run read a folder outside what the user named.
+      throw new RunError(`the job file's reference: '${clipText(referenceArg)}' is not a unit of this build; a job file may name only a unit of the build. A golden unit measured elsewhere is given on the command line: --reference <folder>`);
     }
     if (named.kind === 'folder') {
       referenceDir = named.dir;
@@ -291,7 +354,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     const units = unitOutputs.map((u) => u.result);
     const notAnalyzed: UnitNotAnalyzed[] = outputs.flatMap((o) => o.notAnalyzed ?? []);
     notAnalyzed.sort((a, b) => byCodePoint(a.unit, b.unit) || (a.frequencyHz ?? -1) - (b.frequencyHz ?? -1));
-    const errors: InputError[] = outputs.flatMap((o) => o.errors);
+    const errors: InputError[] = [...discovery.problems, ...outputs.flatMap((o) => o.errors)];
     errors.sort((a, b) => byCodePoint(a.file, b.file) || (a.line ?? 0) - (b.line ?? 0) || (a.column ?? 0) - (b.column ?? 0));
     const looseWarnings: Warning[] = outputs.flatMap((o) => o.warnings);
     const referenceProblem = crossUnitExtras(units, reference, referenceDir !== null);

@@ -1,9 +1,11 @@
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { LineCounter, parseDocument, isMap, isSeq, type Document } from 'yaml';
 import type { InputError } from '../types.js';
 import { clipText } from './inputError.js';
 import { parseNumberText } from './numberText.js';
+import { readTrustedText, TrustedFileError } from './trustedFile.js';
+import { yamlToJs } from './yamlToJs.js';
 import type { CalibrationPoint, ColumnRole, JobSpec } from './types.js';
 import { QUANTITIES } from '../quantity.js';
 import { validateUncertainty } from '../analysis/uncertainty/uncertaintySpec.js';
@@ -125,9 +127,10 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
   const file = path.basename(filePath);
   let text: string;
   try {
-    text = readFileSync(filePath, 'utf8');
+    text = readTrustedText(filePath, 'job file', file);
   } catch (e) {
-    return { job: null, errors: [{ file, message: `${file}: cannot read the job file (${(e as NodeJS.ErrnoException).code ?? 'error'}), expected a readable YAML or JSON file` }] };
+    if (e instanceof TrustedFileError) return { job: null, errors: [{ file, message: e.message }] };
+    throw e;
   }
   const lc = new LineCounter();
   const doc = parseDocument(text.replace(/^\uFEFF/, ''), { lineCounter: lc, prettyErrors: false });
@@ -138,7 +141,8 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
     return { job: null, errors: [{ file, line, column: col, message: `${file}:${line}:${col}: syntax: found '${clipText(near)}', expected valid ${filePath.endsWith('.json') ? 'JSON' : 'YAML'} (${e.code})` }] };
   }
   const c = new Checker(file, doc, lc);
-  const root = doc.toJS() as unknown;
+  const root = yamlToJs(doc, file);
+  if (root instanceof Error) return { job: null, errors: [{ file, message: root.message }] };
   if (root === null || root === undefined) return { job: { source: path.resolve(filePath) }, errors: [] };
   const top = c.object(root, [], TOP_KEYS);
   if (!top) return { job: null, errors: c.errors };

@@ -1,5 +1,6 @@
-import { existsSync, readFileSync, statSync } from 'node:fs';
-import { basename, extname, join, resolve } from 'node:path';
+import { existsSync, statSync } from 'node:fs';
+import { basename, extname, join } from 'node:path';
+import { readTrustedText, resolveNamed, TrustedFileError } from '../io/trustedFile.js';
 import type { InputError } from '../types.js';
 import type { LimitSet } from './limitSet.js';
 import { parseLimitSetText } from './parseLimitSet.js';
@@ -11,14 +12,16 @@ const EXTENSIONS = ['.yaml', '.yml', '.json'];
 /**
  * Load a limit set by shipped profile name (`3gpp-fr2-pc3-n257`) or by path to a YAML/JSON file.
  * A value that names an existing file, contains a path separator or ends in .yaml/.yml/.json is
- * a path (relative to the working directory); anything else is a profile name.
+ * a path, relative to `baseDir`: the job file's folder when the job file names it, the working
+ * directory for --limits. Anything else is a profile name. The file is read across the trust
+ * boundary (io/trustedFile.ts: a regular file of at most 1 MiB; no FIFO, device or folder).
  *
  * Cost: one file read. Never throws: problems come back as InputError values.
  * @example loadLimitSet('3gpp-fr2-pc3-n257').limitSet?.quantity // 'eirp'
  */
-export function loadLimitSet(nameOrPath: string): { limitSet: LimitSet | null; errors: InputError[] } {
+export function loadLimitSet(nameOrPath: string, baseDir: string = process.cwd()): { limitSet: LimitSet | null; errors: InputError[] } {
   const looksLikePath = /[\\/]/.test(nameOrPath) || EXTENSIONS.includes(extname(nameOrPath).toLowerCase());
-  const asPath = resolve(nameOrPath);
+  const asPath = resolveNamed(nameOrPath, baseDir);
   let file: string;
   let shown: string;
   if (looksLikePath || (existsSync(asPath) && statSync(asPath).isFile())) {
@@ -31,10 +34,10 @@ export function loadLimitSet(nameOrPath: string): { limitSet: LimitSet | null; e
   }
   let text: string;
   try {
-    text = readFileSync(file, 'utf8');
+    text = readTrustedText(file, 'limit set', shown);
   } catch (e) {
-    const why = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
-    return { limitSet: null, errors: [{ file: shown, message: `limits: cannot read the limit set (${why})` }] };
+    if (!(e instanceof TrustedFileError)) throw e;
+    return { limitSet: null, errors: [{ file: shown, message: e.message }] };
   }
   const out = parseLimitSetText(text, shown);
   if (out.limitSet) out.limitSet.file = file;

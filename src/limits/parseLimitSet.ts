@@ -1,5 +1,6 @@
 import { LineCounter, parseDocument, isMap, isNode, isScalar } from 'yaml';
 import type { InputError } from '../types.js';
+import { yamlToJs } from '../io/yamlToJs.js';
 import type { LimitSet } from './limitSet.js';
 import { validateLimitSet, type KeyPath } from './validateLimitSet.js';
 
@@ -42,5 +43,7 @@ export function parseLimitSetText(text: string, file: string): { limitSet: Limit
     }
     return undefined;
   };
-  return validateLimitSet(doc.toJS(), file, locate);
+  const data = yamlToJs(doc, file);
+  if (data instanceof Error) return { limitSet: null, errors: [{ file, message: data.message }] };
+  return validateLimitSet(data, file, locate);
 }

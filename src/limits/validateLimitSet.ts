@@ -1,3 +1,4 @@
+import { clipText } from '../io/inputError.js';
 import type { CheckKind, InputError, Quantity } from '../types.js';
 import { CHECK_KINDS, type CheckDraft, type LimitCheck, type LimitSet } from './limitSet.js';
 import { defaultCheckName, kindAllowed } from './checkSense.js';
@@ -32,7 +33,9 @@ function describeFound(v: unknown): string {
   if (v === null) return "'null'";
   if (Array.isArray(v)) return 'a list';
   if (typeof v === 'object') return 'a mapping';
-  return `'${String(v)}'`;
+  // Clipped: a file that is not a limit set at all (a password file, an environment dump) is
+  // never echoed whole.
+  return `'${clipText(String(v))}'`;
 }
 
 /**

@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { parse } from 'yaml';
+import { clipText } from '../io/inputError.js';
 import type { ReportSections, ReportSettings } from './reportTypes.js';
 
 /** A report setting with a wrong type or value; the message names the key and what was expected. */
@@ -13,7 +14,7 @@ export type ReportSettingsOverrides = Partial<Omit<ReportSettings, 'sections'>> 
 const DEFAULT_PATH = new URL('../../templates/report/default.yaml', import.meta.url);
 
 const fail = (key: string, found: unknown, expected: string): never => {
-  throw new ReportSettingsError(`report settings: ${key}: found '${String(found)}', expected ${expected}`);
+  throw new ReportSettingsError(`report settings: ${key}: found '${clipText(String(found))}', expected ${expected}`);
 };
 
 function checkSettings(s: ReportSettings): ReportSettings {

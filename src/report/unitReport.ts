@@ -47,7 +47,8 @@ export function cdfLimitMarks(checks: CheckResult[]): LimitMark[] {
 function titleBlock(doc: Doc, input: UnitReportInput, s: ReportSettings): void {
   const r = input.result;
   const w = contentWidth(doc);
-  if (s.logo && existsSync(s.logo)) {
+  // The batch hands the logo over as a data URL (read once, checked at the trust boundary).
+  if (s.logo && (s.logo.startsWith('data:image/') || existsSync(s.logo))) {
     try {
       doc.image(s.logo, MARGIN.left + w - 90, MARGIN.top - 6, { fit: [90, 36], align: 'right' });
     } catch {

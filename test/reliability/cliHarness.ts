@@ -36,9 +36,10 @@ export function analyzeArgs(input: string, out: string, extra: string[] = []): s
   return [BIN, 'analyze', input, '--out', out, '--creation-date', DATE, '--quiet', ...extra];
 }
 
-export function runSync(args: string[]): { code: number | null; stdout: string; stderr: string; ms: number } {
+export function runSync(args: string[], env: NodeJS.ProcessEnv = process.env, cwd: string = ROOT): { code: number | null; stdout: string; stderr: string; ms: number } {
   const t0 = Date.now();
-  const r = spawnSync(process.execPath, args, { cwd: ROOT, encoding: 'utf8' });
+  // A generous timeout only so that a regression to a hang fails the test instead of the suite.
+  const r = spawnSync(process.execPath, args, { cwd, env, encoding: 'utf8', timeout: 120_000 });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr, ms: Date.now() - t0 };
 }
 
