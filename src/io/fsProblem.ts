@@ -14,7 +14,7 @@ const WORDS: Record<string, string> = {
   ENAMETOOLONG: 'the path is longer than the operating system allows',
   EISDIR: 'it is a folder, not a file',
   ENOTDIR: 'a part of the path is not a folder',
-  ENOENT: 'it does not exist',
+  ENOENT: 'no such file or folder',
   ELOOP: 'too many levels of symbolic links',
   EMFILE: 'too many open files',
   ENFILE: 'too many open files in the system',
