@@ -244,9 +244,15 @@ describe('SIGINT', () => {
     const env = { ...process.env, SPHERECOV_TEST_FAULTS: 'pause:analysis' };
     const child = spawn(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', input, '--out', out, '--no-pdf', '--jobs', '1'], { cwd: ROOT, env });
     let stderr = '';
+    let sent = false;
     child.stderr.on('data', (d) => {
       stderr += String(d);
-      if (/test pause before analysis/.test(stderr)) child.kill('SIGINT');
+      // One signal only: a second one sent while Node is already tearing the process down
+      // (its own default handlers are restored at exit) would kill it, a test artefact.
+      if (!sent && /test pause before analysis/.test(stderr)) {
+        sent = true;
+        child.kill('SIGINT');
+      }
     });
     const code = await new Promise<number | null>((resolve) => child.on('close', (c) => resolve(c)));
     expect(code).toBe(130);
