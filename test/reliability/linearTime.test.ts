@@ -4,6 +4,9 @@
  * Not a speed target (those live in `npm run bench`): only the ratio of the read time of an 8×
  * larger file to the 1× file, minimum of several repeats, against a loose bound (a quadratic
  * reader gives about 64×, a linear one about 8×).
+ * Robust on a loaded CI machine: the time is this process's CPU time (user + system), not wall
+ * time, and a ratio over the bound is measured again (up to ATTEMPTS times): a quadratic reader
+ * is over the bound every time, while a transient stall of a linear one is not repeated.
  */
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -18,6 +21,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 const BASE_ROWS = 30_000;
 const FACTOR = 8;
 const BOUND = 28;
+const ATTEMPTS = 3;
 
 type Shape = (rows: number) => string;
 
@@ -34,9 +38,10 @@ const shapes: Record<string, Shape> = {
 async function readMs(file: string, repeats: number): Promise<number> {
   let best = Infinity;
   for (let k = 0; k < repeats; k++) {
-    const t0 = process.hrtime.bigint();
+    const t0 = process.cpuUsage();
     const r = await readExportFile(file, { inputRoot: dir });
-    const ms = Number(process.hrtime.bigint() - t0) / 1e6;
+    const used = process.cpuUsage(t0);
+    const ms = (used.user + used.system) / 1e3;
     expect(r.file).toBe(path.basename(file));
     best = Math.min(best, ms);
   }
@@ -51,10 +56,13 @@ describe('read time grows linearly with the file size', () => {
       writeFileSync(small, shape(BASE_ROWS));
       writeFileSync(big, shape(BASE_ROWS * FACTOR));
       await readMs(small, 1); // warm up the JIT on this shape
-      const tSmall = await readMs(small, 5);
-      const tBig = await readMs(big, 3);
-      // Floor the small time at 2 ms so timer granularity cannot inflate the ratio.
-      const ratio = tBig / Math.max(tSmall, 2);
+      let ratio = Infinity, tSmall = NaN, tBig = NaN;
+      for (let attempt = 0; attempt < ATTEMPTS && !(ratio < BOUND); attempt++) {
+        tSmall = await readMs(small, 5);
+        tBig = await readMs(big, 3);
+        // Floor the small time at 2 ms so timer granularity cannot inflate the ratio.
+        ratio = Math.min(ratio, tBig / Math.max(tSmall, 2));
+      }
       recordFigure(`linear.${name}`, { smallMs: +tSmall.toFixed(2), bigMs: +tBig.toFixed(2), ratio: +ratio.toFixed(2) });
       expect(ratio).toBeLessThan(BOUND);
     });
