@@ -77,5 +77,6 @@ export function createMeasurement(input: MeasurementInput): Measurement {
     warnings: input.warnings ?? [],
     metadata: input.metadata ?? {},
     ...(input.mergedSamples === undefined ? {} : { mergedSamples: input.mergedSamples }),
+    ...(input.polarization === undefined ? {} : { polarization: input.polarization }),
   };
 }

@@ -14,6 +14,13 @@ export type { Quantity, ValueUnit };
 
 export type GridKind = 'regular' | 'scattered';
 
+/**
+ * One polarization component of a θ/φ value pair. EIS components are judged each on its own
+ * (3GPP TS 38.101-2 §7: receive requirements hold in each of two orthogonal polarizations);
+ * EIRP/gain components are reported beside the total (power sum), which carries the verdict.
+ */
+export type Polarization = 'theta' | 'phi';
+
 /** A direction on the unit sphere, θ ∈ [0, 180], φ ∈ [0, 360). */
 export interface Direction {
   thetaDeg: number;
@@ -141,6 +148,8 @@ export interface Measurement {
   metadata: Record<string, string>;
   /** Raw samples per beam merged into another sample's grid point (φ seam, poles, repeated rows). */
   mergedSamples?: number;
+  /** Set when this measurement is one polarization component of a θ/φ pair (not the total). */
+  polarization?: Polarization;
 }
 
 /** Total scan pattern: per grid point the best beam's value and that beam's index. */
@@ -234,6 +243,8 @@ export interface CheckResult {
   threshold?: number;
   /** min-beam-peak checks: the beam that set the value (the worst one judged). */
   beam?: string;
+  /** EIS judged per polarization: the polarization whose result this is (the limiting one). */
+  polarization?: Polarization;
   /** How sure the verdict is: present when a measurement uncertainty is given (src/analysis/uncertainty). */
   decision?: CheckDecision;
 }
@@ -296,6 +307,30 @@ export interface GridAdequacy {
 
 /** pass: every check evaluated and passed; fail: any failed; none: no limits, or some not evaluable. */
 export type Verdict = 'pass' | 'fail' | 'none';
+
+/**
+ * How the polarization components of a θ/φ value pair enter the verdict:
+ * - 'each': EIS, each polarization judged on its own; a check passes only when both pass;
+ * - 'combined-sensitivity': EIS, the explicit combined view 1/EIS = 1/EIS_θ + 1/EIS_φ (linear);
+ * - 'total-power-sum': EIRP/gain, the total 10·log10(10^(θ/10) + 10^(φ/10)) carries the verdict.
+ */
+export type PolarizationRule = 'each' | 'combined-sensitivity' | 'total-power-sum';
+
+/** One polarization component of a unit: its own TSP (best beam per direction for it) and, for EIS, its own checks. */
+export interface PolarizationResult {
+  name: Polarization;
+  tsp: {
+    peak: PeakValue;
+    percentiles: PercentileValue[];
+    coverage: CoveragePoint[];
+    relativeCoverage: RelativeCoveragePoint[];
+  };
+  beams: { id: string; peak: PeakValue; bestShare: number }[];
+  /** Checks judged on this polarization alone ('each'); [] where the verdict is on the total or the combined view. */
+  checks: CheckResult[];
+  /** This polarization's own verdict ('each'); null where it is not judged on its own. */
+  verdict: Verdict | null;
+}
 
 /** Grid facts reported with every unit (data quality section of the report). */
 export interface GridSummary {
@@ -367,6 +402,15 @@ export interface UnitResult {
   confidence?: UnitConfidence | null;
   /** Grid sufficiency estimate (issue 17). */
   gridAdequacy?: GridAdequacy | null;
+  /** θ/φ value pairs: each component's metrics (and, for EIS, its checks). */
+  polarizations?: PolarizationResult[];
+  /** How the components enter the verdict (set with `polarizations`). */
+  polarizationRule?: PolarizationRule;
+  /**
+   * 'each': the polarization that limits the unit (its TSP, beams and checks are the unit's
+   * top-level `tsp`, `beams`, maps and CDF); null otherwise.
+   */
+  limitingPolarization?: Polarization | null;
   /** Per beam, how far its peak direction moves across the measured frequencies (issue 9). */
   pointingDrift?: { beam: string; driftDeg: number; flagged: boolean; betweenHz: [number, number] | null }[] | null;
 }

@@ -14,6 +14,8 @@ export interface AnalyzeOptions {
   /** Limit set file or profile name. */
   limits?: string;
   quantity?: Quantity;
+  /** EIS θ/φ pairs: each polarization judged on its own (default) or the combined-sensitivity view. */
+  eisPolarizations?: 'each' | 'combined';
   pdf?: boolean;
   /** Skip the optional analysis (holes, beam removal, smallest subset). */
   coreOnly?: boolean;

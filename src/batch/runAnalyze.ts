@@ -256,6 +256,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null,
     ...(opts.coreOnly ? { coreOnly: true } : {}),
     uncertainty,
+    eisPolarizations: opts.eisPolarizations ?? 'each',
   });
   let referenceAfterReading = false;
   if (referenceArg !== undefined) {
@@ -371,6 +372,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
         relativeDb,
         limits: limitSet ? { name: limitSet.name, source: limitSet.source } : null,
         quantityOverride: opts.quantity ?? null,
+        eisPolarizations: opts.eisPolarizations ?? 'each',
         jobFile: job ? path.basename(job.source) : null,
         reference: reference ?? null,
         ...(uncertainty ? { uncertainty } : {}),

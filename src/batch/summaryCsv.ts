@@ -48,9 +48,20 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
     'peak_beam', 'peak_beam_trp_dbm', 'verdict', 'checks_failed', 'checks_not_evaluable', 'worst_check', 'worst_margin', 'worst_margin_unit', 'worst_margin_db',
     'full_sphere', 'unmeasured_sr', 'missing_points', 'warnings', 'error_location', 'error_message',
   ];
+  // θ/φ pairs (src/batch/polarizationUnits.ts): each polarization's own peak, levels and verdict,
+  // after the unit's metric columns (before full_sphere; the error columns stay last).
+  const pols = units.some((u) => u.polarizations?.length) ? (['theta', 'phi'] as const) : [];
+  const levels = [...new Set(units.flatMap((u) => u.polarizations?.flatMap((p) => p.tsp.percentiles.map((x) => x.levelPct)) ?? []))];
+  header.splice(header.indexOf('full_sphere'), 0, ...(pols.length ? ['polarization_rule', 'limiting_polarization'] : []),
+    ...pols.flatMap((p) => [`${p}_peak`, ...levels.map((l) => `${p}_p${String(l)}`), `${p}_verdict`]));
   type Keyed = { unit: string; f: number | null; row: CsvCell[] };
   const keyed: Keyed[] = units.map((u, k) => {
     const pb = u.beams[peakBeamIndex(metricsOfUnit(u))] ?? null;
+    const polCells: CsvCell[] = pols.length ? [u.polarizationRule ?? null, u.limitingPolarization ?? null] : [];
+    for (const p of pols) {
+      const r = u.polarizations?.find((x) => x.name === p);
+      polCells.push(r?.tsp.peak.value ?? null, ...levels.map((l) => r?.tsp.percentiles.find((x) => x.levelPct === l)?.value ?? null), r?.verdict ?? null);
+    }
     const row: CsvCell[] = [
       u.unit, u.frequencyHz, u.quantity, u.valueUnit, u.beams.length, u.grid.points, u.solidAngleSr, u.solidAngleSr / (4 * Math.PI),
       u.tsp.peak.value, u.tsp.peak.thetaDeg, u.tsp.peak.phiDeg,
@@ -59,6 +70,7 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
       u.checks.filter((c) => c.status === 'fail').length, u.checks.filter((c) => c.status === 'not-evaluable').length,
       u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null, u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,
       u.worstCheck ? (u.worstCheck.marginUnit === 'fraction' ? u.worstCheck.marginDb ?? null : u.worstCheck.margin) : null,
+      ...polCells,
       u.grid.fullSphere ? 'yes' : 'no', u.grid.fullSphere ? 0 : 4 * Math.PI - u.solidAngleSr, u.grid.missing?.length ?? 0, u.warnings?.length ?? 0, null, null,
     ];
     return { unit: u.unit, f: u.frequencyHz, row };

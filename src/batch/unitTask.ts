@@ -25,6 +25,7 @@ import { resolveUncertainty, type UncertaintySpec } from '../analysis/uncertaint
 import { assessConfidence } from '../analysis/uncertainty/assessConfidence.js';
 import { gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
 import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js';
+import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView } from './polarizationUnits.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -56,6 +57,8 @@ export interface TaskInput {
   referenceExternal?: boolean;
   /** Measurement uncertainty and decision rule (job file, else limit set); null: today's shared-risk verdicts only. */
   uncertainty?: UncertaintySpec | null;
+  /** How an EIS θ/φ pair is judged (src/batch/polarizationUnits.ts); default 'each'. */
+  eisPolarizations?: EisPolarizationView;
 }
 
 /** A reference unit's total scan pattern on its grid, with its result (plain data, cloneable). */
@@ -181,6 +184,7 @@ export async function renderUnit(
   tsp: TotalScanPattern,
   input: TaskInput,
   referenceDelta?: Float64Array,
+  componentTsps?: ComponentTsp[],
 ): Promise<UnitOutput> {
   if (!input.report) return { result, thumbnail: null, cdf: null, pdf: null };
   // The report modules (pdfkit, fonts) load only when PDFs are wanted: --no-pdf stays lean.
@@ -192,7 +196,10 @@ export async function renderUnit(
   // One CDF curve per unit serves its PDF and the build summary's overlay.
   const cdf = cdfCurve(tsp.values, m.grid.weightSr, m.quantity);
   const buf = await renderUnitPdf(
-    { result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta, tspCdf: cdf },
+    {
+      result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta, tspCdf: cdf,
+      polarizationCdfs: componentTsps?.map((c) => ({ name: c.name, curve: cdfCurve(c.values, c.weightSr, m.quantity) })),
+    },
     input.report,
   );
   return {
@@ -236,17 +243,22 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
   const usable = groupFailed ? [] : beams.filter((b) => !failedUnits.has(b.unit));
   const assembled = assembleMeasurements(usable, sources, { consumeRaw: true });
   errors.push(...assembled.errors);
-  const measured = assembled.measurements.map((m) => {
+  const withFileWarnings = (m: Measurement): Measurement => {
     const own = new Set(usable.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz).map((b) => b.file));
     const extra = [...own].sort().flatMap((f) => fileWarnings.get(f) ?? []);
     const known = new Set(m.warnings.map(warningText));
-    const merged = { ...m, warnings: collapseWarnings([...m.warnings, ...extra.filter((w) => !known.has(warningText(w)))]) };
-    return { m: merged, ...measureUnit(merged, input) };
-  });
+    return { ...m, warnings: collapseWarnings([...m.warnings, ...extra.filter((w) => !known.has(warningText(w)))]) };
+  };
+  // θ/φ pairs: the total (EIRP) or each polarization (EIS) carries the verdict.
+  const planned = planPolarizations(assembled.measurements, input.eisPolarizations ?? 'each');
+  errors.push(...planned.errors);
+  const measured = planned.plans.map((p) => measurePlan(
+    { ...p, main: withFileWarnings(p.main), components: p.rule === 'each' ? p.components.map(withFileWarnings) : p.components },
+    input, (m) => measureUnit(m, input)));
   // Extras across this group's own frequencies and against the reference, before the PDFs are drawn.
   crossUnitExtras(measured.map((u) => u.result), undefined);
   const units: UnitOutput[] = [];
-  for (const { m, result, tsp } of measured) {
+  for (const { m, result, tsp, componentTsps } of measured) {
     const self = m.unit === input.reference && !input.referenceExternal;
     const ref = self ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
     let delta: Float64Array | undefined;
@@ -254,7 +266,7 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
       result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOf(result), metricsOf(ref.result)) };
       delta = tspDifference(m.grid, tsp, ref.grid, ref.tsp);
     }
-    units.push(await renderUnit(m, result, tsp, input, delta));
+    units.push(await renderUnit(m, result, tsp, input, delta, componentTsps));
   }
   const referencePatterns = input.exportReference
     ? measured.filter((u) => input.exportAll || u.m.unit === input.reference).map((u) => ({ frequencyHz: u.m.frequencyHz, grid: u.m.grid, tsp: u.tsp, result: u.result }))

@@ -62,6 +62,7 @@ export function toAnalyzeOptions(input: string, o: Record<string, unknown>, io: 
     relativeDb: list('relativeDb', 'relative-db'),
     limits: str('limits'),
     quantity: str('quantity') as Quantity | undefined,
+    eisPolarizations: str('eisPolarizations') as 'each' | 'combined' | undefined,
     pdf: o.pdf !== false,
     coreOnly: o.coreOnly === true,
     jobs: str('jobs') !== undefined ? parseJobs(str('jobs') as string) : undefined,

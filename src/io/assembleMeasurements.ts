@@ -125,7 +125,9 @@ export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[], op
   const measurements: Measurement[] = [];
   const groups = new Map<string, RawBeam[]>();
   for (const b of beams) {
-    const key = `${b.unit}\u0000${b.frequencyHz ?? 'none'}`;
+    // One measurement per unit, frequency, quantity and polarization component: a unit measured
+    // both ways (EIRP and EIS exports) gives two measurements, paired later (src/batch/pairing).
+    const key = `${b.unit}\u0000${b.frequencyHz ?? 'none'}\u0000${b.quantity}\u0000${b.polarization ?? ''}`;
     const list = groups.get(key);
     if (list) list.push(b);
     else groups.set(key, [b]);
@@ -138,7 +140,9 @@ export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[], op
     const m = assembleOne(list, sources, errors, shared);
     if (m) {
       measurements.push(m);
-      warnings.push(...m.warnings);
+      // The components of a θ/φ pair repeat their total's warnings (same unit, files and grid): once is enough.
+      const said = new Set(warnings.map((w) => `${w.code}|${w.file}|${w.line}|${w.message}`));
+      warnings.push(...m.warnings.filter((w) => !said.has(`${w.code}|${w.file}|${w.line}|${w.message}`)));
     }
   }
   return { measurements, errors, warnings };
@@ -268,6 +272,7 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     return createMeasurement({
       unit: ref.unit, frequencyHz: ref.frequencyHz, quantity: ref.quantity, valueUnit: ref.valueUnit, grid: build.grid, beams: beamsOut,
       sources: sources.filter((s) => files.has(s.path)), warnings, metadata, mergedSamples: build.merged,
+      ...(ref.polarization ? { polarization: ref.polarization } : {}),
     });
   } catch (e) {
     errors.push({ file: ref.file, message: `${ref.file}: ${what} could not be assembled (${(e as Error).message}), expected a consistent set of beams` });

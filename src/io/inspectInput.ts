@@ -56,6 +56,7 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
     report.measurements.push({
       unit: m.unit, frequencyHz: m.frequencyHz, quantity: m.quantity, valueUnit: m.valueUnit,
       beams: m.beams.map((b) => b.id), files, grid: gridSummary(m), warnings: m.warnings,
+      ...(m.polarization ? { polarization: m.polarization } : {}),
     });
   }
   return report;
@@ -103,7 +104,8 @@ export function formatInspect(r: InspectReport): string {
   }
   for (const m of r.measurements) {
     const g = m.grid;
-    out.push('', `unit ${m.unit} at ${ghz(m.frequencyHz)}: ${m.quantity} (${m.valueUnit}), ${m.beams.length} beams from ${m.files.length} file(s)`);
+    const pol = m.polarization ? `, ${m.polarization === 'theta' ? 'θ' : 'φ'} polarization component` : '';
+    out.push('', `unit ${m.unit} at ${ghz(m.frequencyHz)}: ${m.quantity} (${m.valueUnit})${pol}, ${m.beams.length} beams from ${m.files.length} file(s)`);
     out.push(`  grid: ${g.kind}, ${g.points} points; θ ${n4(g.thetaRangeDeg[0])}–${n4(g.thetaRangeDeg[1])}° step ${g.thetaStepDeg === null ? 'varies' : `${n4(g.thetaStepDeg)}°`}; φ ${n4(g.phiRangeDeg[0])}–${n4(g.phiRangeDeg[1])}° step ${g.phiStepDeg === null ? 'varies' : `${n4(g.phiStepDeg)}°`}`);
     out.push(`  measured solid angle: ${g.solidAngleSr.toFixed(4)} sr (${((100 * g.solidAngleSr) / (4 * Math.PI)).toFixed(1)} % of 4π${g.fullSphere ? ', full sphere' : ''}); samples merged: ${g.duplicatesMerged}`);
     listErrors(out, [], m.warnings, '  ', true);

@@ -2,7 +2,7 @@ import type { UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js
 /**
  * Types of the readers (src/io): what one file read gives, the job file, and the inspect report.
  */
-import type { GridSummary, InputError, Quantity, ValueUnit, Warning } from '../types.js';
+import type { GridSummary, InputError, Polarization, Quantity, ValueUnit, Warning } from '../types.js';
 
 /** Export layouts the readers know (src/io/layouts/registry.ts). */
 export type LayoutName = 'long' | 'matrix' | 'wide';
@@ -96,6 +96,8 @@ export interface RawBeam {
   firstLine?: number;
   /** The file had dropout cells read as missing samples (job file dropout_tokens). */
   hasDropouts?: boolean;
+  /** One component of a θ/φ value pair (src/io/polarizationBeams.ts); absent for a total or single value. */
+  polarization?: Polarization;
 }
 
 export type IdentitySource = 'column' | 'metadata' | 'job' | 'folder' | 'file-name' | 'none';
@@ -162,6 +164,8 @@ export interface InspectMeasurement {
   files: string[];
   grid: InspectGrid;
   warnings: Warning[];
+  /** A θ/φ pair's component (the total, for EIRP/gain, has none). */
+  polarization?: Polarization;
 }
 
 export interface InspectReport {

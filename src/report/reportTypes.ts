@@ -1,4 +1,4 @@
-import type { BuildSummary, Measurement, TotalScanPattern, UnitNotAnalyzed, UnitResult } from '../types.js';
+import type { BuildSummary, Measurement, Polarization, TotalScanPattern, UnitNotAnalyzed, UnitResult } from '../types.js';
 import type { CdfCurve } from './cdfCurve.js';
 import type { ColorMapName } from './colorMap.js';
 
@@ -47,6 +47,8 @@ export interface UnitReportInput {
   referenceDelta?: Float64Array;
   /** The TSP's CDF curve when the caller already made it (cdfCurve of tsp.values); made here otherwise. */
   tspCdf?: CdfCurve;
+  /** θ/φ pairs: each polarization component's TSP CDF (src/report/polarizationSection.ts). */
+  polarizationCdfs?: { name: Polarization; curve: CdfCurve }[];
 }
 
 /** A small equal-area raster of a unit's TSP, plain data (transferable from a worker thread). */

@@ -12,6 +12,7 @@ import type { ReportSettings, UnitReportInput } from './reportTypes.js';
 import { beamColor, buildUnitMaps, DELTA_OUTLINE_DB, scaleT, type UnitMaps } from './unitMaps.js';
 import { drawAxes, px, py, type Axes } from './axes.js';
 import { formatMetric, metricLabel, metricsOfUnit, rowKey, rowMetrics, type MetricInstance } from '../metrics/catalogue.js';
+import { polarizationSection } from './polarizationSection.js';
 
 const PERCENTILE_RULE =
   'step rule: the smallest value whose solid-angle-weighted CDF over 4π reaches p; unmeasured solid angle counts as worst';
@@ -466,6 +467,7 @@ export async function renderUnitPdf(input: UnitReportInput, settings: ReportSett
     bestBeamSection(doc, input, maps, settings);
   }
   if (sec.coverage) coverageSection(doc, input, tspCurve);
+  if (r.polarizations?.length) polarizationSection(doc, { ...input, tspCdf: tspCurve });
   doc.addPage();
   if (sec.beams) beamsSection(doc, r);
   if (sec.holes) holesSection(doc, r);

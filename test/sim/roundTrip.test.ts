@@ -43,9 +43,22 @@ async function roundTrip(
   await writeExport(path, { grid: g, beams: exportBeams }, opts);
   const res = await readExportFile(path, { inputRoot: dir });
   expect(res.errors, `${name}: read errors`).toEqual([]);
-  expect(res.beams.map((b) => b.beam).sort()).toEqual(exportBeams.map((b) => b.id).sort());
+  // A θ/φ pair also gives its two components, tagged (src/io/polarizationBeams.ts); the totals are checked here.
+  const totals = res.beams.filter((b) => b.polarization === undefined);
+  expect(totals.map((b) => b.beam).sort()).toEqual(exportBeams.map((b) => b.id).sort());
+  if (opts.layout === 'pol-pair' || opts.layout === 'pol-column') {
+    for (const eb of exportBeams) {
+      for (const [pol, want] of [['theta', eb.thetaDb!], ['phi', eb.phiDb!]] as const) {
+        const c = res.beams.find((b) => b.beam === eb.id && b.polarization === pol)!;
+        expect(c, `${name} beam ${eb.id} ${pol} component`).toBeDefined();
+        const at = new Map<string, number>();
+        for (let i = 0; i < g.thetaDeg.length; i++) at.set(key(g.thetaDeg[i], g.phiDeg[i]), want[i]);
+        for (let i = 0; i < c.values.length; i++) expectClose(c.values[i], at.get(key(c.thetaDeg[i], c.phiDeg[i]))!, 0.005 + 1e-9, `${name} beam ${eb.id} ${pol} sample ${i}`); // printed with 2 decimals (or 6 significant mW digits, 2.2e−5 dB): ≤ 0.005 dB
+      }
+    }
+  }
   for (const eb of exportBeams) {
-    const rb = res.beams.find((b) => b.beam === eb.id)!;
+    const rb = totals.find((b) => b.beam === eb.id)!;
     const want = new Map<string, number>();
     for (let i = 0; i < g.thetaDeg.length; i++) want.set(key(g.thetaDeg[i], g.phiDeg[i]), expected(eb, i));
     expect(rb.values.length, `${name} beam ${eb.id}: sample count`).toBe(opts.layout === 'matrix' ? rb.values.length : g.thetaDeg.length);

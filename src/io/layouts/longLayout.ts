@@ -12,6 +12,7 @@ import { inputError } from '../inputError.js';
 import type { ColumnInfo, ColumnRole, JobSpec, RawBeam } from '../types.js';
 import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
 import { LongSink, type LongGroup } from './longSink.js';
+import { polarizationBeams } from '../polarizationBeams.js';
 import { angleColumns, assumedValueUnit, checkValueUnit, fail, FREQ_FACTORS, headerRoles, metadataQuantity, quantityOfFile, rolesForDetection, VALUE_ROLES } from './planParts.js';
 
 /** Long layout: num slots 0,1 = angles (θ,φ or el,az), 2(,3) = value(s), then frequency. */
@@ -187,16 +188,18 @@ function longBeams(groups: LongGroup[], plan: LongPlan, sink: LongSink, ctx: Bea
     assumed = true;
     return assumedFrequencyHz(raw);
   };
-  const make = (g: LongGroup, values: Float64Array): RawBeam => ({
+  const identityOf = (g: LongGroup): Omit<RawBeam, 'values'> => ({
     ...ctx.base,
     unit: g.unitId >= 0 ? keys.names[plan.unitKey][g.unitId] : ctx.fileUnit,
     beam: g.beamId >= 0 ? keys.names[plan.beamKey][g.beamId] : ctx.fileBeam,
     frequencyHz: freqOf(g.freqRaw),
-    thetaDeg: g.thetaDeg, phiDeg: g.phiDeg, values, firstLine: g.firstLine,
+    thetaDeg: g.thetaDeg, phiDeg: g.phiDeg, firstLine: g.firstLine,
   });
+  const make = (g: LongGroup, values: Float64Array): RawBeam => ({ ...identityOf(g), values });
   const beams: RawBeam[] = [];
   if (plan.polKey < 0) {
-    for (const g of groups) beams.push(make(g, g.values));
+    // A θ/φ value-column pair: the components become beams by quantity (polarizationBeams).
+    for (const g of groups) beams.push(...(g.valuesPhi ? polarizationBeams(identityOf(g), g.values, g.valuesPhi) : [make(g, g.values)]));
   } else {
     // Long-form polarization: pair the theta and phi groups of each (unit, beam, frequency).
     const pairs = new Map<string, [LongGroup | null, LongGroup | null]>();
@@ -216,9 +219,7 @@ function longBeams(groups: LongGroup[], plan: LongPlan, sink: LongSink, ctx: Bea
         errors.push(inputError(file, one.firstLine, 1, polCol.name, found, 'a theta and a phi row for every direction, in the same order', true));
         continue;
       }
-      const v = new Float64Array(t.values.length);
-      for (let i = 0; i < v.length; i++) v[i] = 10 * Math.log10(10 ** (t.values[i] / 10) + 10 ** (p.values[i] / 10)); // DESIGN.md "Polarization pair" (power sum)
-      beams.push(make(t, v));
+      beams.push(...polarizationBeams(identityOf(t), t.values, p.values));
     }
     if (errors.length) return { errors };
   }

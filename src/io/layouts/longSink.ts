@@ -1,4 +1,4 @@
-import { mwToDbm, powerSumDb, wToDbm } from '../../units.js';
+import { mwToDbm, wToDbm } from '../../units.js';
 import { pairComponent } from '../columnRoles.js';
 import type { LongPlan } from './longLayout.js';
 import type { DropoutLog } from './dropoutLog.js';
@@ -15,6 +15,8 @@ interface Group {
   polId: number;
   freqRaw: number;
   acc: SampleAccumulator;
+  /** The φ component of a θ/φ value pair (acc then holds the θ component). */
+  accPhi: SampleAccumulator | null;
 }
 
 /** A finished group before identity and polarization are resolved. */
@@ -27,13 +29,16 @@ export interface LongGroup {
   firstLine: number;
   thetaDeg: Float64Array;
   phiDeg: Float64Array;
+  /** The value, or the θ component when the file has a θ/φ value pair. */
   values: Float64Array;
+  /** The φ component of a θ/φ value pair (same directions as values). */
+  valuesPhi?: Float64Array;
 }
 
 /**
  * Long-layout rows → per (unit, beam, pol, frequency) sample groups. Checks angle ranges,
- * converts az/el, radians and linear power (mW, W → dBm) and sums a θ/φ polarization pair
- * (power sum, DESIGN.md "Polarization pair").
+ * converts az/el, radians and linear power (mW, W → dBm) and keeps both components of a θ/φ
+ * value pair (the reader decides how they combine: src/io/polarizationBeams.ts).
  */
 export class LongSink implements RowSink {
   rows = 0;
@@ -99,10 +104,11 @@ export class LongSink implements RowSink {
     let value: number | null = nums[2];
     if (this.linear) value = this.toDb(value, 2, line, loc);
     if (value === null) return;
+    let phiValue = NaN;
     if (p.pairValues) {
       const b = this.toDb(nums[3], 3, line, loc);
       if (b === null) return;
-      value = powerSumDb(value, b); // DESIGN.md "Polarization pair": 10·log10(10^(a/10) + 10^(b/10))
+      phiValue = b;
     }
     let freqRaw = NaN;
     if (p.freqSlot >= 0) {
@@ -128,6 +134,7 @@ export class LongSink implements RowSink {
       this.last = g;
     }
     g.acc.push(thetaDeg, phiDeg, value);
+    if (g.accPhi) g.accPhi.push(thetaDeg, phiDeg, phiValue);
     this.rows++;
   }
 
@@ -146,7 +153,10 @@ export class LongSink implements RowSink {
     let g = this.byKey.get(key);
     if (!g) {
       const template = this.groups.length ? this.groups[0].acc : null;
-      g = { unitId, beamId, polId, freqRaw, acc: new SampleAccumulator(template, line) };
+      const acc = new SampleAccumulator(template, line);
+      // The φ component follows the θ component's directions (the first group's, or its own group's).
+      const accPhi = this.plan.pairValues ? new SampleAccumulator(template ?? acc, line) : null;
+      g = { unitId, beamId, polId, freqRaw, acc, accPhi };
       this.groups.push(g);
       this.byKey.set(key, g);
     }
@@ -162,6 +172,7 @@ export class LongSink implements RowSink {
       freqRaw: g.freqRaw,
       firstLine: g.acc.firstLine,
       ...g.acc.finish(),
+      ...(g.accPhi ? { valuesPhi: g.accPhi.finish().values } : {}),
     }));
   }
 }
