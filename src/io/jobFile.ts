@@ -6,6 +6,7 @@ import { clipText } from './inputError.js';
 import { parseNumberText } from './numberText.js';
 import { readTrustedText, TrustedFileError } from './trustedFile.js';
 import { yamlToJs } from './yamlToJs.js';
+import { identityPatternProblem } from './identityPattern.js';
 import type { CalibrationPoint, ColumnRole, JobSpec } from './types.js';
 import { QUANTITIES } from '../quantity.js';
 import { validateUncertainty } from '../analysis/uncertainty/uncertaintySpec.js';
@@ -165,10 +166,9 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
       for (const k of ['unit', 'beam', 'frequency_ghz'] as const) {
         const s = c.string(id[k], ['identity', k]);
         if (s === undefined) continue;
-        try {
-          new RegExp(s);
-        } catch {
-          c.fail(['identity', k], s, 'a valid regular expression (group 1 is the value)');
+        const problem = identityPatternProblem(s);
+        if (problem !== null) {
+          c.fail(['identity', k], s, `a regular expression the linear-time RE2 engine accepts (group 1 is the value; no back-references or look-around): ${clipText(problem)}`);
           continue;
         }
         job.identity[k === 'frequency_ghz' ? 'frequencyGhz' : k] = s;

@@ -1,4 +1,5 @@
 import type { IdentitySource, JobSpec } from './types.js';
+import { identityCapture } from './identityPattern.js';
 
 export interface PathIdentity {
   unit: string;
@@ -14,12 +15,10 @@ const BEAM_RE = new RegExp(`(^|${SEP})(beam[_-]?(\\d+)|b(\\d+))(?=$|${SEP})`, 'i
 const FREQ_RE = new RegExp(`(^|${SEP})(\\d+(?:[.p]\\d+)?)\\s?ghz(?=$|${SEP})`, 'i');
 const LINK_RE = new RegExp(`(^|${SEP})(tx|rx)(?=$|${SEP})`, 'i');
 
-/** First capture group (or the whole match) of a job-file identity pattern. */
+/** First capture group (or the whole match) of a job-file identity pattern (linear-time RE2 engine). */
 function capture(pattern: string | undefined, relPath: string): string | null {
   if (!pattern) return null;
-  const m = new RegExp(pattern).exec(relPath);
-  if (!m) return null;
-  return (m[1] ?? m[0]).trim() || null;
+  return identityCapture(pattern, relPath);
 }
 
 /**

@@ -270,3 +270,23 @@ describe('a shared output folder', () => {
     expect(finalFiles(out)).toContain('results.json');
   });
 });
+
+describe('identity patterns that cannot hang', () => {
+  it("'^(a+)+$' against a 40-character folder name completes (RE2: linear time; a backtracking engine needs 2^40 steps)", () => {
+    const dir = path.join(tmp('re'), 'in');
+    cpSync(path.join(PASS, 'U-01'), path.join(dir, `${'a'.repeat(40)}b`), { recursive: true });
+    writeFileSync(path.join(dir, 'spherecov.yaml'), "identity:\n  unit: '^(a+)+$'\n");
+    const out = tmp('o');
+    const r = analyze(dir, out, ['--no-pdf']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    // The pattern does not match (the name ends in b): the path rule names the unit.
+    const res = JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8')) as ResultsFile;
+    expect(res.units.map((u) => u.unit)).toEqual([`${'a'.repeat(40)}b`]);
+  });
+
+  it('a pattern RE2 refuses (a back-reference) is a job-file error with its key path and position', () => {
+    const r = analyze(input("identity:\n  unit: '(PX)-\\1'\n"), tmp('o'), ['--no-pdf']);
+    expectUserError(r, /spherecov\.yaml:2:9: identity\.unit: found '\(PX\)-\\1', expected a regular expression the linear-time RE2 engine accepts .*invalid escape sequence/);
+  });
+});
