@@ -1,10 +1,13 @@
 /**
- * One run at a time per output folder: a lock file holding the owner's pid. A lock whose pid
- * no longer runs is stale (a killed run) and is taken over.
+ * One run at a time per output folder: a lock file holding the owner's pid, host, start time
+ * and (on Linux) the process start time. A lock is stale (a killed run) and taken over when its
+ * pid no longer runs, when that pid now belongs to another process, or when it is older than a
+ * day; see livePid.
  */
 import { linkSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
+import { hostname } from 'node:os';
 
 export const LOCK_NAME = '.spherecov.lock';
 
@@ -29,15 +32,56 @@ function readText(file: string): string | null {
   }
 }
 
-/** The pid of a live owner named in a lock text, or null when the lock is stale. */
-function livePid(text: string): number | null {
-  let pid = NaN;
+/**
+ * A lock older than this is taken over whatever its pid says: no run lasts a day, and a pid is
+ * not proof of life (it may have been reused by an unrelated process, or belong to another host
+ * sharing the folder).
+ */
+export const LOCK_MAX_AGE_MS = 24 * 3600 * 1000;
+
+/**
+ * Start time of process `pid` in clock ticks since boot (Linux /proc/<pid>/stat, field 22), or
+ * null where /proc is not available. Together with the pid it names one process: a pid reused
+ * by a later process has a later start time.
+ */
+export function processStartTicks(pid: number): string | null {
   try {
-    pid = Number((JSON.parse(text) as { pid?: unknown }).pid);
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    // The command name (field 2) is in parentheses and may contain spaces: count after the last ')'.
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return fields[19] ?? null;
   } catch {
-    pid = NaN; // unreadable lock: not one of ours (ours are complete before they appear), so stale
+    return null;
   }
-  return Number.isInteger(pid) && pid > 0 && pid !== process.pid && alive(pid) ? pid : null;
+}
+
+interface LockInfo { pid?: unknown; startedAt?: unknown; host?: unknown; procStart?: unknown }
+
+/**
+ * The pid of a live owner named in a lock text, or null when the lock is stale: unreadable (ours
+ * are complete before they appear), older than LOCK_MAX_AGE_MS, written on this host by a pid
+ * that no longer runs, or by a pid now held by another process (its start time differs from the
+ * one recorded). A lock from another host sharing the folder cannot be checked and holds until
+ * it is LOCK_MAX_AGE_MS old.
+ */
+function livePid(text: string, now: number = Date.now()): number | null {
+  let info: LockInfo;
+  try {
+    info = JSON.parse(text) as LockInfo;
+  } catch {
+    return null;
+  }
+  const pid = Number(info.pid);
+  if (!Number.isInteger(pid) || pid <= 0 || pid === process.pid) return null;
+  const started = typeof info.startedAt === 'string' ? Date.parse(info.startedAt) : NaN;
+  if (Number.isFinite(started) && now - started > LOCK_MAX_AGE_MS) return null;
+  if (typeof info.host === 'string' && info.host !== hostname()) return pid;
+  if (!alive(pid)) return null;
+  if (typeof info.procStart === 'string') {
+    const nowStart = processStartTicks(pid);
+    if (nowStart !== null && nowStart !== info.procStart) return null;
+  }
+  return pid;
 }
 
 function busy(pid: number, dir: string): LockBusyError {
@@ -59,7 +103,8 @@ export function acquireLock(dir: string): () => void {
     // shared output folder is never followed.
     const tmp = `${file}.${randomBytes(8).toString('hex')}.tmp`;
     try {
-      writeFileSync(tmp, JSON.stringify({ pid: process.pid, startedAt: new Date().toISOString() }) + '\n', { flag: 'wx' });
+      const info = { pid: process.pid, startedAt: new Date().toISOString(), host: hostname(), procStart: processStartTicks(process.pid) ?? undefined };
+      writeFileSync(tmp, JSON.stringify(info) + '\n', { flag: 'wx' });
       try {
         linkSync(tmp, file);
       } finally {

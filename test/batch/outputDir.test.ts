@@ -4,7 +4,8 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { createHash } from 'node:crypto';
 import { MANIFEST_NAME, OutputWriter, outputDirProblem } from '../../src/batch/outputDir.js';
-import { acquireLock, LOCK_NAME, LockBusyError } from '../../src/batch/lock.js';
+import { acquireLock, LOCK_MAX_AGE_MS, LOCK_NAME, LockBusyError, processStartTicks } from '../../src/batch/lock.js';
+import { hostname } from 'node:os';
 
 let dir: string;
 beforeEach(() => {
@@ -124,6 +125,34 @@ describe('lock', () => {
     const again = acquireLock(dir);
     again();
     expect(existsSync(path.join(dir, LOCK_NAME))).toBe(false);
+    release();
+  });
+
+  it('judges a lock by more than its pid: a reused pid (other start time) and a day-old lock are taken over; another host waits', () => {
+    const mine = processStartTicks(process.pid);
+    const other = { pid: process.pid === 1 ? 2 : 1 };
+    // pid 1 runs, but its recorded start time is not the one /proc reports: the pid was reused.
+    if (mine !== null) {
+      writeFileSync(path.join(dir, LOCK_NAME), JSON.stringify({ ...other, host: hostname(), procStart: 'not-that-process', startedAt: new Date().toISOString() }));
+      acquireLock(dir)();
+      // The same pid with its true start time is a live owner.
+      writeFileSync(path.join(dir, LOCK_NAME), JSON.stringify({ ...other, host: hostname(), procStart: processStartTicks(other.pid), startedAt: new Date().toISOString() }));
+      expect(() => acquireLock(dir)).toThrow(LockBusyError);
+    }
+    writeFileSync(path.join(dir, LOCK_NAME), JSON.stringify({ ...other, startedAt: new Date(Date.now() - LOCK_MAX_AGE_MS - 60_000).toISOString() }));
+    acquireLock(dir)();
+    writeFileSync(path.join(dir, LOCK_NAME), JSON.stringify({ pid: 2 ** 22 + 7, host: `not-${hostname()}`, startedAt: new Date().toISOString() }));
+    expect(() => acquireLock(dir)).toThrow(LockBusyError);
+    rmSync(path.join(dir, LOCK_NAME));
+  });
+
+  it('records pid, host, start time and process start in the lock it writes', () => {
+    const release = acquireLock(dir);
+    const info = JSON.parse(readFileSync(path.join(dir, LOCK_NAME), 'utf8'));
+    expect(info.pid).toBe(process.pid);
+    expect(info.host).toBe(hostname());
+    expect(Number.isFinite(Date.parse(info.startedAt))).toBe(true);
+    expect(info.procStart).toBe(processStartTicks(process.pid) ?? undefined);
     release();
   });
 });
