@@ -374,7 +374,13 @@ export interface BeamSubset {
 
 /** One entry of results.json `units` (CONTRACT.md fields first, extras after). */
 export interface UnitResult {
+  /** Unit name in Unicode NFC form (names that differ only in normalization are one unit). */
   unit: string;
+  /**
+   * The unit's name exactly as the files wrote it, when that differs from `unit` (another
+   * Unicode normalization form): every distinct spelling, sorted. Absent otherwise.
+   */
+  unitAsWritten?: string[];
   frequencyHz: number | null;
   quantity: Quantity;
   valueUnit: ValueUnit;

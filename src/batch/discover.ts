@@ -159,5 +159,6 @@ export function toPosix(p: string): string {
  * turn out to share a unit.
  */
 export function groupKey(relPosix: string, job?: JobSpec, rootName?: string): string {
-  return pathIdentity(relPosix, job, rootName).unit;
+  // NFC: folders named alike in two Unicode forms are one unit's group.
+  return pathIdentity(relPosix, job, rootName).unit.normalize('NFC');
 }

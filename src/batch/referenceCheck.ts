@@ -39,7 +39,8 @@ export type ReferenceCheck = { kind: 'unit'; unit: string } | { kind: 'folder'; 
  * @throws Error with a one-line message when the value names nothing
  */
 export function checkReference(ref: string, input: string, groupKeys: Set<string>, files: string[], job: JobSpec | null): ReferenceCheck {
-  if (groupKeys.has(ref)) return { kind: 'unit', unit: ref };
+  // Unit names are compared in Unicode NFC, the form the build's units are grouped in.
+  if (groupKeys.has(ref.normalize('NFC'))) return { kind: 'unit', unit: ref.normalize('NFC') };
   const candidate = path.resolve(ref);
   const rel = path.relative(input, candidate);
   const inside = rel === '' || (!rel.startsWith('..') && !path.isAbsolute(rel));

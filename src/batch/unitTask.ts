@@ -225,10 +225,20 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
   const failedUnits = new Set<string>();
   /** Every unit named by any row of this group (readable or not), with its files. */
   const seen = new Map<string, Set<string>>();
+  const spellings = new Map<string, Set<string>>();
   let groupFailed = false;
   const ctx = { inputRoot: input.inputRoot, job: input.job ?? undefined, quantityOverride: input.quantityOverride };
   for (const f of input.files) {
     const r = await readExportFile(f, ctx);
+    // One Unicode form (NFC) for unit and beam names before anything groups by them: 'é' typed
+    // as one code point or as e + combining accent is one unit. The spellings as written are
+    // kept for results.json (unitAsWritten).
+    for (const b of r.beams) {
+      const unit = b.unit.normalize('NFC');
+      spellings.set(unit, (spellings.get(unit) ?? new Set()).add(b.unit));
+      b.unit = unit;
+      b.beam = b.beam.normalize('NFC');
+    }
     sources.push({ path: r.file, sha256: r.sha256 });
     errors.push(...r.errors);
     fileWarnings.set(r.file, r.warnings);
@@ -259,6 +269,8 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
   crossUnitExtras(measured.map((u) => u.result), undefined);
   const units: UnitOutput[] = [];
   for (const { m, result, tsp, componentTsps } of measured) {
+    const written = [...(spellings.get(result.unit) ?? [])].sort();
+    if (written.some((w) => w !== result.unit)) result.unitAsWritten = written;
     const self = m.unit === input.reference && !input.referenceExternal;
     const ref = self ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
     let delta: Float64Array | undefined;

@@ -290,3 +290,27 @@ describe('identity patterns that cannot hang', () => {
     expectUserError(r, /spherecov\.yaml:2:9: identity\.unit: found '\(PX\)-\\1', expected a regular expression the linear-time RE2 engine accepts .*invalid escape sequence/);
   });
 });
+
+describe('Unicode names', () => {
+  it('a unit name in NFC and NFD forms is one unit; the spellings as written are kept in results.json', () => {
+    const nfc = 'Caf\u00e9-01';
+    const nfd = 'Cafe\u0301-01';
+    expect(nfc).not.toBe(nfd);
+    expect(nfd.normalize('NFC')).toBe(nfc);
+    const dir = path.join(tmp('nfc'), 'in');
+    const src = path.join(PASS, 'U-01');
+    const beams = readdirSync(src).sort();
+    mkdirSync(path.join(dir, nfc), { recursive: true });
+    mkdirSync(path.join(dir, nfd), { recursive: true });
+    // Half of the unit's beams in each folder (the same unit copied from two chamber PCs).
+    beams.forEach((f, i) => cpSync(path.join(src, f), path.join(dir, i % 2 ? nfd : nfc, f)));
+    const out = tmp('o');
+    const r = analyze(dir, out, ['--no-pdf']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const res = JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8')) as ResultsFile;
+    expect(res.units.map((u) => u.unit)).toEqual([nfc]);
+    expect(res.units[0].beams).toHaveLength(beams.length);
+    expect(res.units[0].unitAsWritten).toEqual([nfd, nfc].sort());
+  });
+});
