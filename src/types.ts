@@ -291,6 +291,8 @@ export interface UnitConfidence {
   coverage: { threshold: number; efficiency: number; bias: number | null; stdDev: number | null }[];
   /** Candidate (direction, beam) pairs drawn per trial (the cost driver). */
   pairsPerDraw: number;
+  /** The 95 % band of the bias-corrected CDF at evenly spaced levels (for the report's band). */
+  band: { levelPct: number; low95: number | null; high95: number | null }[];
 }
 
 /** Grid sufficiency of one unit, from re-reading it on sub-grids of itself (src/analysis/gridAdequacy). */

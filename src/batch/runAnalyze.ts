@@ -12,6 +12,7 @@ import { metricNeeds } from '../limits/metricNeeds.js';
 import { mergeLimitSets } from '../limits/mergeLimitSets.js';
 import { validateExtraChecks } from '../limits/validateLimitSet.js';
 import { buildStatistics } from '../limits/buildStatistics.js';
+import { buildConfidence } from '../analysis/uncertainty/buildConfidence.js';
 import { loadReportSettings, ReportSettingsError } from '../report/settings.js';
 import { unitKey, type MapThumbnail, type ReportSettings } from '../report/reportTypes.js';
 import type { CdfCurve } from '../report/cdfCurve.js';
@@ -360,6 +361,8 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     const looseWarnings: Warning[] = outputs.flatMap((o) => o.warnings);
     const referenceProblem = crossUnitExtras(units, reference, referenceDir !== null);
     const build = units.length + notAnalyzed.length > 0 ? buildStatistics(units, notAnalyzed) : null;
+    const sure = buildConfidence(units); // issue 17: only when the units carry a measurement uncertainty
+    if (build && sure) build.confidence = sure;
 
     const results: ResultsFile = {
       schemaVersion: 1,

@@ -3,6 +3,7 @@
  */
 import type { BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
 import { errorLocation, errorMessage } from '../report/unitStatus.js';
+import { confidenceColumns } from '../analysis/uncertainty/confidenceColumns.js';
 import { toCsv, type CsvCell } from './csv.js';
 import { coverageMetricValues, csvColumn, FAMILY_ORDER, metricsOfUnit, peakBeamIndex, type MetricValue } from '../metrics/catalogue.js';
 
@@ -41,6 +42,7 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
     return m;
   });
   const columns = metricColumns(perUnit);
+  const sure = confidenceColumns(units); // issue 17: only when a unit carries a measurement uncertainty
   const header = [
     'unit', 'frequency_hz', 'quantity', 'value_unit', 'beams', 'points', 'measured_solid_angle_sr', 'measured_fraction',
     'peak', 'peak_theta_deg', 'peak_phi_deg',
@@ -54,6 +56,7 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
   const levels = [...new Set(units.flatMap((u) => u.polarizations?.flatMap((p) => p.tsp.percentiles.map((x) => x.levelPct)) ?? []))];
   header.splice(header.indexOf('full_sphere'), 0, ...(pols.length ? ['polarization_rule', 'limiting_polarization'] : []),
     ...pols.flatMap((p) => [`${p}_peak`, ...levels.map((l) => `${p}_p${String(l)}`), `${p}_verdict`]));
+  header.splice(header.indexOf('full_sphere'), 0, ...sure.header);
   type Keyed = { unit: string; f: number | null; row: CsvCell[] };
   const keyed: Keyed[] = units.map((u, k) => {
     const pb = u.beams[peakBeamIndex(metricsOfUnit(u))] ?? null;
@@ -71,6 +74,7 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
       u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null, u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,
       u.worstCheck ? (u.worstCheck.marginUnit === 'fraction' ? u.worstCheck.marginDb ?? null : u.worstCheck.margin) : null,
       ...polCells,
+      ...sure.cells(u),
       u.grid.fullSphere ? 'yes' : 'no', u.grid.fullSphere ? 0 : 4 * Math.PI - u.solidAngleSr, u.grid.missing?.length ?? 0, u.warnings?.length ?? 0, null, null,
     ];
     return { unit: u.unit, f: u.frequencyHz, row };

@@ -126,7 +126,7 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     : { checks: [], verdict: 'none' as const, worstCheck: null };
   const warnings = m.warnings.map(warningText);
   // How sure the verdict is (issue 17): only with an uncertainty for this quantity; else nothing changes.
-  const resolved = resolveUncertainty(input.uncertainty, m.quantity);
+  const resolved = resolveUncertainty(input.uncertainty, m.quantity, m.grid.thetaDeg.length);
   let confidence: UnitResult['confidence'];
   if (resolved) {
     const assessed = assessConfidence({ grid: m.grid, beams: m.beams, quantity: m.quantity, tsp, metrics, limitSet: ls, judged, uncertainty: resolved });

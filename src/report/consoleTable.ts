@@ -5,6 +5,7 @@
  */
 import type { ResultsFile } from '../types.js';
 import { fmt, fmtFrequency } from './format.js';
+import { expectedConformingText, howSureText } from '../analysis/uncertainty/confidenceColumns.js';
 import { errorLocation, errorMessage, verdictWord, worstMarginText } from './unitStatus.js';
 
 /** Plain-text table: columns padded to their widest cell (code points), two spaces apart. */
@@ -27,6 +28,7 @@ function ofText(n: number, d: number): string {
  */
 export function consoleTable(results: Pick<ResultsFile, 'units' | 'unitsNotAnalyzed' | 'build' | 'errors'>, written: string[], outDir: string): string {
   type Row = { unit: string; f: number | null; cells: string[] };
+  const sure = results.units.some((u) => u.confidence); // issue 17: a "how sure" column only with an uncertainty
   const rows: Row[] = results.units.map((u) => ({
     unit: u.unit,
     f: u.frequencyHz,
@@ -38,22 +40,24 @@ export function consoleTable(results: Pick<ResultsFile, 'units' | 'unitsNotAnaly
       worstMarginText(u),
       u.grid.fullSphere ? 'full' : `partial ${fmt((100 * u.solidAngleSr) / (4 * Math.PI), 1)} %`,
       String(u.warnings.length),
+      ...(sure ? [howSureText(u)] : []),
     ],
   }));
   for (const e of results.unitsNotAnalyzed) {
     rows.push({
       unit: e.unit,
       f: e.frequencyHz,
-      cells: [e.unit, e.frequencyHz === null ? '—' : fmtFrequency(e.frequencyHz), 'ERROR', `unreadable: ${errorLocation(e.error)}`, '—', '—', '—'],
+      cells: [e.unit, e.frequencyHz === null ? '—' : fmtFrequency(e.frequencyHz), 'ERROR', `unreadable: ${errorLocation(e.error)}`, '—', '—', '—', ...(sure ? ['—'] : [])],
     });
   }
   rows.sort((a, b) => (a.unit < b.unit ? -1 : a.unit > b.unit ? 1 : (a.f ?? -1) - (b.f ?? -1)));
-  let text = textTable(['unit', 'frequency', 'verdict', 'worst check', 'margin', 'sphere', 'warnings'], rows.map((r) => r.cells));
+  let text = textTable(['unit', 'frequency', 'verdict', 'worst check', 'margin', 'sphere', 'warnings', ...(sure ? ['how sure'] : [])], rows.map((r) => r.cells));
   const b = results.build;
   if (b) {
     const judged = b.passed + b.failed;
     text += `\n${b.unitsInBuild} unit(s) in the build: ${b.passed} passed, ${b.failed} failed, ${b.notJudged} not judged, ${b.errored} could not be read or analyzed.\n`;
     text += `Yield: ${ofText(b.passed, b.unitsInBuild)} units in the build passed; ${ofText(b.passed, judged)} judged units passed.\n`;
+    if (b.confidence) text += `${expectedConformingText(b.confidence)}\n`;
   }
   if (results.unitsNotAnalyzed.length > 0) {
     text += '\n';

@@ -13,6 +13,7 @@ import { beamColor, buildUnitMaps, DELTA_OUTLINE_DB, scaleT, type UnitMaps } fro
 import { drawAxes, px, py, type Axes } from './axes.js';
 import { formatMetric, metricLabel, metricsOfUnit, rowKey, rowMetrics, type MetricInstance } from '../metrics/catalogue.js';
 import { polarizationSection } from './polarizationSection.js';
+import { confidencePage } from './confidencePage.js';
 
 const PERCENTILE_RULE =
   'step rule: the smallest value whose solid-angle-weighted CDF over 4π reaches p; unmeasured solid angle counts as worst';
@@ -468,6 +469,10 @@ export async function renderUnitPdf(input: UnitReportInput, settings: ReportSett
   }
   if (sec.coverage) coverageSection(doc, input, tspCurve);
   if (r.polarizations?.length) polarizationSection(doc, { ...input, tspCdf: tspCurve });
+  if (r.confidence || r.gridAdequacy) {
+    doc.addPage();
+    confidencePage(doc, r, tspCurve); // "How sure is this verdict" (src/report/confidencePage.ts)
+  }
   doc.addPage();
   if (sec.beams) beamsSection(doc, r);
   if (sec.holes) holesSection(doc, r);

@@ -4,11 +4,15 @@ import { betterSign } from '../../quantity.js';
 import { summarizeChecks, type JudgeResult } from '../../limits/judge.js';
 import { weightedCdf } from '../../coverage/weightedCdf.js';
 import { coverageEfficiency } from '../../coverage/coverageEfficiency.js';
+import { percentile } from '../../coverage/percentile.js';
 import type { ResolvedUncertainty } from './uncertaintySpec.js';
 import { monteCarloMetrics, type MonteCarloDraws } from './monteCarloMetrics.js';
 import { decideCoverage, decideValue } from './decisionRule.js';
 import { binomialStdErr } from './binomialStdErr.js';
 import { drawSummary } from './drawSummary.js';
+
+/** Levels of the report's uncertainty band: 1 %, 3.5 % … 98.5 % (every 2.5 %) and the ends. */
+const BAND_LEVELS_PCT = [0, ...Array.from({ length: 40 }, (_, i) => 1 + 2.5 * i), 100];
 
 const SEVERITY: ConformityStatement[] = ['pass', 'conditional pass', 'conditional fail', 'fail'];
 
@@ -43,7 +47,8 @@ export function assessConfidence(a: {
   const { grid, quantity, metrics, uncertainty: u } = a;
   const ls = a.limitSet;
   const sense = betterSign(quantity);
-  const levels = metrics.percentiles.map((p) => p.levelPct);
+  const reported = metrics.percentiles.map((p) => p.levelPct);
+  const levels = [...reported, ...BAND_LEVELS_PCT];
   const thresholds = metrics.coverage.map((c) => c.threshold);
   for (const c of ls?.checks ?? []) if (c.kind === 'min-coverage' && !thresholds.includes(c.threshold)) thresholds.push(c.threshold);
   const hasTrp = ls?.checks.some((c) => c.kind === 'max-trp') ?? false;
@@ -77,7 +82,7 @@ export function assessConfidence(a: {
       if (ok) met++; else allMet[k] = 0;
     }
     const p = met / N;
-    const sum = drawSummary(series.value, series.draws);
+    const sum = drawSummary(series.value, series.draws, spec.kind === 'min-coverage' ? undefined : mc.common);
     const params = { rule: u.decisionRule, toleranceDb: spec.toleranceDb, guardBandDb: u.guardBandDb, expandedDb: u.expandedDb };
     const rejudged: CheckResult = { ...c };
     let statement: ConformityStatement;
@@ -136,7 +141,7 @@ export function assessConfidence(a: {
     probabilityStdErr: unitP === null ? null : binomialStdErr(unitP, N),
     statement,
     percentiles: metrics.percentiles.map((p, l) => {
-      const s = p.value === null ? null : drawSummary(p.value, mc.percentiles[l]);
+      const s = p.value === null ? null : drawSummary(p.value, mc.percentiles[l], mc.common);
       return { levelPct: p.levelPct, value: p.value, biasDb: s?.bias ?? null, stdDevDb: s?.stdDev ?? null, low95: s?.low95 ?? null, high95: s?.high95 ?? null };
     }),
     coverage: metrics.coverage.map((c) => {
@@ -144,6 +149,12 @@ export function assessConfidence(a: {
       return { threshold: c.threshold, efficiency: c.efficiency, bias: s.bias, stdDev: s.stdDev };
     }),
     pairsPerDraw: mc.pairsPerDraw,
+    band: BAND_LEVELS_PCT.map((levelPct, j) => {
+      const l = reported.length + j;
+      const v = percentile(cdf, levelPct, quantity);
+      const s = v === null ? null : drawSummary(v, mc.percentiles[l]);
+      return { levelPct, low95: s?.low95 ?? null, high95: s?.high95 ?? null };
+    }),
   };
   return { judged, confidence };
 }

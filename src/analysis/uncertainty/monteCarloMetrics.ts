@@ -33,6 +33,8 @@ export interface MonteCarloDraws {
   trpDbm: Float64Array[];
   /** Candidate (direction, beam) pairs drawn per draw: the cost driver. */
   pairsPerDraw: number;
+  /** The common draw of each trial as a shift of the values (c; −c for eis), for bias estimates free of its scatter. */
+  common: Float64Array;
 }
 
 /**
@@ -79,6 +81,7 @@ export function monteCarloMetrics(
     beamPeaks: req.beamPeaks ? beams.map(() => new Float64Array(N)) : [],
     trpDbm: beams.map((_, b) => (req.trpDbm?.[b] != null ? new Float64Array(N) : new Float64Array(0))),
     pairsPerDraw: 0,
+    common: new Float64Array(N),
   };
   // Best goodness per direction (the measured TSP) and per beam (the measured beam peak).
   const best = new Float64Array(n).fill(-Infinity);
@@ -128,6 +131,7 @@ export function monteCarloMetrics(
   const star = new Float64Array(n);
   for (let k = 0; k < N; k++) {
     const c = u.commonDb * rng.normal(); // Eq. (M1), common part
+    out.common[k] = s * c;
     if (ur > 0) {
       let peak = -Infinity;
       for (let i = 0; i < n; i++) {
