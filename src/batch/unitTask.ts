@@ -251,7 +251,7 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     beams.push(...r.beams);
   }
   const usable = groupFailed ? [] : beams.filter((b) => !failedUnits.has(b.unit));
-  const assembled = assembleMeasurements(usable, sources, { consumeRaw: true });
+  const assembled = assembleMeasurements(usable, sources, { consumeRaw: true, mergeRule: input.job?.mergeRule });
   errors.push(...assembled.errors);
   const withFileWarnings = (m: Measurement): Measurement => {
     const own = new Set(usable.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz).map((b) => b.file));

@@ -3,6 +3,7 @@ import { createMeasurement } from '../measurement.js';
 import { buildSphereGrid, type GridBuild } from '../sphere/buildGrid.js';
 import { gridWarnings } from '../sphere/gridWarnings.js';
 import { mergeSamples } from '../sphere/mergeSamples.js';
+import { CONFLICT_DB, mergeByOrder, mergeConflicts, type MergeRule } from '../sphere/mergeConflicts.js';
 import { resampleBeam } from '../sphere/resample.js';
 import type { BeamPattern, InputError, Measurement, SourceFile, Warning } from '../types.js';
 import { warning } from '../warnings.js';
@@ -28,6 +29,12 @@ export interface AssembleOptions {
    * become empty arrays). For callers that do not read raw values afterwards (the batch).
    */
   consumeRaw?: boolean;
+  /**
+   * How coincident samples (φ seam, poles, repeated rows) become one value (job file
+   * `merge_rule`): power average (default), the first or last sample in file order, or refuse
+   * the unit when any merge spreads by more than CONFLICT_DB.
+   */
+  mergeRule?: MergeRule;
 }
 
 export interface AssembleResult {
@@ -93,7 +100,8 @@ function literalDuplicates(pairs: Int32Array, b: RawBeam): { count: number; maxD
  * shared), the merged values reuse their storage where the row order allows it (mergeSamples'
  * in-place route) and the RawBeam's `values` is emptied, so a big export is never held twice.
  */
-function mergeConsuming(build: GridBuild, b: RawBeam, keep: Set<Float64Array>): Float64Array {
+function mergeConsuming(build: GridBuild, b: RawBeam, keep: Set<Float64Array>, rule: MergeRule = 'power-average'): Float64Array {
+  if (rule === 'first' || rule === 'last') return mergeByOrder(build, b.values, rule);
   const r = mergeSamples(build, b.values, !keep.has(b.values));
   if (r.inPlace) b.values = EMPTY;
   return r.values;
@@ -112,7 +120,10 @@ function gridText(g: GridBuild): string {
 /**
  * Group raw beams into one Measurement per (unit, frequency): one grid for all beams (built
  * from the directions most beams share), coincident samples merged by power average
- * (mergeSamples, Eq. 1 there), beams on another grid resampled with a 'beam-resampled' warning
+ * (mergeSamples, Eq. 1 there; or the job file's merge_rule), every merge of every beam checked
+ * for samples more than CONFLICT_DB apart ('duplicate-differs', or the unit refused with
+ * merge_rule: refuse), the grid's partial-sphere / trp-partial-sphere / missing-points warnings
+ * (gridWarnings), beams on another grid resampled with a 'beam-resampled' warning
  * or refused beyond MAX_RESAMPLE_DISTANCE_DEG. Problems are errors naming the file; a unit with
  * an error keeps its other beams.
  * Memory: with `consumeRaw` the raw beams' `values` arrays are consumed — merged in place where
@@ -137,7 +148,7 @@ export function assembleMeasurements(beams: RawBeam[], sources: SourceFile[], op
   const seenValues = new Set<Float64Array>();
   for (const b of beams) (seenValues.has(b.values) || !opts.consumeRaw ? shared : seenValues).add(b.values);
   for (const list of groups.values()) {
-    const m = assembleOne(list, sources, errors, shared);
+    const m = assembleOne(list, sources, errors, shared, opts.mergeRule ?? 'power-average');
     if (m) {
       measurements.push(m);
       // The components of a θ/φ pair repeat their total's warnings (same unit, files and grid): once is enough.
@@ -182,7 +193,28 @@ function dropoutDirections(beams: RawBeam[]): string[] {
   return [...gone].map((k) => all.get(k)!);
 }
 
-function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[], shared: Set<Float64Array>): Measurement | null {
+const RULE_TEXT: Record<MergeRule, string> = { 'power-average': 'power average', first: 'the first sample', last: 'the last sample', refuse: 'refused' };
+
+/**
+ * Conflicting merges of one beam (samples of one direction more than CONFLICT_DB apart, at the
+ * φ seam, a pole or a repeated row) as one 'duplicate-differs' warning naming each direction,
+ * both samples (row of the beam, angles as written) and their values; null without conflicts.
+ */
+function conflictWarning(build: GridBuild, b: RawBeam, rule: MergeRule): { warning: Warning; count: number } | null {
+  const c = mergeConflicts(build, b.values);
+  if (c.count === 0) return null;
+  const unit = b.valueUnit;
+  const sample = (i: number) => `row ${i + 1} of the beam (θ ${b.thetaDeg[i]}, φ ${b.phiDeg[i]} as written) ${b.values[i]} ${unit}`;
+  const list = c.worst.map((x) => `θ ${build.grid.thetaDeg[x.point]}°, φ ${build.grid.phiDeg[x.point]}°: ${sample(x.low)} vs ${sample(x.high)} (${(x.highDb - x.lowDb).toFixed(2)} dB apart)`).join('; ');
+  const more = c.count > c.worst.length ? `; … (${c.count - c.worst.length} more)` : '';
+  const what = rule === 'refuse' ? 'the unit is refused (merge_rule: refuse)' : `merged by ${RULE_TEXT[rule]}`;
+  return {
+    warning: warning('duplicate-differs', `beam '${b.beam}': ${c.count} direction${c.count === 1 ? '' : 's'} hold${c.count === 1 ? 's' : ''} samples more than ${CONFLICT_DB} dB apart, ${what}: ${list}${more}`, { file: b.file, line: b.firstLine }),
+    count: c.count,
+  };
+}
+
+function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[], shared: Set<Float64Array>, rule: MergeRule): Measurement | null {
   const ref = list[0];
   const freqText = ref.frequencyHz === null ? 'no frequency' : `${ref.frequencyHz / 1e9} GHz`;
   const what = `unit '${ref.unit}' (${freqText})`;
@@ -228,13 +260,22 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
   warnings.push(...gridWarnings(build.grid, ref.quantity, { file: main.beams[0].file }));
   const patterns = new Map<RawBeam, BeamPattern>();
   const pairs = literalDuplicatePairs(build, main);
+  let refused = false;
   for (const b of main.beams) {
     const d = literalDuplicates(pairs, b);
-    patterns.set(b, { id: b.beam, values: mergeConsuming(build, b, shared) });
-    if (d.count > 0) {
-      const code = d.maxDiffDb > 0 ? 'duplicate-differs' : 'duplicate-merged';
-      const diff = d.maxDiffDb > 0 ? ` with values up to ${d.maxDiffDb.toFixed(2)} dB apart (at ${d.at})` : ' with equal values';
-      warnings.push(warning(code, `beam '${b.beam}': ${d.count} row${d.count === 1 ? '' : 's'} repeat${d.count === 1 ? 's' : ''} a direction${diff}; merged by power average`, { file: b.file, line: b.firstLine }));
+    const conflict = conflictWarning(build, b, rule);
+    if (conflict) {
+      warnings.push(conflict.warning);
+      if (rule === 'refuse') {
+        refused = true;
+        errors.push(inputError(b.file, b.firstLine ?? 1, 1, 'merge', `beam '${b.beam}' with ${conflict.count} direction${conflict.count === 1 ? '' : 's'} whose samples differ by more than ${CONFLICT_DB} dB (${conflict.warning.message.replace(/^beam '[^']*': /, '')})`,
+          `coincident samples within ${CONFLICT_DB} dB (merge_rule: refuse in the job file), or another merge_rule`, true));
+      }
+    }
+    patterns.set(b, { id: b.beam, values: mergeConsuming(build, b, shared, rule) });
+    if (d.count > 0 && !conflict) {
+      const diff = d.maxDiffDb > 0 ? ` with values up to ${d.maxDiffDb.toFixed(2)} dB apart (at ${d.at}; within ${CONFLICT_DB} dB)` : ' with equal values';
+      warnings.push(warning('duplicate-merged', `beam '${b.beam}': ${d.count} row${d.count === 1 ? '' : 's'} repeat${d.count === 1 ? 's' : ''} a direction${diff}; merged by ${RULE_TEXT[rule]}`, { file: b.file, line: b.firstLine }));
     }
   }
   for (const s of sets) {
@@ -248,7 +289,16 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
     }
     const same = sameGrid(own, build);
     for (const b of s.beams) {
-      const merged = mergeConsuming(own, b, shared);
+      const conflict = conflictWarning(own, b, rule);
+      if (conflict) {
+        warnings.push(conflict.warning);
+        if (rule === 'refuse') {
+          refused = true;
+          errors.push(inputError(b.file, b.firstLine ?? 1, 1, 'merge', `beam '${b.beam}' with ${conflict.count} direction${conflict.count === 1 ? '' : 's'} whose samples differ by more than ${CONFLICT_DB} dB`,
+            `coincident samples within ${CONFLICT_DB} dB (merge_rule: refuse in the job file), or another merge_rule`, true));
+        }
+      }
+      const merged = mergeConsuming(own, b, shared, rule);
       if (same) {
         patterns.set(b, { id: b.beam, values: merged });
         continue;
@@ -263,6 +313,7 @@ function assembleOne(list: RawBeam[], sources: SourceFile[], errors: InputError[
       warnings.push(warning('beam-resampled', `beam '${b.beam}' measured on another grid (${gridText(own)}) resampled (${r.method}, up to ${r.maxDistanceDeg.toFixed(2)}° from data) onto the unit grid (${gridText(build)})`, { file: b.file, line: b.firstLine }));
     }
   }
+  if (refused) return null;
   const beamsOut = kept.filter((b) => patterns.has(b)).map((b) => patterns.get(b)!).sort((x, y) => compareBeamIds(x.id, y.id));
   if (ref.frequencyHz === null) warnings.push(warning('frequency-missing', `${what}: no frequency found`, { file: ref.file }));
   const files = new Set(kept.map((b) => b.file));

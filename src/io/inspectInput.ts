@@ -48,7 +48,7 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
     beams.push(...r.beams);
   }
   const sources = report.files.map((f) => ({ path: f.file, sha256: f.sha256 }));
-  const asm = assembleMeasurements(beams, sources, { consumeRaw: true });
+  const asm = assembleMeasurements(beams, sources, { consumeRaw: true, mergeRule: job?.mergeRule });
   report.errors.push(...asm.errors);
   report.warnings.push(...asm.warnings);
   for (const m of asm.measurements) {

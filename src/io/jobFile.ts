@@ -10,6 +10,7 @@ import { identityPatternProblem } from './identityPattern.js';
 import type { CalibrationPoint, ColumnRole, JobSpec } from './types.js';
 import { QUANTITIES } from '../quantity.js';
 import { validateUncertainty } from '../analysis/uncertainty/uncertaintySpec.js';
+import { MERGE_RULES } from '../sphere/mergeConflicts.js';
 
 /** Job-file names looked for in an input folder, in this order. */
 export const JOB_FILE_NAMES = ['spherecov.yaml', 'spherecov.yml', 'spherecov.json'];
@@ -28,7 +29,7 @@ const ROLE_KEYS: Record<string, ColumnRole> = {
   value_phi: 'valuePhi', power: 'power', pol: 'pol', unit: 'unit', beam: 'beam', frequency: 'frequency',
 };
 const TOP_KEYS = ['columns', 'identity', 'quantity', 'value_unit', 'angles', 'frequency_unit', 'header_line', 'dropout_tokens', 'calibration', 'limits', 'checks',
-  'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference', 'uncertainty'];
+  'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference', 'uncertainty', 'merge_rule'];
 const FREQ_KEYS: Record<string, number> = { frequency_hz: 1, frequency_mhz: 1e6, frequency_ghz: 1e9 };
 
 type Path = (string | number)[];
@@ -178,6 +179,7 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
   job.quantity = c.oneOf(top.quantity, ['quantity'], QUANTITIES);
   job.valueUnit = c.oneOf(top.value_unit, ['value_unit'], ['dBm', 'dBi', 'mW', 'W'] as const);
   job.frequencyUnit = c.oneOf(top.frequency_unit, ['frequency_unit'], ['Hz', 'MHz', 'GHz'] as const);
+  job.mergeRule = c.oneOf(top.merge_rule, ['merge_rule'], MERGE_RULES);
   if (top.dropout_tokens !== undefined) {
     const list = top.dropout_tokens;
     if (!Array.isArray(list)) c.fail(['dropout_tokens'], list, "a list of cell texts read as missing samples, e.g. [OVLD, NaN, '--', '']");

@@ -45,6 +45,8 @@ export interface JobSpec {
   angles?: { convention?: 'theta-phi' | 'az-el'; unit?: 'deg' | 'rad' };
   /** Unit of a frequency column without one in its header. */
   frequencyUnit?: 'Hz' | 'MHz' | 'GHz';
+  /** How coincident samples are merged (src/sphere/mergeConflicts.ts); default power average. */
+  mergeRule?: 'power-average' | 'first' | 'last' | 'refuse';
   /** 1-based line of the header row, when detection below a preamble cannot settle it. */
   headerLine?: number;
   /**
