@@ -2,11 +2,14 @@
  * The uncertainty block end to end through runAnalyze (in-process): job file → results.json.
  */
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { pdfPages } from '../../report/pdfText.js';
+import { consoleTable } from '../../../src/report/consoleTable.js';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { runAnalyze } from '../../../src/batch/runAnalyze.js';
 import { loadJobFile } from '../../../src/io/jobFile.js';
+import { parseLimitSetText } from '../../../src/limits/parseLimitSet.js';
 import { handsetModule, regularGrid, simulateBeams } from '../../../src/sim/index.js';
 
 /** One invented handset unit on a constant-step grid, long layout. */
@@ -25,12 +28,12 @@ const CHECKS = `checks:
   - { kind: min-coverage, name: cov4, threshold: 4, minEfficiency: 0.5 }
 `;
 
-async function run(job: string, stepDeg = 5) {
+async function run(job: string, stepDeg = 5, pdf = false) {
   const input = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-'));
   writeUnit(input, 'PX-1', stepDeg);
   writeFileSync(path.join(input, 'spherecov.yaml'), job);
   const out = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-out-'));
-  return runAnalyze({ input, outDir: out, pdf: false, jobs: 1 });
+  return { out, ...(await runAnalyze({ input, outDir: out, pdf, jobs: 1 })) };
 }
 
 describe('uncertainty through runAnalyze', () => {
@@ -49,12 +52,25 @@ describe('uncertainty through runAnalyze', () => {
     expect(plain.gridAdequacy!.percentiles.find((p) => p.levelPct === 50)!.adequacyDb).toBeGreaterThanOrEqual(0);
   });
   it('guarded with a large guard band fails a unit that passes shared-risk, and a 15° grid is warned about', async () => {
-    const r = await run(`${CHECKS}uncertainty:\n  decisionRule: guarded\n  guardBandDb: 20\n  draws: 100\n  eirp: { expandedDb: 2, perDirectionDb: 0.3 }\n`, 15);
+    const r = await run(`${CHECKS}uncertainty:\n  decisionRule: guarded\n  guardBandDb: 20\n  draws: 100\n  eirp: { expandedDb: 2, perDirectionDb: 0.3 }\n`, 15, true);
     const u = r.results.units[0];
     expect(u.verdict).toBe('fail');
     expect(r.exitCode).toBe(1);
     expect(u.checks[0].decision!.guardBandDb).toBe(20);
     expect(u.warnings.some((w) => w.includes('PC3 beam-peak-search minimum'))).toBe(true);
+    // where it shows: summary.csv columns, the console's column and build line, the PDF page
+    const csv = readFileSync(path.join(r.out, 'summary.csv'), 'utf8').split(/\r?\n/);
+    expect(csv[0]).toContain('decision_rule,statement,probability_of_conformance,probability_std_err');
+    expect(csv[1]).toContain(',guarded,fail,');
+    const text = consoleTable(r.results, [], 'out');
+    expect(text).toMatch(/how sure/);
+    expect(text).toMatch(/fail · P \d/);
+    expect(text).toMatch(/expected truly conforming/);
+    expect(r.results.build!.confidence!.judged).toBe(1);
+    const pages = (await pdfPages(readFileSync(path.join(r.out, 'PX-1.pdf')))).join(' ');
+    expect(pages).toContain('How sure is this verdict');
+    expect(pages).toContain('P(truly met)');
+    expect(pages).toContain('Was the grid fine enough');
   });
   it('rejects a bad block with the key path and position', () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-job-'));
@@ -65,5 +81,11 @@ describe('uncertainty through runAnalyze', () => {
       "spherecov.yaml:2:17: uncertainty.decisionRule: found 'lenient', expected one of shared-risk, guarded, non-binary",
       "spherecov.yaml:3:42: uncertainty.eirp.perDirectionDb: found '0.9', expected at most U/1.96 = 0.5102 dB (the per-direction part cannot exceed the whole)",
     ]);
+  });
+  it('a limit set may carry the block too (strict keys, located errors)', () => {
+    const ok = parseLimitSetText('name: x\nquantity: eirp\nchecks: []\nuncertainty: { decisionRule: non-binary, eirp: { expandedDb: 1.5, perDirectionDb: 0.2 } }\n', 'x.yaml');
+    expect(ok.limitSet?.uncertainty).toEqual({ decisionRule: 'non-binary', quantities: { eirp: { expandedDb: 1.5, perDirectionDb: 0.2 } } });
+    const bad = parseLimitSetText('name: x\nquantity: eirp\nchecks: []\nuncertainty: { decisionRule: guarded, guardBandDb: 1, eirp: { expandedDb: 1.5, perDirectionDb: 0.2, k: 2 } }\n', 'x.yaml');
+    expect(bad.errors.map((e) => e.message)).toEqual(["uncertainty.eirp.k: found 'k', expected one of the keys expandedDb, perDirectionDb"]);
   });
 });
