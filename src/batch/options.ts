@@ -19,6 +19,8 @@ export interface AnalyzeOptions {
   pdf?: boolean;
   /** Skip the optional analysis (holes, beam removal, smallest subset). */
   coreOnly?: boolean;
+  /** Write viewer.html (default true). */
+  viewer?: boolean;
   /** Parallel units; default os.availableParallelism(). */
   jobs?: number | 'auto';
   /** Write results.json to stdout instead of the verdict table. */

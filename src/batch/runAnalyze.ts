@@ -181,7 +181,7 @@ async function loadReferenceFolder(
   const found = await discover(dir, dir, [outDir]);
   if (found.problems.length > 0) throw new RunError(`--reference: ${formatError(found.problems[0])}`);
   if (found.files.length === 0) throw new RunError(`--reference: no export files (.csv, .tsv, .txt) in the folder '${dir}'`);
-  const task: TaskInput = { ...makeTask('reference', found.files), inputRoot: found.root, report: null, exportReference: true, exportAll: true };
+  const task: TaskInput = { ...makeTask('reference', found.files), inputRoot: found.root, report: null, exportReference: true, exportAll: true, viewer: false };
   const [out] = await pool.run([task], 1);
   const units = [...new Set((out.referencePatterns ?? []).map((p) => p.result.unit))];
   if (units.length !== 1) {
@@ -224,6 +224,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   let reference = referenceArg;
   const generatedAt = opts.creationDate ?? new Date().toISOString();
   const pdf = opts.pdf !== false;
+  const viewer = opts.viewer !== false;
   const pageSize = opts.pageSize ?? 'a4';
   const jobs = opts.jobs ?? 'auto';
   let report: ReportSettings | null = null;
@@ -254,7 +255,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   }
   const makeTask = (key: string, files: string[]): TaskInput => ({
     key, files, inputRoot: discovery.root, job, quantityOverride: opts.quantity, percentilesPct, thresholds, relativeDb,
-    limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null,
+    limitSet, report, generatedAt, toolVersion: TOOL_VERSION, reference, referenceExternal: referenceDir !== null, viewer,
     ...(opts.coreOnly ? { coreOnly: true } : {}),
     uncertainty,
     eisPolarizations: opts.eisPolarizations ?? 'each',
@@ -434,6 +435,16 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     }
     await write('summary.csv', summaryCsv(units, notAnalyzed));
     await write('build-stats.csv', buildStatsCsv(build));
+    if (viewer) {
+      const { renderViewerHtml } = await import('../report/viewerHtml.js');
+      const { analysisLevel, holeThreshold } = await import('./unitTask.js');
+      await write('viewer.html', await renderViewerHtml({
+        results, packed: unitOutputs.map((u) => u.viewer ?? null), limitSet,
+        removalLevelPct: analysisLevel(limitSet), holeThreshold: holeThreshold(limitSet, thresholds),
+        colorMap: report?.colorMap ?? 'lumen', mapCenterPhiDeg: report?.mapCenterPhiDeg ?? 0,
+        golden: referenceDir !== null ? referencePatterns : undefined,
+      }));
+    }
     const json = JSON.stringify(results, null, 2) + '\n';
     // results.json last: its presence (with this run's generatedAt) marks a finished run.
     await write('results.json', json);

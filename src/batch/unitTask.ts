@@ -26,6 +26,7 @@ import { assessConfidence } from '../analysis/uncertainty/assessConfidence.js';
 import { gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
 import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView } from './polarizationUnits.js';
+import type { ViewerUnit } from '../viewer/viewerData.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -59,6 +60,8 @@ export interface TaskInput {
   uncertainty?: UncertaintySpec | null;
   /** How an EIS θ/φ pair is judged (src/batch/polarizationUnits.ts); default 'each'. */
   eisPolarizations?: EisPolarizationView;
+  /** Pack each unit's grid and beams for viewer.html. */
+  viewer?: boolean;
 }
 
 /** A reference unit's total scan pattern on its grid, with its result (plain data, cloneable). */
@@ -74,6 +77,8 @@ export interface UnitOutput {
   thumbnail: MapThumbnail | null;
   cdf: CdfCurve | null;
   pdf: Uint8Array | null;
+  /** The unit packed for viewer.html (TaskInput.viewer), else absent. */
+  viewer?: ViewerUnit | null;
 }
 
 export interface TaskOutput {
@@ -104,7 +109,7 @@ export function holeThreshold(ls: LimitSet | null, thresholds: number[]): number
 }
 
 /** Percentile level used for beam removal and subset: the first percentile check's, else 50 %. */
-function analysisLevel(ls: LimitSet | null): number {
+export function analysisLevel(ls: LimitSet | null): number {
   const pct = ls?.checks.find((c) => c.kind === 'percentile');
   return pct && pct.kind === 'percentile' ? pct.levelPct : 50;
 }
@@ -278,7 +283,12 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
       result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOf(result), metricsOf(ref.result)) };
       delta = tspDifference(m.grid, tsp, ref.grid, ref.tsp);
     }
-    units.push(await renderUnit(m, result, tsp, input, delta, componentTsps));
+    const out = await renderUnit(m, result, tsp, input, delta, componentTsps);
+    if (input.viewer) {
+      const { packViewerUnit } = await import('../report/viewerPack.js');
+      out.viewer = packViewerUnit(m, result, `${m.unit}@${m.frequencyHz ?? '-'}`);
+    }
+    units.push(out);
   }
   const referencePatterns = input.exportReference
     ? measured.filter((u) => input.exportAll || u.m.unit === input.reference).map((u) => ({ frequencyHz: u.m.frequencyHz, grid: u.m.grid, tsp: u.tsp, result: u.result }))

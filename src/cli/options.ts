@@ -27,7 +27,7 @@ export interface OptionSpec {
 
 export const OPTIONS: OptionSpec[] = [
   { name: 'out', short: 'o', value: 'dir', required: true, commands: ['analyze'],
-    description: 'Folder for results.json, summary.csv, build-stats.csv and the PDFs (created if missing).' },
+    description: 'Folder for results.json, summary.csv, build-stats.csv, the PDFs and viewer.html (created if missing).' },
   { name: 'percentiles', value: 'list', commands: ['analyze'],
     description: 'CDF percentile levels in %, comma separated, added to those the limit set needs.',
     defaultText: '0,5,10,20,50,60,80,85,90,95,100' },
@@ -49,6 +49,8 @@ export const OPTIONS: OptionSpec[] = [
     description: 'Skip the PDF reports (JSON and CSV only, for speed).' },
   { name: 'core-only', commands: ['analyze'],
     description: 'Only the metrics and checks: skip the optional analysis (coverage holes, beam removal, smallest beam subset), for speed.' },
+  { name: 'viewer', negated: true, commands: ['analyze'],
+    description: 'Skip viewer.html, the interactive page of the build (one self-contained file, works offline).' },
   { name: 'jobs', short: 'j', value: 'n', commands: ['analyze'],
     description: "Units analyzed in parallel (main thread + worker threads), or 'auto': up to the number of cores, workers started only when the work left outweighs their start-up.", defaultText: 'auto' },
   { name: 'job', value: 'file', commands: ['analyze', 'inspect'],

@@ -4,9 +4,8 @@ import type { ReportSettings } from './reportTypes.js';
 
 export type Doc = PDFKit.PDFDocument;
 
-export const CAUTION =
-  'Engineering measurement data, not a regulatory conformance or RF-exposure assessment. ' +
-  'Defer to accredited test laboratories and the rules that apply locally.';
+import { CAUTION } from './caution.js';
+export { CAUTION };
 
 export const INK = '#1a1a1a';
 export const MUTED = '#5a5a5a';

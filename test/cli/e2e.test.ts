@@ -50,7 +50,7 @@ describe('analyze, passing build', () => {
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     expect(readdirSync(out).sort()).toEqual(
-      ['.spherecov-manifest.json', 'U-01_28GHz.pdf', 'U-02_28GHz.pdf', 'build-stats.csv', 'results.json', 'summary.csv', 'summary.pdf'],
+      ['.spherecov-manifest.json', 'U-01_28GHz.pdf', 'U-02_28GHz.pdf', 'build-stats.csv', 'results.json', 'summary.csv', 'summary.pdf', 'viewer.html'],
     );
     expect(readFileSync(path.join(out, 'U-01_28GHz.pdf')).subarray(0, 5).toString()).toBe('%PDF-');
     expect(r.stdout).toBe(readFileSync(path.join(out, 'results.json'), 'utf8'));
@@ -211,7 +211,7 @@ describe('output folder', () => {
     expect(existsSync(path.join(out, 'U-03_28GHz.pdf'))).toBe(true);
     expect(run(['analyze', path.join(FIX, 'pass'), '--out', out, '--limits', LIMITS, '--quiet']).code).toBe(0);
     expect(readdirSync(out).sort()).toEqual(
-      ['.spherecov-manifest.json', 'U-01_28GHz.pdf', 'U-02_28GHz.pdf', 'build-stats.csv', 'keep-me.txt', 'results.json', 'summary.csv', 'summary.pdf'],
+      ['.spherecov-manifest.json', 'U-01_28GHz.pdf', 'U-02_28GHz.pdf', 'build-stats.csv', 'keep-me.txt', 'results.json', 'summary.csv', 'summary.pdf', 'viewer.html'],
     );
   });
 
