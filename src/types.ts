@@ -206,6 +206,7 @@ export type CheckKind =
   | 'min-peak'
   | 'percentile'
   | 'min-coverage'
+  | 'min-relative-coverage'
   | 'min-beam-peak'
   | 'max-trp'
   | 'max-peak';

@@ -8,7 +8,7 @@ import type { InputError, Quantity, ResultsFile, UnitNotAnalyzed, UnitResult, Wa
 import type { JobSpec } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { loadLimitSet } from '../limits/loadLimitSet.js';
-import { metricNeeds } from '../limits/metricNeeds.js';
+import { metricLists } from '../limits/metricNeeds.js';
 import { mergeLimitSets } from '../limits/mergeLimitSets.js';
 import { validateExtraChecks } from '../limits/validateLimitSet.js';
 import { buildStatistics } from '../limits/buildStatistics.js';
@@ -48,12 +48,7 @@ import { resolveQuantity } from '../quantity.js';
 
 const silentIo: BatchIo = { stdout: () => undefined, stderr: () => undefined, stderrIsTTY: false };
 
-/** Sorted, de-duplicated union of number lists. */
-export function unionSorted(...lists: (number[] | undefined)[]): number[] {
-  const s = new Set<number>();
-  for (const l of lists) for (const x of l ?? []) s.add(x);
-  return [...s].sort((a, b) => a - b);
-}
+export { unionSorted } from '../limits/metricNeeds.js';
 
 /** Deterministic output order: unit (code point), then frequency ascending, no frequency first. */
 export function compareUnits(a: UnitResult, b: UnitResult): number {
@@ -211,10 +206,11 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   // working directory: the verdict never depends on where the command is run from.
   const limitsBase = opts.limits === undefined && job ? path.dirname(job.source) : process.cwd();
   const limitSet = loadLimits(opts.limits ?? job?.limits, limitsBase, opts.limits === undefined, job, opts.quantity);
-  const needs = limitSet ? metricNeeds(limitSet) : { percentilesPct: [], thresholds: [] };
-  const percentilesPct = unionSorted(opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct);
-  const thresholds = unionSorted(opts.thresholds ?? job?.coverageThresholds, needs.thresholds);
-  const relativeDb = unionSorted(opts.relativeDb);
+  const { percentilesPct, thresholds, relativeDb } = metricLists({
+    percentilesPct: opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT,
+    thresholds: opts.thresholds ?? job?.coverageThresholds,
+    relativeDb: opts.relativeDb,
+  }, limitSet);
   // Measurement uncertainty and decision rule: the job file's block wins over the limit set's.
   const uncertainty = job?.uncertainty ?? limitSet?.uncertainty ?? null;
   // --reference names a unit of this build, or a folder of a golden unit's exports measured

@@ -10,7 +10,7 @@ import { assembleMeasurements } from '../io/assembleMeasurements.js';
 import type { RawBeam } from '../io/types.js';
 import { loadLimitSet } from '../limits/loadLimitSet.js';
 import type { LimitSet } from '../limits/limitSet.js';
-import { metricNeeds } from '../limits/metricNeeds.js';
+import { metricLists } from '../limits/metricNeeds.js';
 import { quantityUnit } from '../quantity.js';
 import type { Measurement, Quantity, TotalScanPattern, UnitResult } from '../types.js';
 
@@ -58,10 +58,6 @@ export class BeamsInputError extends Error {
 }
 
 const MEMORY = '(memory)';
-
-function sortedUnion(a: number[], b: number[]): number[] {
-  return [...new Set([...a, ...b])].sort((x, y) => x - y);
-}
 
 /** θ/φ arrays from the input's directions, and the problems found in them. */
 function directionsOf(d: SampleDirections, problems: string[]): { thetaDeg: Float64Array; phiDeg: Float64Array } {
@@ -128,11 +124,8 @@ export function analyzeBeams(input: BeamsInput): UnitAnalysis {
   if (asm.errors.length || asm.measurements.length !== 1) throw new BeamsInputError(asm.errors.map((e) => e.message.replace(/^\(memory\):\d+:\d+: /, '')));
   const assembled = asm.measurements[0];
   const measurement = { ...assembled, warnings: collapseWarnings(assembled.warnings) };
-  const needs = limitSet ? metricNeeds(limitSet) : { percentilesPct: [], thresholds: [] };
   const { result, tsp } = measureUnit(measurement, {
-    percentilesPct: sortedUnion(input.percentilesPct ?? DEFAULT_PERCENTILES_PCT, needs.percentilesPct),
-    thresholds: sortedUnion(input.coverageThresholds ?? [], needs.thresholds),
-    relativeDb: input.relativeDb ?? [],
+    ...metricLists({ percentilesPct: input.percentilesPct ?? DEFAULT_PERCENTILES_PCT, thresholds: input.coverageThresholds, relativeDb: input.relativeDb }, limitSet),
     limitSet,
     coreOnly: input.coreOnly,
     // A limit set's `uncertainty:` block applies here as in the CLI (src/analysis/uncertainty).

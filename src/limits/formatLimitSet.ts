@@ -1,27 +1,10 @@
 import type { LimitCheck, LimitSet } from './limitSet.js';
-import { checkBound } from './checkSense.js';
-import { isLowerBetter, quantityUnit, worsenedBy } from '../quantity.js';
+import { kindDef, type CheckOf } from './checkKinds.js';
+import { quantityUnit } from '../quantity.js';
 
-/** The rule of one check in words, e.g. "value at the 50 % CDF level ≥ 11.5 dBm". */
+/** The rule of one check in words, e.g. "value at the 50 % CDF level ≥ 11.5 dBm" (registry: `describe`). */
 export function describeCheck(c: LimitCheck, ls: Pick<LimitSet, 'quantity'>): string {
-  const u = quantityUnit(ls.quantity);
-  const op = checkBound(c.kind, ls.quantity) === 'lower' ? '≥' : '≤';
-  const tol = c.toleranceDb > 0 ? ` (test tolerance ${c.toleranceDb} dB)` : '';
-  switch (c.kind) {
-    case 'min-peak': return `best value over the sphere (TSP peak) ${op} ${c.limit} ${u}${tol}`;
-    case 'max-peak': return `maximum over the sphere (TSP peak) ≤ ${c.limit} ${u}${tol}`;
-    case 'max-trp': return `TRP of every beam ≤ ${c.limit} dBm (full sphere only)${tol}`;
-    case 'percentile': return `TSP value at the ${c.levelPct} % CDF level ${op} ${c.limit} ${u}${tol}`;
-    case 'min-beam-peak':
-      return `peak of ${c.beams ? `beams ${c.beams.join(', ')}` : 'every beam'} ${op} ${c.limit} ${u}${tol}`;
-    case 'min-coverage': {
-      const cmp = isLowerBetter(ls.quantity) ? '≤' : '≥';
-      const relax = c.toleranceDb > 0
-        ? ` (threshold relaxed by the ${c.toleranceDb} dB test tolerance to ${worsenedBy(ls.quantity, c.threshold, c.toleranceDb)} ${u})`
-        : '';
-      return `share of 4π with TSP ${cmp} ${c.threshold} ${u} ≥ ${(c.minEfficiency * 100).toFixed(1)} %${relax}`;
-    }
-  }
+  return kindDef(c.kind).describe(c as CheckOf<typeof c.kind>, ls.quantity);
 }
 
 /**

@@ -1,4 +1,4 @@
-import type { CheckKind, Quantity } from '../types.js';
+import type { Quantity } from '../types.js';
 import type { UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js';
 
 /**
@@ -10,6 +10,7 @@ import type { UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js
  *   (eirp/gain: value ≥ limit; eis: value ≤ limit, so min-peak on eis means the best, i.e.
  *   lowest, EIS ≤ REFSENS).
  * - `min-coverage`: coverage efficiency at the threshold ≥ minEfficiency (any quantity).
+ * - `min-relative-coverage`: coverage efficiency within dbBelowPeak dB of the TSP peak ≥ minEfficiency.
  * - `max-peak`, `max-trp`: eirp/gain only (max-trp eirp only): value ≤ limit.
  */
 interface CheckCommon {
@@ -42,6 +43,15 @@ export interface CoverageCheck extends CheckCommon {
   minEfficiency: number;
 }
 
+/** Coverage within a window below the TSP peak (a threshold relative to the best value). */
+export interface RelativeCoverageCheck extends CheckCommon {
+  kind: 'min-relative-coverage';
+  /** Window in dB towards worse from the TSP peak (eirp/gain: peak − d; eis: best + d), ≥ 0. */
+  dbBelowPeak: number;
+  /** Required fraction of 4π within the window, 0..1. */
+  minEfficiency: number;
+}
+
 export interface BeamPeakCheck extends CheckCommon {
   kind: 'min-beam-peak';
   limit: number;
@@ -49,7 +59,7 @@ export interface BeamPeakCheck extends CheckCommon {
   beams?: string[];
 }
 
-export type LimitCheck = PeakCheck | PercentileCheck | CoverageCheck | BeamPeakCheck;
+export type LimitCheck = PeakCheck | PercentileCheck | CoverageCheck | RelativeCoverageCheck | BeamPeakCheck;
 
 /** A check before its name is settled (Omit distributed over the union). */
 export type CheckDraft = LimitCheck extends infer C ? (C extends LimitCheck ? Omit<C, 'name'> : never) : never;
@@ -81,6 +91,5 @@ export interface ProfileInfo {
   file: string;
 }
 
-export const CHECK_KINDS: readonly CheckKind[] = [
-  'min-peak', 'percentile', 'min-coverage', 'min-beam-peak', 'max-trp', 'max-peak',
-];
+/** Every check kind (owned by the registry, checkKinds.ts). */
+export { CHECK_KINDS } from './checkKinds.js';

@@ -1,6 +1,7 @@
 import { clipText } from '../io/inputError.js';
 import type { CheckKind, InputError, Quantity } from '../types.js';
-import { CHECK_KINDS, type CheckDraft, type LimitCheck, type LimitSet } from './limitSet.js';
+import type { CheckDraft, LimitCheck, LimitSet } from './limitSet.js';
+import { CHECK_KINDS, kindDef, type FieldReader } from './checkKinds.js';
 import { defaultCheckName, kindAllowed } from './checkSense.js';
 import { QUANTITIES } from '../quantity.js';
 import { validateUncertainty } from '../analysis/uncertainty/uncertaintySpec.js';
@@ -15,13 +16,6 @@ export const UNKNOWN_KEY = Symbol('unknown key');
 
 const TOP_KEYS = ['name', 'description', 'source', 'quantity', 'band', 'frequencyRangeMHz', 'checks', 'uncertainty'];
 const COMMON_KEYS = ['kind', 'name', 'toleranceDb', 'source'];
-const KIND_KEYS: Record<CheckKind, string[]> = {
-  'min-peak': ['limit'], 'max-peak': ['limit'], 'max-trp': ['limit'],
-  percentile: ['levelPct', 'limit'],
-  'min-coverage': ['threshold', 'minEfficiency'],
-  'min-beam-peak': ['limit', 'beams'],
-};
-
 /** 'checks[2].limit' from ['checks', 2, 'limit']. */
 export function formatKeyPath(path: KeyPath): string {
   return path.map((k, i) => (typeof k === 'number' ? `[${k}]` : i === 0 ? k : `.${k}`)).join('');
@@ -151,30 +145,19 @@ export function validateChecks(rawChecks: unknown[], base: KeyPath, quantity: Qu
       const ok = CHECK_KINDS.filter((k) => kindAllowed(k, quantity)).join(', ');
       return fail([...p, 'kind'], kind, `a check kind that applies to ${quantity} (${ok})`);
     }
-    const allowed = [...COMMON_KEYS, ...KIND_KEYS[kind]];
+    const def = kindDef(kind);
+    const allowed = [...COMMON_KEYS, ...def.keys];
     for (const k of Object.keys(c)) if (!allowed.includes(k)) fail([...p, k], UNKNOWN_KEY, `one of ${allowed.join(', ')} for kind ${kind}`);
     const before = out.length;
     const toleranceDb = c.toleranceDb === undefined ? 0
       : num(c, [...p, 'toleranceDb'], fail, 0, 30, 'a test tolerance in dB between 0 and 30');
     const common = { toleranceDb, ...(c.source !== undefined ? { source: str(c, [...p, 'source'], true, fail) } : {}) };
-    let check: CheckDraft;
-    if (kind === 'percentile') {
-      check = { kind, ...common, levelPct: num(c, [...p, 'levelPct'], fail, 0, 100, 'a CDF level in percent between 0 and 100'),
-        limit: num(c, [...p, 'limit'], fail) };
-    } else if (kind === 'min-coverage') {
-      check = { kind, ...common, threshold: num(c, [...p, 'threshold'], fail),
-        minEfficiency: num(c, [...p, 'minEfficiency'], fail, 0, 1, 'a fraction of the sphere between 0 and 1 (0.5 = 50 %)') };
-    } else if (kind === 'min-beam-peak') {
-      const bc: CheckDraft & { kind: 'min-beam-peak' } = { kind, ...common, limit: num(c, [...p, 'limit'], fail) };
-      if (c.beams !== undefined) {
-        const b = c.beams;
-        if (Array.isArray(b) && b.length > 0 && b.every((x) => typeof x === 'string' || isNum(x))) bc.beams = b.map(String);
-        else fail([...p, 'beams'], b, 'a non-empty list of beam ids');
-      }
-      check = bc;
-    } else {
-      check = { kind, ...common, limit: num(c, [...p, 'limit'], fail) };
-    }
+    const read: FieldReader = {
+      num: (key, lo, hi, what) => num(c, [...p, key], fail, lo, hi, what),
+      raw: (key) => c[key],
+      fail: (key, found, expected) => fail([...p, key], found, expected),
+    };
+    const check = { kind, ...common, ...def.validate(read) } as CheckDraft;
     const name = c.name === undefined ? defaultCheckName(check, quantity) : str(c, [...p, 'name'], true, fail);
     if (name === undefined) return;
     const prev = seen.get(name);

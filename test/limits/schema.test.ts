@@ -73,8 +73,8 @@ describe('limit-set files', () => {
     const { errors } = parseLimitSetText('quantity: eis\nchecks:\n  - kind: max-trp\n    limit: 1\n  - kind: peak\n', 'x.yaml');
     expect(errors.map((e) => e.message)).toEqual([
       'name: found nothing, expected a non-empty text',
-      "checks[0].kind: found 'max-trp', expected a check kind that applies to eis (min-peak, percentile, min-coverage, min-beam-peak)",
-      "checks[1].kind: found 'peak', expected one of min-peak, percentile, min-coverage, min-beam-peak, max-trp, max-peak",
+      "checks[0].kind: found 'max-trp', expected a check kind that applies to eis (min-peak, percentile, min-coverage, min-relative-coverage, min-beam-peak)",
+      "checks[1].kind: found 'peak', expected one of min-peak, percentile, min-coverage, min-relative-coverage, min-beam-peak, max-trp, max-peak",
     ]);
     expect(parseLimitSetText('name: a\nquantity: power\nchecks: 3\n', 'y.yaml').errors.map((e) => e.message)).toEqual([
       "quantity: found 'power', expected one of eirp, eis, gain",
@@ -137,9 +137,9 @@ describe('merge, needs, listing', () => {
   });
   it('metricNeeds lists percentile levels, both written and relaxed thresholds, and the level each coverage check is equivalent to', () => {
     // coverage ≥ 40 % at 10 dBm ⇔ the 60 % level reaches 10 dBm (eirp); for eis ≥ 50 % ⇔ the 50 % level (Eq. L4)
-    expect(metricNeeds(base)).toEqual({ percentilesPct: [50, 60], thresholds: [9.5, 10] });
+    expect(metricNeeds(base)).toEqual({ percentilesPct: [50, 60], thresholds: [9.5, 10], relativeDb: [] });
     const eis = parseLimitSetText('name: e\nquantity: eis\nchecks:\n  - {kind: min-coverage, threshold: -80, minEfficiency: 0.5, toleranceDb: 0.7}\n', 'e').limitSet!;
-    expect(metricNeeds(eis)).toEqual({ percentilesPct: [50], thresholds: [-80, -79.3] });
+    expect(metricNeeds(eis)).toEqual({ percentilesPct: [50], thresholds: [-80, -79.3], relativeDb: [] });
   });
   it('formatLimitSet prints every check rule and the cautions', () => {
     const text = formatLimitSet(base);

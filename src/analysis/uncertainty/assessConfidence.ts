@@ -65,7 +65,8 @@ export function assessConfidence(a: {
   let jointDefined = a.judged.checks.length > 0;
   const checks = a.judged.checks.map((c, idx) => {
     const spec = ls?.checks.find((x) => x.name === c.name) ?? ls?.checks[idx];
-    if (!spec || c.status === 'not-evaluable' || c.value === null) {
+    // A window relative to the peak moves with the peak's own uncertainty: not assessed (yet).
+    if (!spec || spec.kind === 'min-relative-coverage' || c.status === 'not-evaluable' || c.value === null) {
       jointDefined = false;
       const decision: CheckDecision = { rule: u.decisionRule, acceptanceLimit: c.effectiveLimit, guardBandDb: u.decisionRule === 'guarded' ? u.guardBandDb : null,
         statement: null, probabilityOfConformance: null, probabilityStdErr: null, valueStdDev: null, bias: null };
@@ -173,6 +174,8 @@ function checkSeries(spec: LimitCheck, c: CheckResult, mc: MonteCarloDraws, leve
     }
     case 'min-coverage':
       return { value: efficiencyAt(spec.threshold), draws: mc.coverage[thresholds.indexOf(spec.threshold)] };
+    case 'min-relative-coverage':
+      throw new RangeError('checkSeries: min-relative-coverage checks are not assessed');
     case 'min-peak':
     case 'max-peak':
       return { value: c.value as number, draws: mc.peak };
