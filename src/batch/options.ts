@@ -19,7 +19,7 @@ export interface AnalyzeOptions {
   pdf?: boolean;
   /** Skip the optional analysis (holes, beam removal, smallest subset). */
   coreOnly?: boolean;
-  /** Write viewer.html (default true). */
+  /** Write viewer.html (default: when PDFs are written). */
   viewer?: boolean;
   /** Parallel units; default os.availableParallelism(). */
   jobs?: number | 'auto';

@@ -220,7 +220,8 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   let reference = referenceArg;
   const generatedAt = opts.creationDate ?? new Date().toISOString();
   const pdf = opts.pdf !== false;
-  const viewer = opts.viewer !== false;
+  // viewer.html goes with the reports: --no-pdf stays "JSON and CSV only, for speed" (CONTRACT.md).
+  const viewer = opts.viewer ?? pdf;
   const pageSize = opts.pageSize ?? 'a4';
   const jobs = opts.jobs ?? 'auto';
   let report: ReportSettings | null = null;

@@ -65,7 +65,7 @@ export function toAnalyzeOptions(input: string, o: Record<string, unknown>, io: 
     eisPolarizations: str('eisPolarizations') as 'each' | 'combined' | undefined,
     pdf: o.pdf !== false,
     coreOnly: o.coreOnly === true,
-    viewer: o.viewer !== false,
+    viewer: o.viewer === false ? false : undefined,
     jobs: str('jobs') !== undefined ? parseJobs(str('jobs') as string) : undefined,
     json: o.json === true,
     quiet: o.quiet === true,

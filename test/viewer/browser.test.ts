@@ -24,7 +24,7 @@ const DIFF_TOL = 0.011;
 
 function analyze(input: string, extra: string[]): { out: string; results: ResultsFile } {
   const out = mkdtempSync(path.join(tmpdir(), 'spherecov-viewer-'));
-  const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', input, '--out', out, '--no-pdf', '--quiet', '--jobs', '1', ...extra], { encoding: 'utf8' });
+  const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', input, '--out', out, '--quiet', '--jobs', '1', ...extra], { encoding: 'utf8' });
   expect(r.status === 0 || r.status === 1, r.stderr).toBe(true);
   return { out, results: JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8')) as ResultsFile };
 }
