@@ -27,6 +27,7 @@ import { gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
 import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView } from './polarizationUnits.js';
 import type { ViewerUnit } from '../viewer/viewerData.js';
+import { impliedChoices } from '../limits/impliedChoices.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -99,19 +100,14 @@ export function warningText(w: Warning): string {
   return `${where}${w.message}`;
 }
 
-/** Threshold for the hole search: the first coverage check's threshold, else the first percentile check's limit, else the first requested threshold. */
+/** Threshold for the hole search, removal and the map contour (limits/impliedChoices.ts). */
 export function holeThreshold(ls: LimitSet | null, thresholds: number[]): number | null {
-  const cov = ls?.checks.find((c) => c.kind === 'min-coverage');
-  if (cov && cov.kind === 'min-coverage') return cov.threshold;
-  const pct = ls?.checks.find((c) => c.kind === 'percentile');
-  if (pct && pct.kind === 'percentile') return pct.limit;
-  return thresholds.length ? thresholds[0] : null;
+  return impliedChoices(ls, thresholds).threshold;
 }
 
-/** Percentile level used for beam removal and subset: the first percentile check's, else 50 %. */
+/** Percentile level used for beam removal and subset (limits/impliedChoices.ts). */
 export function analysisLevel(ls: LimitSet | null): number {
-  const pct = ls?.checks.find((c) => c.kind === 'percentile');
-  return pct && pct.kind === 'percentile' ? pct.levelPct : 50;
+  return impliedChoices(ls, []).levelPct;
 }
 
 /** What measureUnit reads of a task: the metrics asked for, the limit set, and whether to skip the optional analysis. */
@@ -204,6 +200,7 @@ export async function renderUnit(
     {
       result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta, tspCdf: cdf,
       polarizationCdfs: componentTsps?.map((c) => ({ name: c.name, curve: cdfCurve(c.values, c.weightSr, m.quantity) })),
+      analysisThreshold: holeThreshold(input.limitSet, input.thresholds),
     },
     input.report,
   );

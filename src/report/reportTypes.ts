@@ -49,6 +49,11 @@ export interface UnitReportInput {
   tspCdf?: CdfCurve;
   /** θ/φ pairs: each polarization component's TSP CDF (src/report/polarizationSection.ts). */
   polarizationCdfs?: { name: Polarization; curve: CdfCurve }[];
+  /**
+   * The run's one analysis threshold (limits/impliedChoices.ts): the map contour is drawn there, the
+   * same threshold the hole search used. Absent (a caller without the limit set): contourThreshold.
+   */
+  analysisThreshold?: number | null;
 }
 
 /** A small equal-area raster of a unit's TSP, plain data (transferable from a worker thread). */

@@ -447,7 +447,7 @@ export async function renderUnitPdf(input: UnitReportInput, settings: ReportSett
   const r = input.result;
   const sec = settings.sections;
   const doc = createDoc(settings, input.generatedAt, `${settings.title}: ${r.unit}`, `Spherical coverage of ${unitLabel(r)}`);
-  const threshold = contourThreshold(r);
+  const threshold = input.analysisThreshold !== undefined ? input.analysisThreshold : contourThreshold(r);
   const needMaps = sec.tspMap || sec.bestBeamMap || (sec.reference && !!input.referenceDelta);
   const maps = needMaps
     ? buildUnitMaps(input.measurement, input.tsp, { widthPx: settings.mapWidthPx, centerPhiDeg: settings.mapCenterPhiDeg, colorMap: settings.colorMap, threshold, delta: sec.reference ? input.referenceDelta : undefined })

@@ -1,0 +1,15 @@
+import { describe, expect, it } from 'vitest';
+import { impliedChoices } from '../../src/limits/impliedChoices.js';
+import type { LimitCheck } from '../../src/limits/limitSet.js';
+
+const cov: LimitCheck = { kind: 'min-coverage', name: 'c', threshold: 8, minEfficiency: 0.5, toleranceDb: 1 };
+const pct: LimitCheck = { kind: 'percentile', name: 'p', levelPct: 20, limit: 11.5, toleranceDb: 0 };
+
+describe('limit-implied choices: one threshold and one level for holes, contour, removal, subset', () => {
+  it('takes the coverage threshold as written (not tolerance-relaxed), else the percentile limit, else the first requested', () => {
+    expect(impliedChoices({ checks: [pct, cov] }, [3])).toEqual({ threshold: 8, levelPct: 20 });
+    expect(impliedChoices({ checks: [pct] }, [3])).toEqual({ threshold: 11.5, levelPct: 20 });
+    expect(impliedChoices(null, [3, 4])).toEqual({ threshold: 3, levelPct: 50 });
+    expect(impliedChoices({ checks: [] }, [])).toEqual({ threshold: null, levelPct: 50 });
+  });
+});
