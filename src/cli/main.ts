@@ -12,6 +12,7 @@ import type { AnalyzeOptions, BatchIo } from '../batch/options.js';
 import type { Quantity } from '../types.js';
 import { TOOL_VERSION } from '../batch/version.js';
 import { runInspect, runLimits } from './commands.js';
+import { LEVEL_RANGE, RELATIVE_DB_RANGE, type SaneRange } from '../io/saneRange.js';
 import { exitCodeForSignal, interruptSignal, receivedSignal } from './signals.js';
 
 const EXAMPLES = `
@@ -51,15 +52,15 @@ function toOption(spec: OptionSpec): Option {
 /** Commander's option bag → AnalyzeOptions, with every value checked. */
 export function toAnalyzeOptions(input: string, o: Record<string, unknown>, io: BatchIo): AnalyzeOptions {
   const str = (k: string) => (typeof o[k] === 'string' ? (o[k] as string) : undefined);
-  const list = (k: string, option: string) => (str(k) !== undefined ? parseNumberList(str(k) as string, option) : undefined);
+  const list = (k: string, option: string, range: SaneRange) => (str(k) !== undefined ? parseNumberList(str(k) as string, option, range) : undefined);
   const out = str('out');
   if (!out) throw new UsageError("missing --out <dir>: name the folder for the results");
   return {
     input,
     outDir: out,
     percentilesPct: str('percentiles') !== undefined ? parsePercentiles(str('percentiles') as string) : undefined,
-    thresholds: list('coverageThresholds', 'coverage-thresholds'),
-    relativeDb: list('relativeDb', 'relative-db'),
+    thresholds: list('coverageThresholds', 'coverage-thresholds', LEVEL_RANGE),
+    relativeDb: list('relativeDb', 'relative-db', RELATIVE_DB_RANGE),
     limits: str('limits'),
     quantity: str('quantity') as Quantity | undefined,
     eisPolarizations: str('eisPolarizations') as 'each' | 'combined' | undefined,

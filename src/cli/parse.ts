@@ -1,3 +1,4 @@
+import { inSaneRange, type SaneRange } from '../io/saneRange.js';
 import { FAIL_ON_CONDITIONS, type FailOnCondition } from '../batch/exitCode.js';
 
 /**
@@ -13,10 +14,11 @@ export class UsageError extends Error {
 }
 
 /**
- * Parse a comma-separated list of finite numbers (`-88,-85`, `10, 12.5`).
+ * Parse a comma-separated list of finite numbers (`-88,-85`, `10, 12.5`), each inside `range`
+ * when one is given (io/saneRange.ts).
  * @throws UsageError naming the option and the offending item.
  */
-export function parseNumberList(text: string, option: string): number[] {
+export function parseNumberList(text: string, option: string, range?: SaneRange): number[] {
   const items = text.split(',').map((s) => s.trim());
   if (items.length === 0 || items.every((s) => s === '')) {
     throw new UsageError(`--${option}: found '${text}', expected a comma-separated list of numbers`);
@@ -26,6 +28,7 @@ export function parseNumberList(text: string, option: string): number[] {
     if (!Number.isFinite(v)) {
       throw new UsageError(`--${option}: found '${s}', expected a number in a comma-separated list (e.g. --${option} 10,12.5)`);
     }
+    if (range && !inSaneRange(v, range)) throw new UsageError(`--${option}: found '${s}', expected ${range.expected}`);
     return v;
   });
 }

@@ -6,6 +6,7 @@ import { clipText } from './inputError.js';
 import { parseNumberText } from './numberText.js';
 import { readTrustedText, TrustedFileError } from './trustedFile.js';
 import { yamlToJs } from './yamlToJs.js';
+import { FREQUENCY_HZ_RANGE, inSaneRange, LEVEL_RANGE, OFFSET_RANGE } from './saneRange.js';
 import { identityPatternProblem } from './identityPattern.js';
 import type { CalibrationPoint, ColumnRole, JobSpec } from './types.js';
 import { QUANTITIES } from '../quantity.js';
@@ -220,7 +221,8 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
           }
           const f = c.number(o[fk[0]], [...p, fk[0]]);
           const off = c.number(o.offset_db, [...p, 'offset_db']);
-          if (f !== undefined && !(f > 0)) c.fail([...p, fk[0]], o[fk[0]], 'a positive frequency');
+          if (f !== undefined && !inSaneRange(f * FREQ_KEYS[fk[0]], FREQUENCY_HZ_RANGE)) c.fail([...p, fk[0]], o[fk[0]], FREQUENCY_HZ_RANGE.expected);
+          else if (off !== undefined && !inSaneRange(off, OFFSET_RANGE)) c.fail([...p, 'offset_db'], o.offset_db, OFFSET_RANGE.expected);
           else if (f !== undefined && off !== undefined) points.push({ frequencyHz: f * FREQ_KEYS[fk[0]], offsetDb: off });
         });
         points.sort((a, b) => a.frequencyHz - b.frequencyHz);
@@ -243,7 +245,7 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
   }
   job.percentiles = c.numbers(top.percentiles, ['percentiles'], 0, 100);
   const ctKey = top.coverage_thresholds !== undefined ? 'coverage_thresholds' : 'coverageThresholds';
-  job.coverageThresholds = c.numbers(top[ctKey], [ctKey]);
+  job.coverageThresholds = c.numbers(top[ctKey], [ctKey], LEVEL_RANGE.lo, LEVEL_RANGE.hi);
   if (top.report !== undefined) {
     const r = c.object(top.report, ['report']);
     if (r) job.report = r;

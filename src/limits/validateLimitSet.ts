@@ -1,4 +1,5 @@
 import { clipText } from '../io/inputError.js';
+import { LEVEL_RANGE } from '../io/saneRange.js';
 import type { CheckKind, InputError, Quantity } from '../types.js';
 import type { CheckDraft, LimitCheck, LimitSet } from './limitSet.js';
 import { CHECK_KINDS, kindDef, type FieldReader } from './checkKinds.js';
@@ -153,7 +154,9 @@ export function validateChecks(rawChecks: unknown[], base: KeyPath, quantity: Qu
       : num(c, [...p, 'toleranceDb'], fail, 0, 30, 'a test tolerance in dB between 0 and 30');
     const common = { toleranceDb, ...(c.source !== undefined ? { source: str(c, [...p, 'source'], true, fail) } : {}) };
     const read: FieldReader = {
-      num: (key, lo, hi, what) => num(c, [...p, key], fail, lo, hi, what),
+      // A number a kind leaves unbounded is a level (a limit, a threshold): finite and inside the
+      // sane level range (io/saneRange.ts), so no limit can turn into ±Infinity downstream.
+      num: (key, lo, hi, what) => num(c, [...p, key], fail, lo ?? LEVEL_RANGE.lo, hi ?? LEVEL_RANGE.hi, what ?? LEVEL_RANGE.expected),
       raw: (key) => c[key],
       fail: (key, found, expected) => fail([...p, key], found, expected),
     };

@@ -62,7 +62,7 @@ describe('limit-set files', () => {
     const { limitSet, errors } = parseLimitSetText(bad, 'demo.yaml');
     expect(limitSet).toBeNull();
     expect(msgs(errors)).toEqual([
-      "13:12: checks[1].limit: found 'eight', expected a number",
+      "13:12: checks[1].limit: found 'eight', expected a number between -500 and 500 (dBm or dBi)",
       "16:20: checks[2].minEfficiency: found '40', expected a fraction of the sphere between 0 and 1 (0.5 = 50 %)",
       '22:5: checks[4].toleranceDB: found an unknown key, expected one of kind, name, toleranceDb, source, limit for kind max-trp',
     ]);
@@ -132,7 +132,7 @@ describe('merge, needs, listing', () => {
     const r = validateExtraChecks([{ kind: 'max-peak', limit: 'high' }], 'job.yaml', 'eirp');
     expect(r.checks).toEqual([]);
     expect(r.errors).toEqual([{ file: 'job.yaml', columnName: 'limits.extraChecks[0].limit',
-      message: "limits.extraChecks[0].limit: found 'high', expected a number" }]);
+      message: "limits.extraChecks[0].limit: found 'high', expected a number between -500 and 500 (dBm or dBi)" }]);
     expect(validateExtraChecks({}, 'job.yaml', 'eirp').errors[0].message).toBe('limits.extraChecks: found a mapping, expected a list of checks');
   });
   it('metricNeeds lists percentile levels, both written and relaxed thresholds, and the level each coverage check is equivalent to', () => {

@@ -314,3 +314,37 @@ describe('Unicode names', () => {
     expect(res.units[0].unitAsWritten).toEqual([nfd, nfc].sort());
   });
 });
+
+describe('numbers out of any sane range', () => {
+  /** One beam on a 15° grid, `pole` at θ = 0 and 10 dBm elsewhere. */
+  function poleFile(dir: string, pole: string, header = 'theta_deg,phi_deg,eirp_dbm'): void {
+    const rows = [header];
+    for (let t = 0; t <= 180; t += 15) for (let p = 0; p < 360; p += 15) rows.push(`${t},${p},${t === 0 ? pole : '10'}`);
+    mkdirSync(dir, { recursive: true });
+    writeFileSync(path.join(dir, 'U-09_beam1_28GHz.csv'), rows.join('\n') + '\n');
+  }
+
+  it('1e308 dBm at a pole: a located input error naming file:line:column, no internal function', () => {
+    for (const [pole, header] of [['1e308', 'theta_deg,phi_deg,eirp_dbm'], ['1e300', 'theta_deg,phi_deg,eirp_mw'], ['-1e308', 'theta_deg,phi_deg,eirp_dbm']]) {
+      const dir = path.join(tmp('pole'), 'in');
+      poleFile(dir, pole, header);
+      const out = tmp('o');
+      const r = analyze(dir, out, ['--no-pdf']);
+      expect(r.code, r.stderr).toBe(2);
+      // Line 2 is the first data row (θ = 0, φ = 0); column 7 is the value field.
+      expect(r.stderr).toMatch(new RegExp(`U-09_beam1_28GHz\\.csv:2:\\d+: eirp_(dbm|mw): found '${pole.replace('-', '\\-')}', expected a number between -500 and 500`));
+      expect(r.stderr).not.toMatch(/createMeasurement|internal error/);
+    }
+  });
+
+  it('a limit of -1e308, a coverage threshold of 1e309 and a calibration offset of 1e300: located errors, exit 2', () => {
+    const dir = input('limits: lim.yaml\n');
+    writeFileSync(path.join(dir, 'lim.yaml'), 'name: x\nquantity: eirp\nchecks:\n  - kind: min-peak\n    limit: -1e308\n');
+    expectUserError(analyze(dir, tmp('o'), ['--no-pdf']), /lim\.yaml:5:12: checks\[0\]\.limit: found '-1e\+308', expected a number between -500 and 500/);
+    expectUserError(analyze(input('coverage_thresholds: [10, 1e309]\n'), tmp('o'), ['--no-pdf']), /spherecov\.yaml:1:\d+: coverage_thresholds\[1\]: found '.*', expected a (number|finite)/);
+    expectUserError(analyze(input('coverage_thresholds: [10, -1e300]\n'), tmp('o'), ['--no-pdf']), /coverage_thresholds\[1\]: found '-1e\+300', expected a number between -500 and 500/);
+    expectUserError(analyze(input('calibration:\n  table:\n    - frequency_ghz: 28\n      offset_db: 1e300\n'), tmp('o'), ['--no-pdf']),
+      /spherecov\.yaml:4:18: calibration\.table\[0\]\.offset_db: found '1e\+300', expected a finite offset between -200 and 200 dB/);
+    expectUserError(analyze(input(), tmp('o'), ['--no-pdf', '--coverage-thresholds', '-1e308']), /--coverage-thresholds: found '-1e308', expected a number between -500 and 500/);
+  });
+});

@@ -1,4 +1,5 @@
 import { mwToDbm, wToDbm } from '../../units.js';
+import { inSaneRange, LEVEL_RANGE } from '../saneRange.js';
 import { pairComponent } from '../columnRoles.js';
 import type { LongPlan } from './longLayout.js';
 import type { DropoutLog } from './dropoutLog.js';
@@ -48,7 +49,6 @@ export class LongSink implements RowSink {
   private polOk: number[] = [];
   // Per-file constants of row(), fixed once instead of derived on every row.
   private readonly angles: RowAngles;
-  private readonly linear: boolean;
 
   constructor(
     protected readonly plan: LongPlan,
@@ -58,7 +58,6 @@ export class LongSink implements RowSink {
     private readonly dropouts: DropoutLog,
   ) {
     this.angles = new RowAngles(plan.angleConvention, plan.angleUnit);
-    this.linear = plan.fileValueUnit === 'mW' || plan.fileValueUnit === 'W';
   }
 
   private err(line: number, f: number, loc: RowLocator, expected: string): void {
@@ -80,7 +79,11 @@ export class LongSink implements RowSink {
         this.err(line, this.fieldOfNum(slot), loc, `a positive power in ${u}`);
         return null;
       }
-      return u === 'mW' ? mwToDbm(v) : wToDbm(v);
+      v = u === 'mW' ? mwToDbm(v) : wToDbm(v);
+    }
+    if (!inSaneRange(v, LEVEL_RANGE)) {
+      this.err(line, this.fieldOfNum(slot), loc, `${LEVEL_RANGE.expected}${u === 'mW' || u === 'W' ? ` after conversion from ${u}` : ''}`);
+      return null;
     }
     return v;
   }
@@ -101,8 +104,7 @@ export class LongSink implements RowSink {
       this.rows++;
       return; // a dropout: no sample at this direction for this beam
     }
-    let value: number | null = nums[2];
-    if (this.linear) value = this.toDb(value, 2, line, loc);
+    const value = this.toDb(nums[2], 2, line, loc);
     if (value === null) return;
     let phiValue = NaN;
     if (p.pairValues) {

@@ -1,4 +1,5 @@
 import { mwToDbm, wToDbm } from '../../units.js';
+import { inSaneRange, LEVEL_RANGE } from '../saneRange.js';
 import type { MatrixPlan } from './matrixLayout.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { RowLocator, RowSink } from '../rowSink.js';
@@ -56,6 +57,10 @@ export class MatrixSink implements RowSink {
           continue;
         }
         v = u === 'mW' ? mwToDbm(v) : wToDbm(v);
+      }
+      if (!inSaneRange(v, LEVEL_RANGE)) {
+        this.errors.add(inputError(this.file, line, loc.col(c), p.fields.names[c], loc.text(c).trim(), LEVEL_RANGE.expected));
+        continue;
       }
       this.acc.push(thetaDeg, this.colDeg[c - 1], v);
     }

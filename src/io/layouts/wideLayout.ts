@@ -6,6 +6,7 @@
  * from the headers; a unit or frequency column may stand beside the angles.
  */
 import type { InputError, Quantity, Warning } from '../../types.js';
+import { inSaneRange, LEVEL_RANGE } from '../saneRange.js';
 import { mwToDbm, wToDbm } from '../../units.js';
 import { warning } from '../../warnings.js';
 import { roleOfName } from '../columnRoles.js';
@@ -251,7 +252,11 @@ class WideSink implements LayoutSink {
         this.err(line, this.field(slot), loc, `a positive power in ${u}`);
         return null;
       }
-      return u === 'mW' ? mwToDbm(v) : wToDbm(v);
+      v = u === 'mW' ? mwToDbm(v) : wToDbm(v);
+    }
+    if (!inSaneRange(v, LEVEL_RANGE)) {
+      this.err(line, this.field(slot), loc, `${LEVEL_RANGE.expected}${u === 'mW' || u === 'W' ? ` after conversion from ${u}` : ''}`);
+      return null;
     }
     return v;
   }
