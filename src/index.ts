@@ -1,6 +1,28 @@
-// Public library entry: re-exports grouped by pipeline stage (filled in as stages land).
+/**
+ * spherecov as a library. Start with `analyzeBeams` (beams in memory → the per-unit result that
+ * results.json carries) and `unitReportPdf` (→ the unit PDF); the stages below are exported for
+ * other pipelines, in pipeline order: read → normalize → combine and measure → deeper analysis
+ * → judge → report → the whole batch run.
+ */
 export type * from './types.js';
 export { WARNINGS, warning } from './warnings.js';
+
+// library: data in memory → the UnitResult the CLI writes → the unit PDF
+export { analyzeBeams, BeamsInputError } from './library/analyzeBeams.js';
+export type { BeamsInput, SampleDirections, UnitAnalysis } from './library/analyzeBeams.js';
+export { unitReportPdf } from './library/unitReportPdf.js';
+export type { UnitReportOptions } from './library/unitReportPdf.js';
+
+// read: chamber exports (one LayoutReader per layout), job file, inspect, raw beams → Measurements
+export { LAYOUTS } from './io/layouts/registry.js';
+export type { LayoutReader, PlannedLayout, LayoutSink } from './io/layouts/layoutTypes.js';
+export {
+  readExportFile, assembleMeasurements, MAX_RESAMPLE_DISTANCE_DEG, loadJobFile, findJobFile, JOB_FILE_NAMES,
+  inspectInput, formatInspect, findExportFiles, calibrationOffsetDb, pathIdentity,
+} from './io/index.js';
+export type {
+  ReadContext, FileReadResult, RawBeam, FileInfo, JobSpec, InspectReport, InspectOptions, CalibrationPoint, ColumnRole,
+} from './io/index.js';
 
 // normalize: units, directions, sphere grids and weights, the Measurement factory
 export { dbToLinear, linearToDb, powerSumDb, powerSumDbArrays, mwToDbm, wToDbm } from './units.js';
@@ -38,23 +60,7 @@ export { beamPeak } from './coverage/beamPeak.js';
 export { computeMetrics } from './coverage/computeMetrics.js';
 export type { MetricOptions } from './coverage/computeMetrics.js';
 
-// judge: limit sets, profiles, verdicts, build statistics
-export {
-  loadLimitSet, parseLimitSetText, listProfiles, formatLimitSet, validateLimitSet, validateExtraChecks,
-  judge, evaluateCheck, mergeLimitSets, metricNeeds, frequencyInRange, buildStatistics,
-} from './limits/index.js';
-export type { LimitSet, LimitCheck, ProfileInfo, JudgeResult } from './limits/index.js';
-
-// read + normalize: chamber exports, job file, inspect
-export {
-  readExportFile, assembleMeasurements, MAX_RESAMPLE_DISTANCE_DEG, loadJobFile, findJobFile, JOB_FILE_NAMES,
-  inspectInput, formatInspect, findExportFiles, calibrationOffsetDb, pathIdentity,
-} from './io/index.js';
-export type {
-  ReadContext, FileReadResult, RawBeam, FileInfo, JobSpec, InspectReport, InspectOptions, CalibrationPoint, ColumnRole,
-} from './io/index.js';
-
-// deeper analysis (issue 9): holes, beam value, reference unit, frequency trend
+// deeper analysis: holes, beam value, reference unit, frequency trend
 export { gridNeighbors } from './sphere/neighbors.js';
 export type { GridAdjacency } from './sphere/neighbors.js';
 export {
@@ -63,18 +69,19 @@ export {
 } from './analysis/index.js';
 export type { FrequencyTrendRow, BeamDrift } from './analysis/index.js';
 
+// judge: limit sets, profiles, verdicts, build statistics
+export {
+  loadLimitSet, parseLimitSetText, listProfiles, formatLimitSet, validateLimitSet, validateExtraChecks,
+  judge, evaluateCheck, mergeLimitSets, metricNeeds, frequencyInRange, buildStatistics,
+} from './limits/index.js';
+export type { LimitSet, LimitCheck, ProfileInfo, JudgeResult } from './limits/index.js';
+
 // report: unit and build PDFs, settings, thumbnails, the equal-area projection
 export {
   renderUnitPdf, renderBuildPdf, unitMapThumbnail, cdfCurve, loadReportSettings, ReportSettingsError, unitKey,
   hammerForward, hammerInverse, contourThreshold, CAUTION,
 } from './report/index.js';
 export type { BuildReportInput, MapThumbnail, ReportSettings, ReportSections, UnitReportInput, CdfCurve } from './report/index.js';
-
-// library: data in memory → the UnitResult the CLI writes → the unit PDF
-export { analyzeBeams, BeamsInputError } from './library/analyzeBeams.js';
-export type { BeamsInput, SampleDirections, UnitAnalysis } from './library/analyzeBeams.js';
-export { unitReportPdf } from './library/unitReportPdf.js';
-export type { UnitReportOptions } from './library/unitReportPdf.js';
 
 // batch: the whole analyze run (discover → analyze units in parallel → write outputs)
 export { runAnalyze } from './batch/runAnalyze.js';

@@ -6,4 +6,4 @@ export { cdfCurve, type CdfCurve } from './cdfCurve.js';
 export { loadReportSettings, ReportSettingsError, type ReportSettingsOverrides } from './settings.js';
 export { hammerForward, hammerInverse, HAMMER_HALF_WIDTH, HAMMER_HALF_HEIGHT } from './hammerProjection.js';
 export { unitKey, type BuildReportInput, type MapThumbnail, type ReportSettings, type ReportSections, type UnitReportInput } from './reportTypes.js';
-export { CAUTION } from './pdfDoc.js';
+export { CAUTION } from './caution.js';

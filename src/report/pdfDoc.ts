@@ -1,11 +1,12 @@
 import PDFDocument from 'pdfkit';
 import { reportFontSources, shareLayoutCaches } from './fonts.js';
 import type { ReportSettings } from './reportTypes.js';
-
-export type Doc = PDFKit.PDFDocument;
-
 import { CAUTION } from './caution.js';
-export { CAUTION };
+
+/** A pdfkit document (typed through the module import, never pdfkit's global namespace). */
+export type Doc = InstanceType<typeof PDFDocument>;
+
+export { CAUTION } from './caution.js';
 
 export const INK = '#1a1a1a';
 export const MUTED = '#5a5a5a';
