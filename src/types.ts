@@ -428,6 +428,8 @@ export interface UnitResult {
 export interface BuildMetricStats {
   frequencyHz: number | null;
   metric: string;
+  /** What mean/std/min/max/limits are in: dB (dBm, dBi, dB margins) or a fraction of 4π. */
+  valueKind?: 'dB' | 'fraction';
   count: number;
   mean: number | null;
   std: number | null;

@@ -5,7 +5,13 @@ import type { BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
 import { errorLocation, errorMessage } from '../report/unitStatus.js';
 import { confidenceColumns } from '../analysis/uncertainty/confidenceColumns.js';
 import { toCsv, type CsvCell } from './csv.js';
-import { coverageMetricValues, csvColumn, FAMILY_ORDER, metricsOfUnit, peakBeamIndex, type MetricValue } from '../metrics/catalogue.js';
+import { coverageMetricValues, csvColumn, FAMILY_ORDER, metricsOfUnit, metricUnit, peakBeamIndex, type MetricInstance, type MetricValue } from '../metrics/catalogue.js';
+import { roundForCsv as r } from './csvResolution.js';
+
+/** CSV resolution of a metric's number: shares of 4π at 1e-4, everything else (dB, dBm, dBi) at 0.01. */
+function scaleOf(m: MetricInstance): 'fraction' | 'dB' {
+  return metricUnit(m) === 'fraction' ? 'fraction' : 'dB';
+}
 
 /**
  * The metric columns of summary.csv: every catalogued metric with a CSV column, the union over
@@ -62,20 +68,20 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
     const pb = u.beams[peakBeamIndex(metricsOfUnit(u))] ?? null;
     const polCells: CsvCell[] = pols.length ? [u.polarizationRule ?? null, u.limitingPolarization ?? null] : [];
     for (const p of pols) {
-      const r = u.polarizations?.find((x) => x.name === p);
-      polCells.push(r?.tsp.peak.value ?? null, ...levels.map((l) => r?.tsp.percentiles.find((x) => x.levelPct === l)?.value ?? null), r?.verdict ?? null);
+      const pr = u.polarizations?.find((x) => x.name === p);
+      polCells.push(r(pr?.tsp.peak.value, 'dB'), ...levels.map((l) => r(pr?.tsp.percentiles.find((x) => x.levelPct === l)?.value, 'dB')), pr?.verdict ?? null);
     }
     const row: CsvCell[] = [
-      u.unit, u.frequencyHz, u.quantity, u.valueUnit, u.beams.length, u.grid.points, u.solidAngleSr, u.solidAngleSr / (4 * Math.PI),
-      u.tsp.peak.value, u.tsp.peak.thetaDeg, u.tsp.peak.phiDeg,
-      ...columns.map((c) => perUnit[k].get(c)?.value ?? null),
-      pb?.id ?? null, pb?.trpDbm ?? null, verdictCell(u),
+      u.unit, r(u.frequencyHz, 'hz'), u.quantity, u.valueUnit, u.beams.length, u.grid.points, r(u.solidAngleSr, 'sr'), r(u.solidAngleSr / (4 * Math.PI), 'fraction'),
+      r(u.tsp.peak.value, 'dB'), r(u.tsp.peak.thetaDeg, 'deg'), r(u.tsp.peak.phiDeg, 'deg'),
+      ...columns.map((c) => { const v = perUnit[k].get(c); return v ? r(v.value, scaleOf(v.metric)) : null; }),
+      pb?.id ?? null, r(pb?.trpDbm, 'dB'), verdictCell(u),
       u.checks.filter((c) => c.status === 'fail').length, u.checks.filter((c) => c.status === 'not-evaluable').length,
-      u.worstCheck?.name ?? null, u.worstCheck?.margin ?? null, u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,
-      u.worstCheck ? (u.worstCheck.marginUnit === 'fraction' ? u.worstCheck.marginDb ?? null : u.worstCheck.margin) : null,
+      u.worstCheck?.name ?? null, r(u.worstCheck?.margin, u.worstCheck?.marginUnit === 'fraction' ? 'fraction' : 'dB'), u.worstCheck ? u.worstCheck.marginUnit ?? 'dB' : null,
+      r(u.worstCheck ? (u.worstCheck.marginUnit === 'fraction' ? u.worstCheck.marginDb ?? null : u.worstCheck.margin) : null, 'dB'),
       ...polCells,
       ...sure.cells(u),
-      u.grid.fullSphere ? 'yes' : 'no', u.grid.fullSphere ? 0 : 4 * Math.PI - u.solidAngleSr, u.grid.missing?.length ?? 0, u.warnings?.length ?? 0, null, null,
+      u.grid.fullSphere ? 'yes' : 'no', r(u.grid.fullSphere ? 0 : 4 * Math.PI - u.solidAngleSr, 'sr'), u.grid.missing?.length ?? 0, u.warnings?.length ?? 0, null, null,
     ];
     return { unit: u.unit, f: u.frequencyHz, row };
   });
@@ -83,7 +89,7 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
   for (const e of notAnalyzed) {
     const row: CsvCell[] = header.map(() => null);
     row[0] = e.unit;
-    row[1] = e.frequencyHz;
+    row[1] = r(e.frequencyHz, 'hz');
     row[firstVerdict] = 'error';
     row[header.length - 2] = errorLocation(e.error);
     row[header.length - 1] = errorMessage(e.error);
@@ -94,15 +100,20 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
 }
 
 /**
- * build-stats.csv: one row per frequency and metric of the build summary. `yield` is passed /
+ * build-stats.csv: one row per frequency and metric of the build summary, numbers at the
+ * resolution of csvResolution.ts (shares and yields 1e-4, dB 0.01, Cpk 0.01). `yield` is passed /
  * judged; `yield_in_build` is passed / units in the build (a unit that could not be read counts).
  */
 export function buildStatsCsv(build: BuildSummary | null): string {
   const header = ['frequency_hz', 'metric', 'count', 'mean', 'std', 'min', 'max', 'yield', 'lower_limit', 'upper_limit', 'cpk',
     'passed', 'judged', 'in_build', 'yield_in_build'];
-  const rows: CsvCell[][] = (build?.stats ?? []).map((s) => [
-    s.frequencyHz, s.metric, s.count, s.mean, s.std, s.min, s.max, s.yield, s.lowerLimit, s.upperLimit, s.cpk,
-    s.passedCount ?? null, s.judged ?? null, s.inBuild ?? null, s.yieldInBuild ?? null,
-  ]);
+  const rows: CsvCell[][] = (build?.stats ?? []).map((s) => {
+    const v = s.valueKind === 'fraction' ? 'fraction' : 'dB';
+    return [
+      r(s.frequencyHz, 'hz'), s.metric, s.count, r(s.mean, v), r(s.std, v), r(s.min, v), r(s.max, v), r(s.yield, 'fraction'),
+      r(s.lowerLimit, v), r(s.upperLimit, v), r(s.cpk, 'cpk'),
+      s.passedCount ?? null, s.judged ?? null, s.inBuild ?? null, r(s.yieldInBuild, 'fraction'),
+    ];
+  });
   return toCsv(header, rows);
 }

@@ -20,6 +20,7 @@ import { crossUnitExtras, metricsOf } from './crossUnit.js';
 import type { CdfCurve } from '../report/cdfCurve.js';
 import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';
 import { gridSummary } from '../sphere/gridSummary.js';
+import { qualityWarnings } from '../coverage/qualityWarnings.js';
 import { collapseWarnings } from './collapseWarnings.js';
 import { resolveUncertainty, type UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js';
 import { assessConfidence } from '../analysis/uncertainty/assessConfidence.js';
@@ -125,6 +126,9 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
   let judged = ls
     ? judge(metrics, ls, { quantity: m.quantity, fullSphere: grid.fullSphere })
     : { checks: [], verdict: 'none' as const, worstCheck: null };
+  // Quality warnings join the measurement's typed warnings (results.json and the PDF read both).
+  const known = new Set(m.warnings.map((w) => `${w.code}|${w.message}`));
+  for (const w of qualityWarnings(m, metrics.beams)) if (!known.has(`${w.code}|${w.message}`)) m.warnings.push(w);
   const warnings = m.warnings.map(warningText);
   // How sure the verdict is (issue 17): only with an uncertainty for this quantity; else nothing changes.
   const resolved = resolveUncertainty(input.uncertainty, m.quantity, m.grid.thetaDeg.length);

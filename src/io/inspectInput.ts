@@ -6,6 +6,7 @@ import { assembleMeasurements } from './assembleMeasurements.js';
 import { findExportFiles } from './findExportFiles.js';
 import { findJobFile, loadJobFile } from './jobFile.js';
 import { readExportFile } from './readExportFile.js';
+import { decimalSeparatorSeen, type DecimalSeparatorSeen } from './decimalSeparator.js';
 import type { InspectReport, JobSpec, RawBeam } from './types.js';
 
 export interface InspectOptions {
@@ -38,8 +39,9 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
   const beams: RawBeam[] = [];
   for (const f of findExportFiles(abs)) {
     const r = await readExportFile(f, { inputRoot: root, job, quantityOverride: opts.quantity });
+    const decimalSeparator = r.info.layout && r.info.delimiter ? decimalSeparatorSeen(f, r.info.delimiter, r.info.header?.line ?? 1) : null;
     report.files.push({
-      ...r.info, file: r.file, sha256: r.sha256,
+      ...r.info, decimalSeparator, file: r.file, sha256: r.sha256,
       units: [...new Set(r.beams.map((b) => b.unit))], beams: [...new Set(r.beams.map((b) => b.beam))],
       frequenciesHz: [...new Set(r.beams.map((b) => b.frequencyHz))], errors: r.errors, warnings: r.warnings,
     });
@@ -80,6 +82,12 @@ function headerHow(h: { chosen: string; preambleLines: number }): string {
   return '';
 }
 
+/** The decimal separator found in the data rows, in words. */
+function decimalText(d: DecimalSeparatorSeen | null | undefined): string {
+  if (!d) return '';
+  return d === 'comma' ? '; decimal comma' : d === 'point' ? '; decimal point' : d === 'both' ? '; decimal point and decimal comma both found' : '; no decimal fractions seen';
+}
+
 /** Plain-text rendering of an inspect report (stdout of `spherecov inspect`). */
 export function formatInspect(r: InspectReport): string {
   const out: string[] = [`input: ${r.input}`, `job file: ${r.job.path ?? 'none'}`];
@@ -88,7 +96,7 @@ export function formatInspect(r: InspectReport): string {
   for (const f of r.files) {
     out.push('', `file ${f.file}`);
     if (f.layout) {
-      out.push(`  layout: ${f.layout}; delimiter: ${delimName[f.delimiter ?? ','] ?? 'n/a'}${f.decimalComma ? ', decimal comma' : ''}; ${f.lineEnding ?? ''}${f.bom ? ', BOM' : ''}; parser: ${f.parser ?? 'n/a'}`);
+      out.push(`  layout: ${f.layout}; delimiter: ${delimName[f.delimiter ?? ','] ?? 'n/a'}${decimalText(f.decimalSeparator)}; ${f.lineEnding ?? ''}${f.bom ? ', BOM' : ''}; parser: ${f.parser ?? 'n/a'}`);
       out.push(`  quantity: ${f.quantity} (${f.valueUnit}${f.fileValueUnit !== f.valueUnit ? `, written in ${f.fileValueUnit}` : ''})${f.calibrated ? ', calibrated from received power' : ''}`);
       out.push(`  angles: ${f.angleConvention} in ${f.angleUnit}`);
       if (f.header) out.push(`  header: line ${f.header.line}${headerHow(f.header)}`);

@@ -174,6 +174,8 @@ export interface InspectReport {
   input: string;
   job: { path: string | null; errors: InputError[] };
   files: (FileReadResult['info'] & {
+    /** The decimal separator found in the first data rows (point, comma, both, none); null when the file was not understood. */
+    decimalSeparator: 'point' | 'comma' | 'both' | 'none' | null;
     file: string;
     sha256: string;
     units: string[];

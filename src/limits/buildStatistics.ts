@@ -1,7 +1,7 @@
 import { mean as ssMean, sampleStandardDeviation } from 'simple-statistics';
 import type { BuildMetricStats, BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
 import { processCapability } from './processCapability.js';
-import { coverageMetricValues, FAMILY_ORDER, judgementMetricValues, metricsOfUnit, statsKey, statsOnlyWhenDefined, type MetricInstance } from '../metrics/catalogue.js';
+import { coverageMetricValues, FAMILY_ORDER, judgementMetricValues, metricsOfUnit, metricUnit, statsKey, statsOnlyWhenDefined, type MetricInstance } from '../metrics/catalogue.js';
 
 interface Series {
   metric: MetricInstance;
@@ -10,6 +10,7 @@ interface Series {
   judged: boolean[];
   limits: Set<number>;
   bound?: 'lower' | 'upper';
+  kind?: 'dB' | 'fraction';
 }
 
 /**
@@ -19,7 +20,9 @@ interface Series {
  * `peak`, `p<level>` per percentile, `coverage@<threshold>` per absolute coverage
  * threshold, `maxTrp` (largest beam TRP; full-sphere units only), `minBeamPeak` (worst beam
  * peak: lowest for eirp/gain, highest for eis), one `check:<name>` row per check (the check's
- * value), and `worstMargin` (the unit's worst-check margin).
+ * value), and `worstMargin` (the unit's worst-check margin in dB; for a coverage check its dB
+ * equivalent, so the row never mixes dB and shares). `valueKind` says whether a row's values
+ * are in dB or a fraction of 4π.
  * - mean: arithmetic mean of the dB values (common practice for a build summary);
  *   std: sample standard deviation (n − 1 denominator, simple-statistics
  *   sampleStandardDeviation), null below two values.
@@ -47,7 +50,7 @@ export function buildStatistics(units: UnitResult[], notAnalyzed: UnitNotAnalyze
     let m = byFreq.get(f);
     if (!m) byFreq.set(f, (m = new Map()));
     let s = m.get(key);
-    if (!s) m.set(key, (s = { metric, values: [], judged: [], limits: new Set() }));
+    if (!s) m.set(key, (s = { metric, values: [], judged: [], limits: new Set(), kind: metricUnit(metric) === 'fraction' ? 'fraction' : 'dB' }));
     return s;
   };
   for (const u of units) {
@@ -97,7 +100,7 @@ function row(frequencyHz: number | null, metric: string, s: Series, errored: num
   const passed = s.judged.filter(Boolean).length;
   const inBuild = s.judged.length + errored;
   return {
-    frequencyHz, metric, count: n, mean, std,
+    frequencyHz, metric, valueKind: s.kind ?? 'dB', count: n, mean, std,
     min: n ? Math.min(...s.values) : null,
     max: n ? Math.max(...s.values) : null,
     yield: isCheck && s.judged.length ? passed / s.judged.length : null,

@@ -214,7 +214,9 @@ export function judgementMetricValues(u: Pick<UnitResult, 'checks' | 'worstCheck
     metric: { family: 'check', param: c.name, unit: c.marginUnit === 'fraction' ? 'fraction' : 'value' } as MetricInstance,
     value: c.value === null || c.status === 'not-evaluable' ? null : c.value,
   }));
-  out.push({ metric: { family: 'worstMargin' }, value: u.worstCheck ? u.worstCheck.margin : null });
+  // In dB for every unit (the family's unit): a coverage check's margin is its dB equivalent, never a share of 4π.
+  const w = u.worstCheck;
+  out.push({ metric: { family: 'worstMargin' }, value: w ? (w.marginUnit === 'fraction' ? w.marginDb ?? null : w.margin) : null });
   return out;
 }
 

@@ -26,6 +26,6 @@ describe('formula neutralization (OWASP "CSV injection" guidance, common practic
   });
 
   it('writes CRLF rows with a final line break', () => {
-    expect(toCsv(['unit', 'peak'], [['=1', 3]])).toBe("unit,peak\r\n'=1,3\r\n");
+    expect(toCsv(['unit', 'peak'], [['=1', 3]])).toBe("\uFEFFunit,peak\r\n'=1,3\r\n");
   });
 });

@@ -67,10 +67,10 @@ describe('summaryCsv', () => {
       grid: { points: 100 },
     } as unknown as UnitResult;
     const lines = summaryCsv([unit]).split('\r\n');
-    expect(lines[0]).toBe('unit,frequency_hz,quantity,value_unit,beams,points,measured_solid_angle_sr,measured_fraction,'
+    expect(lines[0]).toBe('\uFEFFunit,frequency_hz,quantity,value_unit,beams,points,measured_solid_angle_sr,measured_fraction,'
       + 'peak,peak_theta_deg,peak_phi_deg,p50,p10,coverage_at_-3,peak_beam,peak_beam_trp_dbm,verdict,checks_failed,'
       + 'checks_not_evaluable,worst_check,worst_margin,worst_margin_unit,worst_margin_db,full_sphere,unmeasured_sr,missing_points,warnings,error_location,error_message');
-    // Half the sphere measured (2π sr): the verdict says it was reached on a partial sphere (issue 12).
-    expect(lines[1]).toBe(`'=cmd,28000000000,eirp,dBm,2,100,${2 * Math.PI},0.5,22,10,0,12.5,,0.4,1,11,fail (partial sphere),1,1,'-margin,-1.5,dB,-1.5,no,${2 * Math.PI},0,0,,`);
+    // 2π sr at the CSV resolution of 1e-4 sr. Half the sphere measured (2π sr): the verdict says it was reached on a partial sphere (issue 12).
+    expect(lines[1]).toBe(`'=cmd,28000000000,eirp,dBm,2,100,6.2832,0.5,22,10,0,12.5,,0.4,1,11,fail (partial sphere),1,1,'-margin,-1.5,dB,-1.5,no,6.2832,0,0,,`);
   });
 });

@@ -95,11 +95,11 @@ describe('analyze, passing build', () => {
     expect(res.units[0].checks.map((c) => [c.name, c.status])).toEqual([
       ['peak EIRP', 'pass'], ['EIRP at 50 %', 'pass'], ['coverage at 10 dBm', 'pass'],
     ]);
-    const csv = readFileSync(path.join(out, 'summary.csv'), 'utf8').trim().split('\r\n');
+    const csv = readFileSync(path.join(out, 'summary.csv'), 'utf8').replace(/^\uFEFF/, '').trim().split('\r\n');
     expect(csv).toHaveLength(3);
     expect(csv[0].startsWith('unit,frequency_hz,quantity,value_unit,beams,points,measured_solid_angle_sr')).toBe(true);
     expect(csv[1].startsWith('U-01,28000000000,eirp,dBm,4,')).toBe(true);
-    expect(readFileSync(path.join(out, 'build-stats.csv'), 'utf8').startsWith('frequency_hz,metric,count,mean,std')).toBe(true);
+    expect(readFileSync(path.join(out, 'build-stats.csv'), 'utf8').startsWith('\uFEFFfrequency_hz,metric,count,mean,std')).toBe(true);
   });
 });
 
@@ -122,7 +122,7 @@ describe('exit codes', () => {
     expect(res.errors[0]).toMatchObject({ file: 'U-02/U-02_beam1_28GHz.csv', line: 5 });
     expect(r.stderr).toContain('U-02/U-02_beam1_28GHz.csv:5');
     // header, U-01, U-02 (verdict error), U-03
-    expect(readFileSync(path.join(out, 'summary.csv'), 'utf8').trim().split('\r\n')).toHaveLength(4);
+    expect(readFileSync(path.join(out, 'summary.csv'), 'utf8').replace(/^\uFEFF/, '').trim().split('\r\n')).toHaveLength(4);
   });
 
   it('2 on usage errors, in plain words', () => {
@@ -182,7 +182,7 @@ describe('negative option values and formula-like unit names', () => {
     const out = tmp();
     expect(run(['analyze', path.join(FIX, 'formula'), '--out', out]).code).toBe(0);
     expect(results(out).units.map((u) => u.unit)).toEqual(['-U-05', '=1+2', '@cmd']);
-    const rows = readFileSync(path.join(out, 'summary.csv'), 'utf8').trim().split('\r\n').slice(1);
+    const rows = readFileSync(path.join(out, 'summary.csv'), 'utf8').replace(/^\uFEFF/, '').trim().split('\r\n').slice(1);
     expect(rows.map((r) => r.split(',')[0])).toEqual(["'-U-05", "'=1+2", "'@cmd"]);
     const pdfs = readdirSync(out).filter((f) => f.endsWith('.pdf') && f !== 'summary.pdf').sort();
     expect(pdfs).toEqual(['1_2_28GHz.pdf', 'U-05_28GHz.pdf', 'cmd_28GHz.pdf']);
