@@ -63,7 +63,7 @@ describe('a build with an unreadable unit (fixtures/cli/unreadable: U-02 has an 
     expect(u2.startsWith('U-02,')).toBe(true);
     expect(u2).toContain(',error,');
     expect(u2).toContain('U-02/U-02_beam1_28GHz.csv:5:8');
-    expect(head.slice(-4)).toEqual(['full_sphere', 'warnings', 'error_location', 'error_message']);
+    expect(head.slice(-6)).toEqual(['full_sphere', 'unmeasured_sr', 'missing_points', 'warnings', 'error_location', 'error_message']);
   });
 
   it('stdout carries the verdict table with the ERROR row, the counts with their denominators and the files written', () => {
