@@ -1,9 +1,8 @@
 import { sphereNormSr } from '../coverage/sphereNormSr.js';
 import type { Quantity } from '../types.js';
-import { worstValue } from '../quantity.js';
+import { neumaierSum } from '../sphere/neumaierSum.js';
+import { percentilePlan } from '../coverage/percentileRule.js';
 
-/** Cumulative solid angle short of the target by less than this (relative) still reaches it; as the core's percentile. */
-const REACH_EPS = 1e-12;
 
 /**
  * A reusable, sort-free evaluator of the solid-angle-weighted percentile of a value array on a
@@ -51,25 +50,11 @@ export function createPercentileSelector(
  * @throws Error when levelPct is outside [0, 100].
  */
 export function selectorPlan(weightSr: Float64Array, quantity: Quantity, levelPct: number): SelectorPlan {
-  if (!(levelPct >= 0 && levelPct <= 100)) throw new Error(`percentile level ${levelPct} is outside [0, 100]`);
   const n = weightSr.length;
-  let measured = 0, c = 0;
-  for (let i = 0; i < n; i++) {
-    const t = measured + weightSr[i];
-    c += Math.abs(measured) >= weightSr[i] ? measured - t + weightSr[i] : weightSr[i] - t + measured;
-    measured = t;
-  }
-  measured += c;
+  const measured = neumaierSum(weightSr);
   const sphereSr = sphereNormSr(measured);
-  const below = worstValue(quantity) === -Infinity ? Math.max(0, sphereSr - measured) : 0; // the unmeasured share counts as the worst value
-  const eps = REACH_EPS * sphereSr;
-  const target = (levelPct / 100) * sphereSr;
-  let mode: SelectorPlan['mode'] = 'select';
-  if (n === 0) mode = 'none';
-  else if (below > 0 && below >= target - eps) mode = 'none'; // reached at −∞, inside the unmeasured part
-  else if (target <= eps) mode = 'minimum';
-  else if (below + measured < target - eps) mode = 'none'; // reached only at +∞ (eis, partial sphere)
-  return { n, mode, selectTargetSr: target - eps - below, sphereSr, measuredSr: measured };
+  const plan = percentilePlan(quantity, levelPct, sphereSr, measured, n); // the core's rule (coverage/percentileRule.ts)
+  return { n, mode: plan.mode, selectTargetSr: plan.reachSr, sphereSr, measuredSr: measured };
 }
 
 export interface SelectorPlan {

@@ -1,13 +1,12 @@
 import type { Quantity } from '../types.js';
 import type { WeightedCdf } from './weightedCdf.js';
-import { worstValue } from '../quantity.js';
+import { percentilePlan } from './percentileRule.js';
 
-/** Relative slack when comparing F(v) with p, for floating drift in summed weights. */
-const REL_TOL = 1e-12;
 
 /**
  * Percentile of the solid-angle-weighted CDF over the full sphere: "levelPct p gives the value
- * v with p % of the sphere at or below v" (CONTRACT.md).
+ * v with p % of the sphere at or below v" (CONTRACT.md). The rule itself lives in
+ * percentileRule.ts (shared with the fast selectors); this reads it off a sorted CDF.
  *
  * Step rule, no interpolation: the smallest distinct value v whose F(v) reaches p/100, with
  * F(v) = (U + Σ w[x ≤ v]) / 4π for eirp/gain and Σ w[x ≤ v] / 4π for eis (Eq. 1); "reaches"
@@ -26,18 +25,12 @@ const REL_TOL = 1e-12;
  * @example percentile(weightedCdf([1, 2, 3, 4], [π, π, π, π]), 50, 'eirp') // 2
  */
 export function percentile(cdf: WeightedCdf, levelPct: number, quantity: Quantity): number | null {
-  if (!(levelPct >= 0 && levelPct <= 100)) throw new RangeError(`percentile: level ${levelPct} % is not in [0, 100]`);
   const { values, cumulativeSr, sphereSr } = cdf;
   const m = values.length;
-  if (m === 0) return null;
-  const target = (levelPct / 100) * sphereSr;
-  const tol = REL_TOL * sphereSr;
-  const unmeasured = Math.max(0, sphereSr - cdf.measuredSr);
-  const below = worstValue(quantity) === -Infinity ? unmeasured : 0; // Eq. 1: the unmeasured mass sits at the worst value, −∞ for eirp/gain
-  if (below > 0 && below >= target - tol) return null;
-  if (target <= tol) return values[0];
-  if (below + cumulativeSr[m - 1] < target - tol) return null; // eis level inside the unmeasured +∞ mass
+  const plan = percentilePlan(quantity, levelPct, sphereSr, cdf.measuredSr, m);
+  if (plan.mode === 'none') return null;
+  if (plan.mode === 'minimum') return values[0];
   let lo = 0, hi = m - 1;
-  while (lo < hi) { const mid = (lo + hi) >> 1; if (below + cumulativeSr[mid] >= target - tol) hi = mid; else lo = mid + 1; } // Eq. 1
+  while (lo < hi) { const mid = (lo + hi) >> 1; if (cumulativeSr[mid] >= plan.reachSr) hi = mid; else lo = mid + 1; } // Eq. 1
   return values[lo];
 }

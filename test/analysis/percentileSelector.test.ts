@@ -63,7 +63,7 @@ describe('createPercentileSelector (step rule, unmeasured part counts as worst)'
   });
 
   it('rejects a level outside [0, 100]', () => {
-    expect(() => createPercentileSelector(new Float64Array(1), 'eirp', 101)).toThrow(/outside/);
+    expect(() => createPercentileSelector(new Float64Array(1), 'eirp', 101)).toThrow(/is not in \[0, 100\]/);
   });
 });
 
