@@ -6,7 +6,8 @@
  * report's projection and colour maps) plus three.js: the page recomputes with the tool's code,
  * not with a second implementation.
  */
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { ResultsFile, SphereGrid, TotalScanPattern, UnitResult } from '../types.js';
 import type { LimitSet } from '../limits/limitSet.js';
@@ -17,17 +18,62 @@ import { VIEWER_CSS } from './viewerCss.js';
 
 let bundled: Promise<string> | null = null;
 
-/** The page script as one minified IIFE (built once per process). */
+interface BundleStamp { inputs: { path: string; size: number; mtimeMs: number }[] }
+
+/** The cached bundle when every input file is unchanged since it was made, else null. */
+function freshCache(bundlePath: string, stampPath: string, root: string): string | null {
+  try {
+    const stamp = JSON.parse(readFileSync(stampPath, 'utf8')) as BundleStamp;
+    for (const i of stamp.inputs) {
+      const st = statSync(path.resolve(root, i.path));
+      if (st.size !== i.size || st.mtimeMs !== i.mtimeMs) return null;
+    }
+    return readFileSync(bundlePath, 'utf8');
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * The page script as one minified IIFE (built once per process). Running from dist/, the bundle
+ * is kept beside the compiled entry with the size and time of every input file, and reused while
+ * none of them changed (esbuild is the analyze run's largest memory user); any change to the
+ * compiled modules or three.js rebuilds it, so the page always runs the CLI's current code.
+ */
 export function viewerScript(): Promise<string> {
   bundled ??= (async () => {
     const js = fileURLToPath(new URL('../viewer/main.js', import.meta.url));
-    const entry = existsSync(js) ? js : js.replace(/\.js$/, '.ts'); // from sources under vitest
+    const fromDist = existsSync(js);
+    const entry = fromDist ? js : js.replace(/\.js$/, '.ts'); // from sources under vitest
+    const root = path.resolve(path.dirname(entry), '..', '..');
+    const bundlePath = path.join(path.dirname(entry), 'page.bundle.js');
+    const stampPath = path.join(path.dirname(entry), 'page.bundle.json');
+    if (fromDist) {
+      const cached = freshCache(bundlePath, stampPath, root);
+      if (cached !== null) return cached;
+    }
     const { build } = await import('esbuild');
     const out = await build({
       entryPoints: [entry], bundle: true, minify: true, write: false, format: 'iife', platform: 'browser',
-      target: 'es2022', legalComments: 'none', logLevel: 'silent', charset: 'utf8',
+      target: 'es2022', legalComments: 'none', logLevel: 'silent', charset: 'utf8', metafile: true, absWorkingDir: root,
     });
-    return out.outputFiles[0].text;
+    const text = out.outputFiles[0].text;
+    if (fromDist) {
+      try {
+        const inputs = Object.keys(out.metafile.inputs).map((p) => {
+          const st = statSync(path.resolve(root, p));
+          return { path: p, size: st.size, mtimeMs: st.mtimeMs };
+        });
+        const tmp = `${bundlePath}.${process.pid}.tmp`;
+        writeFileSync(tmp, text);
+        renameSync(tmp, bundlePath);
+        writeFileSync(`${stampPath}.${process.pid}.tmp`, JSON.stringify({ inputs } satisfies BundleStamp));
+        renameSync(`${stampPath}.${process.pid}.tmp`, stampPath);
+      } catch {
+        // A read-only install: no cache, the next run bundles again.
+      }
+    }
+    return text;
   })();
   bundled.catch(() => { bundled = null; });
   return bundled;
@@ -35,7 +81,10 @@ export function viewerScript(): Promise<string> {
 
 /** JSON that is safe inside a <script> element (no `</script>`, no `<!--`, no U+2028/9). */
 export function scriptSafeJson(value: unknown): string {
-  return JSON.stringify(value)
+  const json = JSON.stringify(value);
+  // The packed arrays are most of the text and never need escaping: copy only when something does.
+  if (!/[<\u2028\u2029]/.test(json)) return json;
+  return json
     .replace(/</g, '\\u003c')
     .replace(/\u2028/g, '\\u2028')
     .replace(/\u2029/g, '\\u2029');
@@ -87,13 +136,13 @@ export function viewerBuild(input: ViewerInput): ViewerBuild {
 }
 
 /** The whole page as UTF-8 text. */
-export async function renderViewerHtml(input: ViewerInput): Promise<string> {
+export async function renderViewerHtml(input: ViewerInput): Promise<Uint8Array> {
   const data = viewerBuild(input);
   const script = (await viewerScript()).replace(/<\/(script)/gi, '<\\/$1').replace(/<!--/g, '<\\!--');
   const title = `spherecov viewer: ${data.input || 'build'}`;
   // Content-Security-Policy: nothing may be fetched; only this page's inline script and styles run.
   const csp = "default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; img-src data: blob:";
-  return `<!DOCTYPE html>
+  const head = `<!DOCTYPE html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
@@ -108,9 +157,12 @@ export async function renderViewerHtml(input: ViewerInput): Promise<string> {
 <div id="app" aria-live="polite"></div>
 <footer class="cautions" id="cautions"><p>${escapeHtml(CAUTION)}</p>
 <p>Limit values come from the limit set named above; verify every value taken from a standard against its current release. spherecov never claims certification.</p></footer>
-<script type="application/json" id="spherecov-data">${scriptSafeJson(data)}</script>
-<script>${script}</script>
-</body>
-</html>
-`;
+<script type="application/json" id="spherecov-data">`;
+  // Encoded part by part: the data (plain ASCII, megabytes) never joins the page script's
+  // non-ASCII text in one string, which would double its size in memory.
+  return Buffer.concat([
+    Buffer.from(head, 'utf8'),
+    Buffer.from(scriptSafeJson(data), 'utf8'),
+    Buffer.from(`</script>\n<script>${script}</script>\n</body>\n</html>\n`, 'utf8'),
+  ]);
 }
