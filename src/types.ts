@@ -209,7 +209,9 @@ export type CheckKind =
   | 'min-relative-coverage'
   | 'min-beam-peak'
   | 'max-trp'
-  | 'max-peak';
+  | 'max-peak'
+  | 'beam-correspondence'
+  | 'inter-band-coverage';
 
 export type CheckStatus = 'pass' | 'fail' | 'not-evaluable';
 
@@ -411,6 +413,30 @@ export interface UnitResult {
   confidence?: UnitConfidence | null;
   /** Grid sufficiency estimate (issue 17). */
   gridAdequacy?: GridAdequacy | null;
+  /** Beam correspondence (3GPP TS 38.101-2 §6.6.4), when a beam-correspondence check found the unit's EIS export. */
+  beamCorrespondence?: {
+    levelPct: number;
+    topSharePct: number;
+    /** ΔEIRP_BC at levelPct over the region, dB. */
+    valueDb: number;
+    /** Solid angle of the upper topSharePct % of EIRP2, sr, and the EIRP2 value at its boundary, dBm. */
+    regionSr: number;
+    regionFloorDbm: number | null;
+    /** What the receive beam choice was made from. */
+    rxChoiceBasis: 'eis' | 'combined-sensitivity';
+    resampled: boolean;
+    /** Share of the region where the receive choice is not the best transmit beam (ΔEIRP_BC > 0). */
+    otherBeamShareOfRegion: number;
+    /** CDF of ΔEIRP_BC over the region (fractions of the region's solid angle), at most ~200 points. */
+    cdf: { valuesDb: number[]; fractions: number[] };
+  } | null;
+  /** Inter-band coverage (3GPP TS 38.101-2 §6.2A.1), when an inter-band check found both bands. */
+  interBand?: {
+    bands: { name: string; frequencyHz: number; levelDbm: number; share: number }[];
+    jointShare: number;
+    requiredShare: number;
+    resampled: boolean;
+  } | null;
   /** θ/φ value pairs: each component's metrics (and, for EIS, its checks). */
   polarizations?: PolarizationResult[];
   /** How the components enter the verdict (set with `polarizations`). */

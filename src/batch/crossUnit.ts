@@ -32,12 +32,13 @@ export function crossUnitExtras(units: UnitResult[], reference: string | undefin
     const refs = units.filter((u) => u.unit === reference);
     if (refs.length === 0) problem = `--reference: unit '${reference}' is not among the analyzed units`;
     for (const u of units) {
-      const ref = refs.find((r) => r.frequencyHz === u.frequencyHz);
+      const ref = refs.find((r) => r.frequencyHz === u.frequencyHz && r.quantity === u.quantity);
       u.reference = ref && ref !== u ? { unit: reference, deltas: referenceDeltas(metricsOf(u), metricsOf(ref)) } : null;
     }
   }
   const byUnit = new Map<string, UnitResult[]>();
-  for (const u of units) byUnit.set(u.unit, [...(byUnit.get(u.unit) ?? []), u]);
+  // Per unit and quantity: a unit measured both ways has a transmit and a receive trend.
+  for (const u of units) byUnit.set(`${u.unit}\u0000${u.quantity}`, [...(byUnit.get(`${u.unit}\u0000${u.quantity}`) ?? []), u]);
   for (const list of byUnit.values()) {
     const withF = list.filter((u): u is UnitResult & { frequencyHz: number } => u.frequencyHz !== null);
     if (withF.length < 2) continue;

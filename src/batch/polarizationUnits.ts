@@ -40,6 +40,8 @@ export interface MeasuredUnit {
   tsp: TotalScanPattern;
   /** Each polarization component's TSP values on its grid (for the report's per-polarization CDFs). */
   componentTsps?: ComponentTsp[];
+  /** The θ/φ component measurements (for checks joining two measurements, e.g. beam correspondence). */
+  components?: Measurement[];
 }
 
 export interface ComponentTsp {
@@ -137,7 +139,7 @@ export function measurePlan(p: PolarizationPlan, settings: MetricSettings,
     out.result.polarizations = parts.map((x) => x.summary);
     out.result.polarizationRule = p.rule;
     out.result.limitingPolarization = null;
-    return { m: p.main, ...out, componentTsps: parts.map((x) => x.tsp) };
+    return { m: p.main, ...out, componentTsps: parts.map((x) => x.tsp), components: p.components };
   }
   const each = p.components.map((c) => ({ m: c, ...measure(c) }));
   return mergeEachPolarization(each);
@@ -186,7 +188,7 @@ export function mergeEachPolarization(each: MeasuredUnit[]): MeasuredUnit {
     polarizationRule: 'each',
     limitingPolarization: limiting,
   };
-  return { m: lim.m, result, tsp: lim.tsp, componentTsps: each.map((u) => ({ name: polOf(u), values: u.tsp.values, weightSr: u.m.grid.weightSr })) };
+  return { m: lim.m, result, tsp: lim.tsp, components: each.map((u) => u.m), componentTsps: each.map((u) => ({ name: polOf(u), values: u.tsp.values, weightSr: u.m.grid.weightSr })) };
 }
 
 /** a is a worse outcome than b for the same check: fail < not evaluable < pass, then the smaller margin. */

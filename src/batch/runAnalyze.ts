@@ -148,7 +148,7 @@ function collidingGroups(outputs: TaskOutput[]): string[][] {
   for (const o of outputs) parent.set(o.key, o.key);
   for (const o of outputs) {
     for (const u of o.units) {
-      const id = JSON.stringify([u.result.unit, u.result.frequencyHz]);
+      const id = JSON.stringify([u.result.unit, u.result.frequencyHz, u.result.quantity]);
       const prev = owner.get(id);
       if (prev === undefined) owner.set(id, o.key);
       else parent.set(find(o.key), find(prev));
@@ -398,7 +398,9 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
     await writer.discard('results.json');
     const pdfNames: string[] = [];
     if (pdf) {
-      const stems = uniqueStems(units.map((u) => (u.frequencyHz === null ? u.unit : `${u.unit}_${frequencyToken(u.frequencyHz)}`)));
+      // A unit measured both ways (EIRP and EIS at one frequency) gets the quantity in its receive report's name.
+      const twin = (u: UnitResult): boolean => units.some((v) => v !== u && v.unit === u.unit && v.frequencyHz === u.frequencyHz && v.quantity !== u.quantity);
+      const stems = uniqueStems(units.map((u) => `${u.frequencyHz === null ? u.unit : `${u.unit}_${frequencyToken(u.frequencyHz)}`}${twin(u) && u.quantity !== 'eirp' ? `_${u.quantity}` : ''}`));
       for (let i = 0; i < unitOutputs.length; i++) {
         const file = spooled.get(unitOutputs[i]);
         if (stopped()) throw new InterruptedError('stop');
@@ -410,7 +412,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       const thumbnails: Record<string, MapThumbnail> = {};
       const cdfs: Record<string, CdfCurve> = {};
       for (const u of unitOutputs) {
-        const k = unitKey(u.result.unit, u.result.frequencyHz);
+        const k = unitKey(u.result.unit, u.result.frequencyHz, u.result.quantity);
         if (u.thumbnail) thumbnails[k] = u.thumbnail;
         if (u.cdf) cdfs[k] = u.cdf;
       }

@@ -26,6 +26,7 @@ import { resolveUncertainty, type UncertaintySpec } from '../analysis/uncertaint
 import { assessConfidence } from '../analysis/uncertainty/assessConfidence.js';
 import { gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
 import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js';
+import { applyJointChecks, type JointMaps } from './jointChecks.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView } from './polarizationUnits.js';
 import type { ViewerUnit } from '../viewer/viewerData.js';
 import { impliedChoices } from '../limits/impliedChoices.js';
@@ -190,6 +191,7 @@ export async function renderUnit(
   input: TaskInput,
   referenceDelta?: Float64Array,
   componentTsps?: ComponentTsp[],
+  jointMaps?: JointMaps,
 ): Promise<UnitOutput> {
   if (!input.report) return { result, thumbnail: null, cdf: null, pdf: null };
   // The report modules (pdfkit, fonts) load only when PDFs are wanted: --no-pdf stays lean.
@@ -205,6 +207,7 @@ export async function renderUnit(
       result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta, tspCdf: cdf,
       polarizationCdfs: componentTsps?.map((c) => ({ name: c.name, curve: cdfCurve(c.values, c.weightSr, m.quantity) })),
       analysisThreshold: holeThreshold(input.limitSet, input.thresholds),
+      jointMaps,
     },
     input.report,
   );
@@ -272,9 +275,12 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     { ...p, main: withFileWarnings(p.main), components: p.rule === 'each' ? p.components.map(withFileWarnings) : p.components },
     input, (m) => measureUnit(m, input)));
   // Extras across this group's own frequencies and against the reference, before the PDFs are drawn.
+  // Checks joining two measurements of a unit (transmit + receive, two bands) once all are measured.
+  const jointMaps = applyJointChecks(measured, input.limitSet);
   crossUnitExtras(measured.map((u) => u.result), undefined);
   const units: UnitOutput[] = [];
-  for (const { m, result, tsp, componentTsps } of measured) {
+  for (const mu of measured) {
+    const { m, result, tsp, componentTsps } = mu;
     const written = [...(spellings.get(result.unit) ?? [])].sort();
     if (written.some((w) => w !== result.unit)) result.unitAsWritten = written;
     const self = m.unit === input.reference && !input.referenceExternal;
@@ -284,7 +290,7 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
       result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOf(result), metricsOf(ref.result)) };
       delta = tspDifference(m.grid, tsp, ref.grid, ref.tsp);
     }
-    const out = await renderUnit(m, result, tsp, input, delta, componentTsps);
+    const out = await renderUnit(m, result, tsp, input, delta, componentTsps, jointMaps.get(mu));
     if (input.viewer) {
       const { packViewerUnit } = await import('../report/viewerPack.js');
       out.viewer = packViewerUnit(m, result, `${m.unit}@${m.frequencyHz ?? '-'}`);

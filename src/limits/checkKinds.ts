@@ -13,7 +13,7 @@
  * (limitSet.ts), and its entry here. See DEVELOPERS.md "How to add a check kind".
  */
 import type { CheckKind, CheckResult, CoverageMetrics, Quantity } from '../types.js';
-import type { CheckDraft, LimitCheck } from './limitSet.js';
+import type { CheckDraft, InterBandBand, LimitCheck } from './limitSet.js';
 import { betterByDb, isLowerBetter, quantityLabelInText, quantityUnit, worsenedBy } from '../quantity.js';
 
 /** Key path inside a parsed file, e.g. ['checks', 2, 'limit']. */
@@ -233,6 +233,57 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     appliesTo: (q) => !isLowerBetter(q),
     describe: (c, q) => `maximum over the sphere (TSP peak) ≤ ${c.limit} ${quantityUnit(q)}${tolText(c)}`,
     defaultName: (_c, q) => `max ${quantityLabelInText(q)}`,
+  },
+  // Checks joining two measurements of a unit: one measurement's metrics cannot judge them, so they
+  // start not evaluable here and src/batch/jointChecks.ts judges them once the partner is found.
+  'beam-correspondence': {
+    keys: ['limit', 'levelPct', 'topSharePct'],
+    validate: (read) => ({
+      limit: read.num('limit', 0, 100, 'a maximum ΔEIRP_BC in dB'),
+      levelPct: read.raw('levelPct') === undefined ? 85 : read.num('levelPct', 0, 100, 'a CDF level in percent between 0 and 100'),
+      topSharePct: read.raw('topSharePct') === undefined ? 50 : read.num('topSharePct', 1, 100, 'a share of the sphere in percent between 1 and 100'),
+    }),
+    appliesTo: (q) => q === 'eirp',
+    bound: () => 'upper',
+    marginUnit: 'dB',
+    limitOf: (c) => c.limit,
+    needs: () => ({}),
+    evaluate: (c) => ({ notEvaluable: 'needs the receive (EIS) export of this unit at this frequency, with the same beam ids', extra: { levelPct: c.levelPct } }),
+    describe: (c) => `ΔEIRP_BC (best EIRP minus the EIRP of the beam chosen from the receive side) at the ${c.levelPct} % level over the upper ${c.topSharePct} % of the TSP ≤ ${c.limit} dB${tolText(c)} (needs the unit's EIS export)`,
+    defaultName: (c) => `beam correspondence ΔEIRP_BC at ${c.levelPct} %`,
+  },
+  'inter-band-coverage': {
+    keys: ['levelPct', 'deltaDb', 'bands'],
+    validate: (read) => {
+      const raw = read.raw('bands');
+      const bands: InterBandBand[] = [];
+      const what = 'a list of two bands, each { name, frequencyRangeMHz: [low, high], limit }';
+      if (!Array.isArray(raw) || raw.length !== 2) read.fail('bands', raw, what);
+      else for (const b of raw) {
+        const o = (b ?? {}) as Record<string, unknown>;
+        const r = o.frequencyRangeMHz;
+        const okRange = Array.isArray(r) && r.length === 2 && r.every((x) => typeof x === 'number' && Number.isFinite(x)) && r[0] < r[1];
+        const okKeys = typeof b === 'object' && b !== null && !Array.isArray(b) && Object.keys(o).every((k) => ['name', 'frequencyRangeMHz', 'limit'].includes(k));
+        if (!okKeys || !okRange || typeof o.name !== 'string' || o.name.trim() === '' || typeof o.limit !== 'number' || !Number.isFinite(o.limit)) {
+          read.fail('bands', b, what);
+          continue;
+        }
+        bands.push({ name: o.name, frequencyRangeMHz: [r[0], r[1]] as [number, number], limit: o.limit });
+      }
+      return {
+        levelPct: read.num('levelPct', 0, 100, 'the percentile rank in percent between 0 and 100'),
+        deltaDb: read.num('deltaDb', 0, 30, 'ΔT_IB,S,n in dB between 0 and 30'),
+        bands: bands as [InterBandBand, InterBandBand],
+      };
+    },
+    appliesTo: (q) => q === 'eirp',
+    bound: () => 'lower',
+    marginUnit: 'fraction',
+    limitOf: (c) => snap(1 - c.levelPct / 100),
+    needs: () => ({}),
+    evaluate: (c) => ({ notEvaluable: `needs this unit measured in both ${c.bands.map((b) => b.name).join(' and ')}`, extra: { levelPct: c.levelPct } }),
+    describe: (c) => `share of 4π where ${c.bands.map((b) => `${b.name} EIRP ≥ ${b.limit} − ${c.deltaDb} dB`).join(' and ')} ≥ ${100 - c.levelPct} %${tolText(c)} (needs both bands measured)`,
+    defaultName: (c) => `inter-band coverage ${c.bands.map((b) => b.name).join('+')}`,
   },
 };
 

@@ -59,7 +59,45 @@ export interface BeamPeakCheck extends CheckCommon {
   beams?: string[];
 }
 
-export type LimitCheck = PeakCheck | PercentileCheck | CoverageCheck | RelativeCoverageCheck | BeamPeakCheck;
+/**
+ * Beam correspondence (3GPP TS 38.101-2 §6.6.4): ΔEIRP_BC = EIRP2 − EIRP1 per direction over the
+ * upper topSharePct % of EIRP2 by solid angle, read at levelPct of its CDF, ≤ limit (dB). Needs
+ * the unit's receive (EIS) export of the same codebook at the same frequency
+ * (src/coverage/beamCorrespondence.ts, src/batch/jointChecks.ts). eirp only.
+ */
+export interface BeamCorrespondenceCheck extends CheckCommon {
+  kind: 'beam-correspondence';
+  /** Maximum ΔEIRP_BC at levelPct, dB. */
+  limit: number;
+  /** CDF level of ΔEIRP_BC judged, % (85 in TS 38.101-2 Table 6.6.4.2-1). */
+  levelPct: number;
+  /** Upper share of EIRP2 by solid angle the directions come from, % (50). */
+  topSharePct: number;
+}
+
+/** One band of an inter-band combination: which measurement it is and its coverage level. */
+export interface InterBandBand {
+  name: string;
+  frequencyRangeMHz: [number, number];
+  /** The band's spherical-coverage EIRP level (its Table 6.2.1.x-3 value), dBm. */
+  limit: number;
+}
+
+/**
+ * Inter-band coverage (3GPP TS 38.101-2 §6.2A.1): per band the region where EIRP ≥ the band's
+ * level − deltaDb (ΔT_IB,S,n); the share of 4π where both hold must reach (100 − levelPct) %.
+ * Needs the unit measured in both bands (src/coverage/jointCoverage.ts). eirp only.
+ */
+export interface InterBandCheck extends CheckCommon {
+  kind: 'inter-band-coverage';
+  /** The percentile rank of the bands' spherical-coverage requirement (PC3: 50). */
+  levelPct: number;
+  /** ΔT_IB,S,n, dB. */
+  deltaDb: number;
+  bands: [InterBandBand, InterBandBand];
+}
+
+export type LimitCheck = PeakCheck | PercentileCheck | CoverageCheck | RelativeCoverageCheck | BeamPeakCheck | BeamCorrespondenceCheck | InterBandCheck;
 
 /** A check before its name is settled (Omit distributed over the union). */
 export type CheckDraft = LimitCheck extends infer C ? (C extends LimitCheck ? Omit<C, 'name'> : never) : never;

@@ -110,7 +110,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
   // Overlaid CDFs.
   const curves: CurveStyle[] = [];
   units.forEach((u) => {
-    const c = getKeyed<CdfCurve>(input.cdfs, unitKey(u.unit, u.frequencyHz));
+    const c = getKeyed<CdfCurve>(input.cdfs, unitKey(u.unit, u.frequencyHz, u.quantity));
     if (c) curves.push({ curve: c, color: u.verdict === 'fail' ? INK : '#8a8a96', width: u.verdict === 'fail' ? 0.9 : 0.6, dash: u.verdict === 'fail' });
   });
   if (curves.length > 0) {
@@ -127,7 +127,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
   }
 
   // Thumbnail strip on one colour scale.
-  const thumbs = units.map((u) => ({ u, t: getKeyed(input.thumbnails, unitKey(u.unit, u.frequencyHz)) })).filter((x) => x.t);
+  const thumbs = units.map((u) => ({ u, t: getKeyed(input.thumbnails, unitKey(u.unit, u.frequencyHz, u.quantity)) })).filter((x) => x.t);
   if (thumbs.length > 0) {
     let lo = Infinity;
     let hi = -Infinity;

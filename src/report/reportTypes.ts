@@ -54,6 +54,8 @@ export interface UnitReportInput {
    * same threshold the hole search used. Absent (a caller without the limit set): contourThreshold.
    */
   analysisThreshold?: number | null;
+  /** Per-direction data of checks joining two measurements (src/batch/jointChecks.ts), e.g. the inter-band regions. */
+  jointMaps?: { interBand?: { inA: Uint8Array; inB: Uint8Array; names: [string, string] } };
 }
 
 /** A small equal-area raster of a unit's TSP, plain data (transferable from a worker thread). */
@@ -82,8 +84,9 @@ export interface BuildReportInput {
 }
 
 /** The key of a unit at a frequency in BuildReportInput maps. */
-export function unitKey(unit: string, frequencyHz: number | null): string {
-  return `${unit}@${frequencyHz ?? '-'}`;
+export function unitKey(unit: string, frequencyHz: number | null, quantity?: string): string {
+  // The quantity tells a unit's transmit and receive measurements at one frequency apart.
+  return `${unit}@${frequencyHz ?? '-'}${quantity && quantity !== 'eirp' ? `#${quantity}` : ''}`;
 }
 
 export function getKeyed<T>(data: KeyedData<T> | undefined, key: string): T | undefined {

@@ -171,3 +171,47 @@ for (const [band, [refsens, sph]] of Object.entries(RX)) {
     });
   });
 }
+
+// Beam correspondence, PC3 (S1 §6.6.4, Table 6.6.4.2-1): 85th percentile of ΔEIRP_BC over the
+// upper 50 % of EIRP2 ≤ 3.0 dB (n257, n258, n261) or 3.2 dB (n259, n260, n262).
+const BC = { n257: 3.0, n258: 3.0, n261: 3.0, n259: 3.2, n260: 3.2, n262: 3.2 };
+for (const [band, maxDb] of Object.entries(BC)) {
+  const name = `3gpp-fr2-pc3-${band}-beam-correspondence`;
+  write(name, [`3GPP FR2 UE power class 3 (handheld), band ${band}: beam correspondence.`], {
+    name,
+    description: `Power class 3 (handheld) UE, band ${band}, beam correspondence. ΔEIRP_BC = EIRP2 − EIRP1 per direction, `
+      + 'EIRP2 the best EIRP over the codebook (the total scan pattern), EIRP1 the EIRP of the beam chosen from the receive (EIS) '
+      + 'measurement; over the directions in the upper 50 % of EIRP2 by solid angle, the 85th percentile must not exceed the limit. '
+      + 'Needs the unit\'s EIRP and EIS exports of the same codebook at the same frequency (same unit, same beam ids). '
+      + 'Combine with the transmit profile in a job file (limits + checks) to judge both.',
+    source: `${SPEC}, clause 6.6.4; ${VERIFY}`,
+    quantity: 'eirp',
+    band,
+    frequencyRangeMHz: BANDS[band],
+    checks: [
+      { kind: 'beam-correspondence', name: 'beam correspondence ΔEIRP_BC (85 %-tile)', limit: maxDb, levelPct: 85, topSharePct: 50,
+        source: `${SPEC}, clause 6.6.4, Table 6.6.4.2-1: 85th percentile of ΔEIRP_BC over the upper 50 % of EIRP2 ≤ ${maxDb.toFixed(1)} dB; ${VERIFY}` },
+    ],
+  });
+}
+
+// Inter-band UL CA, PC3 (S1 §6.2A.1): per band the region where EIRP ≥ its Table 6.2.1.3-3 level
+// − ΔT_IB,S,n (6.0 dB for CA_n257A-n259A and CA_n260A-n261A); the share of 4π where both hold
+// must be at least (100 − 50) %.
+for (const [a, b] of [['n257', 'n259'], ['n260', 'n261']]) {
+  const name = `3gpp-fr2-pc3-ca-${a}-${b}`;
+  const bandOf = (x) => ({ name: x, frequencyRangeMHz: BANDS[x], limit: TX[3][1][x][3] });
+  write(name, [`3GPP FR2 UE power class 3 (handheld), inter-band CA_${a}A-${b}A: joint spherical coverage.`], {
+    name,
+    description: `Power class 3 (handheld) UE, inter-band uplink CA_${a}A-${b}A. Per band the region where EIRP ≥ that band's `
+      + 'spherical-coverage level (Table 6.2.1.3-3) − ΔT_IB,S,n = 6.0 dB; the share of the full sphere where both regions hold must be '
+      + 'at least 50 %. Needs the unit measured in both bands (the same unit, two frequencies).',
+    source: `${SPEC}, clause 6.2A.1; ${VERIFY}`,
+    quantity: 'eirp',
+    frequencyRangeMHz: [BANDS[a][0], Math.max(BANDS[a][1], BANDS[b][1])].sort((x, y) => x - y),
+    checks: [
+      { kind: 'inter-band-coverage', name: `inter-band coverage CA_${a}A-${b}A`, levelPct: 50, deltaDb: 6.0, bands: [bandOf(a), bandOf(b)],
+        source: `${SPEC}, clause 6.2A.1 (ΔT_IB,S,n = 6.0 dB for CA_${a}A-${b}A, PC3; levels from Table 6.2.1.3-3); ${VERIFY}` },
+    ],
+  });
+}

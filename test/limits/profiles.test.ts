@@ -112,13 +112,17 @@ describe('shipped 3GPP FR2 profiles against the reference tables', () => {
   });
   it('exactly one profile per specified class and band, none for dashes, plus the variants', () => {
     const names = listProfiles().map((p) => p.name).sort();
-    const variants = listProfiles().filter((p) => /-(multiband|initial-access)$/.test(p.name)).map((p) => p.name);
+    const variants = listProfiles().filter((p) => /-(multiband|initial-access|beam-correspondence)$|-ca-/.test(p.name)).map((p) => p.name);
     expect(names.filter((n) => !variants.includes(n))).toEqual([...tx.keys(), ...rx.keys()].sort());
     // Initial access: PC6 is not shipped, so PC1/3/5/7 rows; multi-band: PC3, PC7 (PC3 values), PC5.
     const rules = rulesReference();
     const iaExpected = [...tx.keys()].filter((k) => rules.iaClasses.includes(Number(/pc(\d)/.exec(k)![1]))).map((k) => `${k}-initial-access`);
     const mbExpected = [...tx.keys()].filter((k) => /pc[357]-/.test(k)).map((k) => `${k}-multiband`);
-    expect(variants.sort()).toEqual([...iaExpected, ...mbExpected].sort());
+    // Beam correspondence (reference notes, "Beam correspondence"): PC3 n257, n258, n259, n260, n261, n262;
+    // inter-band (reference notes, §6.2A.1): CA_n257A-n259A and CA_n260A-n261A.
+    const bcExpected = ['n257', 'n258', 'n259', 'n260', 'n261', 'n262'].map((b) => `3gpp-fr2-pc3-${b}-beam-correspondence`);
+    const caExpected = ['3gpp-fr2-pc3-ca-n257-n259', '3gpp-fr2-pc3-ca-n260-n261'];
+    expect(variants.sort()).toEqual([...iaExpected, ...mbExpected, ...bcExpected, ...caExpected].sort());
   });
   it('the parsed rules have the expected shape (guards the parser itself)', () => {
     const rules = rulesReference();
@@ -163,7 +167,7 @@ describe('shipped 3GPP FR2 profiles against the reference tables', () => {
       if (ls.quantity !== 'eirp') continue;
       const pc = /pc(\d)/.exec(p.name)![1];
       const want: Record<string, number> = { 'min-peak': 1, 'max-trp': 2, 'max-peak': 2, percentile: 3 };
-      for (const c of ls.checks) expect(c.source, `${p.name}: ${c.name}`).toContain(`Table 6.2.1.${pc}-${want[c.kind]}`);
+      for (const c of ls.checks) if (c.kind in want) expect(c.source, `${p.name}: ${c.name}`).toContain(`Table 6.2.1.${pc}-${want[c.kind]}`);
     }
   });
   it('EIRP profiles: min peak, percentile level and limit, max TRP / EIRP', () => {
@@ -230,5 +234,35 @@ describe('profiles judge the way the standard reads', () => {
     expect(text).toContain('TSP value at the 85 % CDF level ≥ 19.1 dBm');
     expect(text).toContain('TRP of every beam ≤ 25 dBm');
     expect(text).toContain('Table 6.2.1.1-3');
+  });
+});
+
+describe('beam correspondence and inter-band profiles against the reference notes', () => {
+  const section = (from: string, to: string): string => md.slice(md.indexOf(from), md.indexOf(to));
+  it('PC3 ΔEIRP_BC maxima per band (Table 6.6.4.2-1), 85th percentile over the upper 50 % of EIRP2', () => {
+    const text = section('## Beam correspondence', '## Receive requirements and polarization').replace(/\s+/g, ' ');
+    const m = /must not exceed (\d\.\d) dB \(([^)]+)\) or (\d\.\d) dB \(([^)]+)\)/.exec(text);
+    expect(m, 'the limits sentence of the reference').not.toBeNull();
+    const [, a, bandsA, b, bandsB] = m as RegExpExecArray;
+    for (const [max, bands] of [[Number(a), bandsA], [Number(b), bandsB]] as const) {
+      for (const band of bands.split(',').map((x) => x.trim())) {
+        const ls = load(`3gpp-fr2-pc3-${band}-beam-correspondence`);
+        expect(ls.checks.map((c) => c.kind === 'beam-correspondence' && [c.limit, c.levelPct, c.topSharePct]), band).toEqual([[max, 85, 50]]);
+        expect(ls.checks[0].source).toContain('Table 6.6.4.2-1');
+      }
+    }
+  });
+  it('inter-band CA profiles: ΔT_IB,S,n 6.0 dB, the bands\' PC3 coverage levels, (100 − 50) % joint share', () => {
+    const tx = txReference();
+    const text = section('## Rules attached to the transmit tables', '## Beam correspondence').replace(/\s+/g, ' ');
+    expect(text).toContain('CA_n257A-n259A and CA_n260A-n261A: ΔT_IB,P,n = ΔT_IB,S,n = 6.0 dB');
+    for (const [a, b] of [['n257', 'n259'], ['n260', 'n261']]) {
+      const ls = load(`3gpp-fr2-pc3-ca-${a}-${b}`);
+      const c = ls.checks[0];
+      expect(c.kind).toBe('inter-band-coverage');
+      if (c.kind !== 'inter-band-coverage') continue;
+      expect([c.deltaDb, c.levelPct]).toEqual([6, 50]);
+      expect(c.bands.map((x) => [x.name, x.limit])).toEqual([[a, tx.get(`3gpp-fr2-pc3-${a}`)!.sph], [b, tx.get(`3gpp-fr2-pc3-${b}`)!.sph]]);
+    }
   });
 });

@@ -66,7 +66,9 @@ export function assessConfidence(a: {
   const checks = a.judged.checks.map((c, idx) => {
     const spec = ls?.checks.find((x) => x.name === c.name) ?? ls?.checks[idx];
     // A window relative to the peak moves with the peak's own uncertainty: not assessed (yet).
-    if (!spec || spec.kind === 'min-relative-coverage' || c.status === 'not-evaluable' || c.value === null) {
+    // Checks joining two measurements (beam correspondence, inter-band) are judged later from both: not assessed here.
+    if (!spec || spec.kind === 'min-relative-coverage' || spec.kind === 'beam-correspondence' || spec.kind === 'inter-band-coverage'
+      || c.status === 'not-evaluable' || c.value === null) {
       jointDefined = false;
       const decision: CheckDecision = { rule: u.decisionRule, acceptanceLimit: c.effectiveLimit, guardBandDb: u.decisionRule === 'guarded' ? u.guardBandDb : null,
         statement: null, probabilityOfConformance: null, probabilityStdErr: null, valueStdDev: null, bias: null };
@@ -165,7 +167,7 @@ function snap(x: number): number {
 }
 
 /** The measured value of a check (as the requirement reads it) and its draws. */
-function checkSeries(spec: LimitCheck, c: CheckResult, mc: MonteCarloDraws, levels: number[], thresholds: number[],
+function checkSeries(spec: Exclude<LimitCheck, { kind: 'beam-correspondence' | 'inter-band-coverage' }>, c: CheckResult, mc: MonteCarloDraws, levels: number[], thresholds: number[],
   metrics: CoverageMetrics, efficiencyAt: (t: number) => number): { value: number; draws: Float64Array } {
   switch (spec.kind) {
     case 'percentile': {
