@@ -14,7 +14,7 @@ import { metricsFixture } from './metricsFixture.js';
 
 describe('check-kind registry', () => {
   it('every kind carries every part (the mapped type enforces it at compile time; this checks the values)', () => {
-    expect(CHECK_KINDS).toEqual(['min-peak', 'percentile', 'min-coverage', 'min-relative-coverage', 'min-beam-peak', 'max-trp', 'max-peak']);
+    expect(CHECK_KINDS).toEqual(['min-peak', 'percentile', 'min-coverage', 'min-relative-coverage', 'min-beam-peak', 'max-trp', 'max-peak', 'beam-correspondence', 'inter-band-coverage']);
     for (const k of CHECK_KINDS) {
       const d = CHECK_KIND_DEFS[k];
       for (const part of ['validate', 'appliesTo', 'bound', 'limitOf', 'needs', 'evaluate', 'describe', 'defaultName'] as const) {

@@ -74,7 +74,7 @@ describe('limit-set files', () => {
     expect(errors.map((e) => e.message)).toEqual([
       'name: found nothing, expected a non-empty text',
       "checks[0].kind: found 'max-trp', expected a check kind that applies to eis (min-peak, percentile, min-coverage, min-relative-coverage, min-beam-peak)",
-      "checks[1].kind: found 'peak', expected one of min-peak, percentile, min-coverage, min-relative-coverage, min-beam-peak, max-trp, max-peak",
+      "checks[1].kind: found 'peak', expected one of min-peak, percentile, min-coverage, min-relative-coverage, min-beam-peak, max-trp, max-peak, beam-correspondence, inter-band-coverage",
     ]);
     expect(parseLimitSetText('name: a\nquantity: power\nchecks: 3\n', 'y.yaml').errors.map((e) => e.message)).toEqual([
       "quantity: found 'power', expected one of eirp, eis, gain",
