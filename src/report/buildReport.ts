@@ -7,6 +7,7 @@ import { insideEllipse, OUTSIDE } from './mapRaster.js';
 import { paintMapPng } from './paintMap.js';
 import { addFooters, contentWidth, createDoc, ensureSpace, finish, heading, INK, keyValues, MARGIN, MUTED, note, table, type Column } from './pdfDoc.js';
 import { drawCdfPlot, type CurveStyle } from './plots.js';
+import { expectedConformingText } from '../analysis/uncertainty/confidenceColumns.js';
 import { getKeyed, unitKey, type BuildReportInput, type MapThumbnail, type ReportSettings } from './reportTypes.js';
 import { scaleT, valueScale } from './unitMaps.js';
 import { cdfLimitMarks } from './unitReport.js';
@@ -62,6 +63,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
     ['Units in build', `${inBuild}: ${b.units} analyzed (${units.length} unit × frequency results)` + (errored ? `, ${errored} could not be read or analyzed` : '')],
     ['Verdicts', `${b.passed} passed, ${b.failed} failed, ${b.notJudged} not judged, ${errored} error` + (partial ? `; ${partial} result(s) on a partial sphere` : '')],
     ['Passed', `${share(b.passed, inBuild)} units in the build; ${share(b.passed, judged)} units judged`],
+    ...(b.confidence ? [['How sure', expectedConformingText(b.confidence)] as [string, string]] : []), // issue 17
     ['Quantity', `${quantityLabel(q)} (${vu})`],
     ['Limit set', input.limitSetName ?? 'none (not judged)'],
     ['Generated', input.generatedAt],
