@@ -28,9 +28,10 @@ interface Series {
  *   sampleStandardDeviation), null below two values.
  * - yield, lowerLimit/upperLimit, cpk: on `check:` rows only (the raw metric rows carry none).
  *   yield = units whose check passed / units that carry the check (a not-evaluable check is
- *   not a pass). Cpk uses the limit as written, without the test tolerance: it describes the
- *   product against the requirement, while the tolerance is a measurement allowance used only
- *   for the verdict. Limits differing between units (mixed limit sets) give no limit and no Cpk.
+ *   not a pass). Cpk uses the same limit as the yield and the verdict: the limit relaxed by the
+ *   test tolerance ("judged at"), so that the two figures of one row never disagree about what
+ *   passing means; lowerLimit/upperLimit report that limit. Limits differing between units
+ *   (mixed limit sets) give no limit and no Cpk.
  * - yieldInBuild (check rows): passed / units in the build at that frequency, where a unit that
  *   could not be read (frequency unknown) belongs to every frequency: a damaged export can
  *   only lower it. `judged` and `inBuild` state both denominators.
@@ -65,7 +66,7 @@ export function buildStatistics(units: UnitResult[], notAnalyzed: UnitNotAnalyze
       const s = series(f, judgement[k].metric);
       if (judgement[k].value !== null) s.values.push(judgement[k].value as number);
       s.judged.push(c.status === 'pass');
-      s.limits.add(c.limit);
+      s.limits.add(c.effectiveLimit);
       s.bound ??= c.bound;
     });
     const margin = judgement[judgement.length - 1];

@@ -30,6 +30,9 @@ function thumbnailPng(t: MapThumbnail, entry: (v: number) => number, table: Uint
 const label = (u: UnitResult) => `${u.unit}${u.frequencyHz === null ? '' : ` @ ${fmtFrequency(u.frequencyHz)}`}`;
 
 
+/** Below this many units a Cpk carries a small-sample caution (common process-capability practice asks for 30 or more). */
+const SMALL_SAMPLE_N = 30;
+
 /** Distinct limits over all units, for drawing once on the overlaid CDFs. */
 function distinctLimits(units: UnitResult[]) {
   const seen = new Map<string, ReturnType<typeof cdfLimitMarks>[number]>();
@@ -74,7 +77,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
   heading(doc, 'Units', 40);
   const cols: Column[] = [
     { header: 'Unit', width: w - 436 }, { header: 'Frequency', width: 62 }, { header: 'Verdict', width: 62 },
-    { header: 'Checks passed', width: 48, align: 'right' }, { header: 'Worst check', width: 106 }, { header: 'Worst margin', width: 82, align: 'right' },
+    { header: 'Passed', width: 48, align: 'right' }, { header: 'Worst check', width: 106 }, { header: 'Worst margin', width: 82, align: 'right' },
     { header: 'Sphere', width: 76 },
   ];
   type Row = { unit: string; f: number | null; cells: string[]; bold: boolean };
@@ -87,7 +90,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
     ],
   }));
   for (const e of notAnalyzed) {
-    rows.push({ unit: e.unit, f: e.frequencyHz, bold: true, cells: [e.unit, fmtFrequency(e.frequencyHz), 'ERROR', '—', `not analyzed: ${errorLocation(e.error)}`, '—', '—'] });
+    rows.push({ unit: e.unit, f: e.frequencyHz, bold: true, cells: [e.unit, e.frequencyHz === null ? '—' : fmtFrequency(e.frequencyHz), 'ERROR', '—', `not analyzed: ${errorLocation(e.error)}`, '—', '—'] });
   }
   rows.sort((a, c) => (a.unit < c.unit ? -1 : a.unit > c.unit ? 1 : (a.f ?? -1) - (c.f ?? -1)));
   table(doc, cols, rows.map((r) => r.cells), { emphasis: (k) => rows[k].bold });
@@ -105,9 +108,14 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
     const m = metricOf.get(s.metric);
     const f = (v: number | null) => (m ? formatMetric(m, v) : fmt(v));
     const spread = m ? formatMetric(m, s.std, 'spread') : fmt(s.std);
-    return [fmtFrequency(s.frequencyHz), m ? metricLabel(m, vu) : s.metric, `${s.count}`, f(s.mean), spread, f(s.min), f(s.max), pct(s.yield, 0), fmt(s.cpk)];
+    const yieldText = s.yield === null ? '—' : s.inBuild ? `${s.passedCount}/${s.inBuild} in build` : pct(s.yield, 0);
+    const cpk = s.cpk === null ? '—' : `${fmt(s.cpk)}${s.count < SMALL_SAMPLE_N ? ' *' : ''}`;
+    return [fmtFrequency(s.frequencyHz), m ? metricLabel(m, vu) : s.metric, `${s.count}`, f(s.mean), spread, f(s.min), f(s.max), yieldText, cpk];
   }), { fontSize: 7.2 });
-  note(doc, 'σ: sample standard deviation (n − 1). Yield: share of units whose check passed. Cpk: min(mean − lower, upper − mean) / 3σ against the limit as written (no test tolerance). Values in the unit\'s dB unit; coverage as share of 4π.');
+  note(doc, 'σ: sample standard deviation (n − 1). Yield: units whose check passed / units in the build (a unit that could not be read counts as not passed). ' +
+    'Cpk: min(mean − lower, upper − mean) / 3σ against the same limit as the yield and the verdict: the limit relaxed by the test tolerance ("judged at" in the unit reports). ' +
+    `* fewer than ${SMALL_SAMPLE_N} units: a Cpk from a small sample is uncertain — with n = 10, a computed 1.33 has a one-sided 95 % lower confidence bound near 0.8 (Bissell's approximation, from memory); read it as an indication only. ` +
+    'Shares of 4π in %, spreads of shares in percentage points; other values in the unit shown.');
 
   // Overlaid CDFs.
   const curves: CurveStyle[] = [];

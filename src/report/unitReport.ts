@@ -18,6 +18,21 @@ import { confidencePage } from './confidencePage.js';
 const PERCENTILE_RULE =
   'step rule: the smallest value whose solid-angle-weighted CDF over 4π reaches p; unmeasured solid angle counts as worst';
 
+/**
+ * Holes smaller than this share of 4π are folded into one count instead of being listed: 0.1 % of
+ * 4π is about 12.6 msr (≈ 41 square degrees), under two cells of a 5° grid at the equator
+ * (7.6 msr each), i.e. at the edge of what the grid can resolve as a region (our choice).
+ */
+export const SMALL_HOLE_SHARE = 0.001;
+
+/** The holes listed (and labelled H1… on the map), and the count and share of the folded small ones. */
+export function listedHoles(r: UnitResult): { listed: NonNullable<UnitResult['holes']>; small: number; smallShare: number } {
+  const all = r.holes ?? [];
+  const listed = all.filter((h) => h.solidAngleSr / (4 * Math.PI) >= SMALL_HOLE_SHARE);
+  const rest = all.filter((h) => h.solidAngleSr / (4 * Math.PI) < SMALL_HOLE_SHARE);
+  return { listed, small: rest.length, smallShare: rest.reduce((a, h) => a + h.solidAngleSr, 0) / (4 * Math.PI) };
+}
+
 export const unitLabel = (r: UnitResult) => `${r.unit}${r.frequencyHz === null ? '' : ` · ${fmtFrequency(r.frequencyHz)}`}`;
 
 /** The coverage threshold drawn as the map contour: a coverage check's, else the first requested. */
@@ -40,7 +55,8 @@ export function cdfLimitMarks(checks: CheckResult[]): LimitMark[] {
   const out: LimitMark[] = [];
   for (const c of checks) {
     if (c.kind === 'percentile') out.push({ label: `${c.name}: ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit, levelPct: c.levelPct });
-    else if (c.kind === 'min-peak' || c.kind === 'max-peak' || c.kind === 'min-beam-peak')
+    // A per-beam limit (min-beam-peak) is on another quantity than the TSP: not drawn here.
+    else if (c.kind === 'min-peak' || c.kind === 'max-peak')
       out.push({ label: `${c.name}: ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit });
   }
   return out;
@@ -125,7 +141,7 @@ function checksSection(doc: Doc, r: UnitResult): void {
   ];
   const u = r.valueUnit;
   table(doc, cols, r.checks.map((c) => [
-    c.name,
+    c.beam !== undefined ? `${c.name} (beam ${c.beam}${c.status === 'fail' ? ', failing' : ''})` : c.name,
     checkValue(c, c.value, u),
     checkValue(c, c.limit, u),
     `${fmt(c.toleranceDb)} dB`,
@@ -156,7 +172,7 @@ function tspMapSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: Repo
   const box = mapBoxFor(doc, 215);
   drawMapFrame(doc, box, maps.tspPng, s.mapCenterPhiDeg);
   if (maps.contour) drawBoundaries(doc, box, maps.contour, maps.raster.width, maps.raster.height, INK, 0.9, true);
-  const holes = s.sections.holes ? r.holes ?? [] : [];
+  const holes = s.sections.holes ? listedHoles(r).listed : [];
   holes.forEach((h, k) => {
     const [hx, hy] = directionToPage(box, h.thetaDeg, h.phiDeg, s.mapCenterPhiDeg);
     mapLabel(doc, `H${k + 1}`, hx, hy, 6);
@@ -175,7 +191,7 @@ function tspMapSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: Repo
   doc.y = ly + 13;
   const cmp = r.quantity === 'eis' ? 'at or below' : 'at or above';
   note(doc, `Hammer equal-area projection: area on the page is proportional to solid angle. Centre φ = ${fmt(s.mapCenterPhiDeg, 0)}°, θ = 90°; top θ = 0° (+z). ` +
-    (threshold !== null ? `Black line with white edge: contour of the coverage threshold ${fmt(threshold)} ${r.valueUnit} (inside: ${cmp}). ` : '') +
+    (threshold !== null ? `Black line with white edge: contour at ${fmt(threshold)} ${r.valueUnit} (inside: ${cmp}), the same threshold the coverage holes are found at (the limit set's coverage threshold as written, else its percentile limit, else the first requested threshold; no test tolerance applied). ` : '') +
     (holes.length ? `H1… mark the coverage holes listed below. ` : '') + 'Graticule every 30° in θ and φ. Brightest = best.');
 }
 
@@ -293,31 +309,34 @@ function beamsSection(doc: Doc, r: UnitResult): void {
   ];
   if (hasRemoval) cols.push({ header: 'Δ pct dB', width: 58, align: 'right' }, { header: 'Δ cov pt', width: 46, align: 'right' });
   table(doc, cols, r.beams.map((b) => {
-    const row = [b.id, fmt(b.peak.value), `${fmt(b.peak.thetaDeg, 1)}°`, `${fmt(b.peak.phiDeg, 1)}°`, fmt(b.trpDbm), pct(b.bestShare), b.bestShare === 0 || b.neverBest ? 'never best' : ''];
+    const failing = r.checks.filter((c) => c.beam === b.id && c.status === 'fail').map((c) => `fails ${c.name}`);
+    const row = [b.id, fmt(b.peak.value), `${fmt(b.peak.thetaDeg, 1)}°`, `${fmt(b.peak.phiDeg, 1)}°`, fmt(b.trpDbm), pct(b.bestShare), [...failing, b.bestShare === 0 || b.neverBest ? 'never best' : ''].filter(Boolean).join('; ')];
     if (hasRemoval) row.push(fmt(b.removal?.percentileLossDb), b.removal?.coverageLoss == null ? '—' : fmt(100 * b.removal.coverageLoss, 1));
     return row;
-  }), { fontSize: 7.4, emphasis: (k) => r.beams[k].bestShare === 0 });
+  }), { fontSize: 7.4, emphasis: (k) => r.beams[k].bestShare === 0 || r.checks.some((c) => c.beam === r.beams[k].id && c.status === 'fail') });
   const trpNote = r.grid.fullSphere ? 'TRP from the solid-angle-weighted power mean over 4π.' : 'TRP is not reported: the grid does not cover the full sphere.';
   note(doc, `Peak: the beam's best value and its direction. Best share: fraction of 4π where the beam is the best one. ${trpNote}` +
     (hasRemoval ? ' Δ pct / Δ cov: how much the judged percentile (dB) and the coverage share (percentage points) drop if that beam is taken out of the codebook.' : ''));
   if (r.subset) note(doc, `Smallest subset keeping the ${fmt(r.subset.levelPct, 0)} % value within ${fmt(r.subset.toleranceDb, 1)} dB: ${r.subset.beams.length} beams (${r.subset.beams.join(', ')}).`);
 }
 
-function holesSection(doc: Doc, r: UnitResult): void {
-  const holes = r.holes;
-  if (!holes) return;
+function holesSection(doc: Doc, r: UnitResult, threshold: number | null): void {
+  if (!r.holes) return;
+  const { listed: holes, small, smallShare } = listedHoles(r);
   heading(doc, 'Coverage holes', 40);
+  const at = threshold === null ? '' : ` (${fmt(threshold)} ${r.valueUnit}, the map's contour)`;
+  const folded = small > 0 ? ` ${small} smaller hole${small === 1 ? '' : 's'} (each under ${fmt(100 * SMALL_HOLE_SHARE, 1)} % of 4π, about two cells of a 5° grid) together cover ${pct(smallShare, 3)} of 4π and are not listed.` : '';
   if (holes.length === 0) {
-    note(doc, 'No direction is worse than the coverage threshold.');
+    note(doc, (small > 0 ? `No hole of ${fmt(100 * SMALL_HOLE_SHARE, 1)} % of 4π or more is worse than the coverage threshold${at}.` : `No direction is worse than the coverage threshold${at}.`) + folded);
     return;
   }
   const w = contentWidth(doc);
   table(doc, [
     { header: 'Hole', width: 36 }, { header: 'Solid angle (sr)', width: 80, align: 'right' }, { header: 'Share of 4π', width: 70, align: 'right' },
     { header: 'Centre θ', width: 56, align: 'right' }, { header: 'Centre φ', width: 56, align: 'right' },
-    { header: `Worst (${r.valueUnit})`, width: 70, align: 'right' }, { header: 'Closest beam', width: w - 368 },
+    { header: `Worst (${r.valueUnit})`, width: 70, align: 'right' }, { header: 'Best beam (mean over hole)', width: w - 368 },
   ], holes.map((h, k) => [`H${k + 1}`, fmt(h.solidAngleSr, 4), pct(h.solidAngleSr / (4 * Math.PI), 2), `${fmt(h.thetaDeg, 1)}°`, `${fmt(h.phiDeg, 1)}°`, fmt(h.worst), h.nearestBeam]), { fontSize: 7.4 });
-  note(doc, 'Connected regions where the total scan pattern is worse than the coverage threshold, largest first; marked H1… on the map above.');
+  note(doc, `Connected regions where the total scan pattern is worse than the coverage threshold${at}, largest first; marked H1… on the map above. Best beam: the beam with the best solid-angle-weighted mean over the hole (the one that comes closest to filling all of it).` + folded);
 }
 
 function referenceSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: ReportSettings): void {
@@ -475,7 +494,7 @@ export async function renderUnitPdf(input: UnitReportInput, settings: ReportSett
   }
   doc.addPage();
   if (sec.beams) beamsSection(doc, r);
-  if (sec.holes) holesSection(doc, r);
+  if (sec.holes) holesSection(doc, r, threshold);
   if (sec.reference && maps) referenceSection(doc, input, maps, settings);
   if (sec.frequencyTrend) trendSection(doc, r);
   if (sec.quality) qualitySection(doc, input);
