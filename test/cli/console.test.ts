@@ -83,7 +83,7 @@ describe('a build with an unreadable unit (fixtures/cli/unreadable: U-02 has an 
     expect(p1).toContain('3: 2 analyzed');
     expect(p1).toContain('1 could not be read or analyzed');
     expect(p1).toContain('2 of 3 (66.7 %) units in the build');
-    expect(p1).toMatch(/U-02 not given ERROR/);
+    expect(p1).toMatch(/U-02 — ERROR/);
     expect(p1).toContain('U-02/U-02_beam1_28GHz.csv:5:8');
   });
 });
