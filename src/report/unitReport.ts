@@ -13,6 +13,7 @@ import { beamColor, buildUnitMaps, DELTA_OUTLINE_DB, scaleT, type UnitMaps } fro
 import { drawAxes, px, py, type Axes } from './axes.js';
 import { formatMetric, metricLabel, metricsOfUnit, rowKey, rowMetrics, type MetricInstance } from '../metrics/catalogue.js';
 import { polarizationSection } from './polarizationSection.js';
+import { jointSection } from './jointSection.js';
 import { confidencePage } from './confidencePage.js';
 
 const PERCENTILE_RULE =
@@ -488,6 +489,7 @@ export async function renderUnitPdf(input: UnitReportInput, settings: ReportSett
   }
   if (sec.coverage) coverageSection(doc, input, tspCurve);
   if (r.polarizations?.length) polarizationSection(doc, { ...input, tspCdf: tspCurve });
+  if (r.beamCorrespondence || r.interBand) jointSection(doc, input, settings);
   if (r.confidence || r.gridAdequacy) {
     doc.addPage();
     confidencePage(doc, r, tspCurve); // "How sure is this verdict" (src/report/confidencePage.ts)

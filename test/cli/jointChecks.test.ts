@@ -14,6 +14,7 @@ import path from 'node:path';
 import { ensureBuilt, ROOT } from './buildOnce.js';
 import type { ResultsFile } from '../../src/types.js';
 import { expectClose } from '../helpers/expectClose.js';
+import { pdfPages } from '../report/pdfText.js';
 
 const RAD = Math.PI / 180;
 
@@ -61,9 +62,12 @@ describe('beam correspondence through the CLI', () => {
     expect(res.units[0].checks[0].note).toContain('receive (EIS) export');
     expect(res.units[0].verdict).toBe('none');
   });
-  it('names the receive report apart from the transmit report of the same unit and frequency', () => {
+  it('names the receive report apart from the transmit report of the same unit and frequency, and draws the ΔEIRP_BC CDF', async () => {
     const { out } = run('bc', '3gpp-fr2-pc3-n257-beam-correspondence', true);
     expect(readdirSync(out).filter((f) => f.endsWith('.pdf')).sort()).toEqual(['B-01_28GHz.pdf', 'B-01_28GHz_eis.pdf', 'B-02_28GHz.pdf', 'B-02_28GHz_eis.pdf', 'summary.pdf']);
+    const text = (await pdfPages(readFileSync(path.join(out, 'B-02_28GHz.pdf')))).join(' ');
+    expect(text).toContain('Beam correspondence (ΔEIRP_BC)');
+    expect(text).toContain('share of the region with ΔEIRP_BC ≤ x');
   }, 120_000);
 });
 
@@ -85,4 +89,10 @@ describe('inter-band coverage through the CLI', () => {
       expect(u.interBand!.bands.map((x) => x.levelDbm)).toEqual([5.5, -0.2]);
     }
   });
+  it('maps the joint region in the PDF', async () => {
+    const { out } = run('band', '3gpp-fr2-pc3-ca-n257-n259', true);
+    const text = (await pdfPages(readFileSync(path.join(out, 'I-02_40GHz.pdf')))).join(' ');
+    expect(text).toContain('Inter-band coverage: joint region of the two bands');
+    expect(text).toContain('both (joint region)');
+  }, 120_000);
 });
