@@ -28,7 +28,8 @@ Examples:
 
 Exit codes: 0 all units analyzed and none failed a limit; 1 a unit failed a limit (or met a
 --fail-on condition); 2 usage error or an input could not be read (the rest is still analyzed
-and written); 3 internal error; 130 interrupted.`;
+and written; also a full disk or an unreadable file); 3 internal error; 130 interrupted
+(143 for SIGTERM).`;
 
 function defaultIo(): BatchIo {
   return {
