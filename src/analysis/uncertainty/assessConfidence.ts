@@ -52,11 +52,14 @@ export function assessConfidence(a: {
   const thresholds = metrics.coverage.map((c) => c.threshold);
   for (const c of ls?.checks ?? []) if (c.kind === 'min-coverage' && !thresholds.includes(c.threshold)) thresholds.push(c.threshold);
   const hasTrp = ls?.checks.some((c) => c.kind === 'max-trp') ?? false;
+  // Windows relative to the peak move with each draw's own peak.
+  const windows = (ls?.checks ?? []).flatMap((c) => (c.kind === 'min-relative-coverage' ? [c.dbBelowPeak] : []));
   const mc = monteCarloMetrics(grid.weightSr, a.beams.map((b) => b.values), quantity, u, {
     levelsPct: levels,
     thresholds,
     beamPeaks: ls?.checks.some((c) => c.kind === 'min-beam-peak') ?? false,
     trpDbm: hasTrp ? metrics.beams.map((b) => b.trpDbm) : undefined,
+    relativeDb: windows,
   });
   const cdf = weightedCdf(a.tsp.values, grid.weightSr);
   const efficiencyAt = (t: number): number => coverageEfficiency(cdf, t, quantity);
@@ -65,31 +68,36 @@ export function assessConfidence(a: {
   let jointDefined = a.judged.checks.length > 0;
   const checks = a.judged.checks.map((c, idx) => {
     const spec = ls?.checks.find((x) => x.name === c.name) ?? ls?.checks[idx];
-    // A window relative to the peak moves with the peak's own uncertainty: not assessed (yet).
     // Checks joining two measurements (beam correspondence, inter-band) are judged later from both: not assessed here.
-    if (!spec || spec.kind === 'min-relative-coverage' || spec.kind === 'beam-correspondence' || spec.kind === 'inter-band-coverage'
+    if (!spec || spec.kind === 'beam-correspondence' || spec.kind === 'inter-band-coverage'
       || c.status === 'not-evaluable' || c.value === null) {
       jointDefined = false;
       const decision: CheckDecision = { rule: u.decisionRule, acceptanceLimit: c.effectiveLimit, guardBandDb: u.decisionRule === 'guarded' ? u.guardBandDb : null,
         statement: null, probabilityOfConformance: null, probabilityStdErr: null, valueStdDev: null, bias: null };
       return { ...c, decision };
     }
-    const series = checkSeries(spec, c, mc, levels, thresholds, metrics, efficiencyAt);
+    const series = checkSeries(spec, c, mc, levels, thresholds, metrics, efficiencyAt, windows);
+    const isShare = spec.kind === 'min-coverage' || spec.kind === 'min-relative-coverage';
     let met = 0;
     const bound = c.bound ?? 'lower';
     for (let k = 0; k < N; k++) {
       const x = series.draws[k];
       const corrected = 2 * series.value - x; // Eq. (S2)
-      const ok = !Number.isNaN(x) && (spec.kind === 'min-coverage' ? corrected >= spec.minEfficiency
+      const ok = !Number.isNaN(x) && (isShare ? corrected >= spec.minEfficiency
         : bound === 'lower' ? corrected >= spec.limit : corrected <= spec.limit); // Eq. (P1)
       if (ok) met++; else allMet[k] = 0;
     }
     const p = met / N;
-    const sum = drawSummary(series.value, series.draws, spec.kind === 'min-coverage' ? undefined : mc.common);
+    const sum = drawSummary(series.value, series.draws, isShare ? undefined : mc.common);
     const params = { rule: u.decisionRule, toleranceDb: spec.toleranceDb, guardBandDb: u.guardBandDb, expandedDb: u.expandedDb };
     const rejudged: CheckResult = { ...c };
     let statement: ConformityStatement;
-    if (spec.kind === 'min-coverage') {
+    if (spec.kind === 'min-relative-coverage') {
+      // The window's edge t = peak − d (eirp; + d for eis) is judged like a coverage threshold.
+      const d = decideCoverage(efficiencyAt, metrics.peak.value - sense * spec.dbBelowPeak, spec.minEfficiency, sense, params);
+      statement = d.statement;
+      if (u.decisionRule !== 'shared-risk') Object.assign(rejudged, { value: d.value, margin: d.margin, pass: d.pass, status: d.pass ? 'pass' : 'fail' });
+    } else if (spec.kind === 'min-coverage') {
       const d = decideCoverage(efficiencyAt, spec.threshold, spec.minEfficiency, sense, params);
       statement = d.statement;
       if (u.decisionRule !== 'shared-risk') {
@@ -112,7 +120,7 @@ export function assessConfidence(a: {
     }
     rejudged.decision = {
       rule: u.decisionRule,
-      acceptanceLimit: spec.kind === 'min-coverage' ? spec.minEfficiency : (rejudged.effectiveLimit),
+      acceptanceLimit: isShare ? spec.minEfficiency : (rejudged.effectiveLimit),
       guardBandDb: u.decisionRule === 'guarded' ? u.guardBandDb : null,
       statement,
       probabilityOfConformance: p,
@@ -168,7 +176,7 @@ function snap(x: number): number {
 
 /** The measured value of a check (as the requirement reads it) and its draws. */
 function checkSeries(spec: Exclude<LimitCheck, { kind: 'beam-correspondence' | 'inter-band-coverage' }>, c: CheckResult, mc: MonteCarloDraws, levels: number[], thresholds: number[],
-  metrics: CoverageMetrics, efficiencyAt: (t: number) => number): { value: number; draws: Float64Array } {
+  metrics: CoverageMetrics, efficiencyAt: (t: number) => number, windows: number[]): { value: number; draws: Float64Array } {
   switch (spec.kind) {
     case 'percentile': {
       const l = levels.findIndex((x) => Math.abs(x - spec.levelPct) < 1e-9);
@@ -177,7 +185,7 @@ function checkSeries(spec: Exclude<LimitCheck, { kind: 'beam-correspondence' | '
     case 'min-coverage':
       return { value: efficiencyAt(spec.threshold), draws: mc.coverage[thresholds.indexOf(spec.threshold)] };
     case 'min-relative-coverage':
-      throw new RangeError('checkSeries: min-relative-coverage checks are not assessed');
+      return { value: c.value as number, draws: mc.relative[windows.indexOf(spec.dbBelowPeak)] };
     case 'min-peak':
     case 'max-peak':
       return { value: c.value as number, draws: mc.peak };

@@ -17,6 +17,8 @@ export interface MonteCarloRequest {
   beamPeaks: boolean;
   /** Per-beam TRP, dBm, as measured (null: not available); re-drawn when given. */
   trpDbm?: (number | null)[];
+  /** Windows d (dB towards worse from the re-drawn TSP peak) for coverage relative to the peak. */
+  relativeDb?: number[];
 }
 
 export interface MonteCarloDraws {
@@ -25,6 +27,8 @@ export interface MonteCarloDraws {
   percentiles: Float64Array[];
   /** [threshold][draw], fraction of the sphere. */
   coverage: Float64Array[];
+  /** [window][draw]: coverage within d dB of each draw's own TSP peak. */
+  relative: Float64Array[];
   /** Best value of the total scan pattern per draw (max; min for eis). */
   peak: Float64Array;
   /** [beam][draw] when requested, else empty. */
@@ -77,6 +81,7 @@ export function monteCarloMetrics(
     draws: N,
     percentiles: req.levelsPct.map(() => new Float64Array(N)),
     coverage: req.thresholds.map(() => new Float64Array(N)),
+    relative: (req.relativeDb ?? []).map(() => new Float64Array(N)),
     peak: new Float64Array(N),
     beamPeaks: req.beamPeaks ? beams.map(() => new Float64Array(N)) : [],
     trpDbm: beams.map((_, b) => (req.trpDbm?.[b] != null ? new Float64Array(N) : new Float64Array(0))),
@@ -148,6 +153,7 @@ export function monteCarloMetrics(
       const cdf = weightedCdf(star, weightSr);
       req.levelsPct.forEach((p, l) => { out.percentiles[l][k] = percentile(cdf, p, quantity) ?? NaN; });
       req.thresholds.forEach((t, l) => { out.coverage[l][k] = coverageEfficiency(cdf, t, quantity); });
+      (req.relativeDb ?? []).forEach((d, l) => { out.relative[l][k] = coverageEfficiency(cdf, s * (peak - d), quantity); });
       for (let b = 0; b < pp.length && req.beamPeaks; b++) {
         let m = -Infinity;
         for (const j of pp[b]) if (noisy[j] > m) m = noisy[j];
@@ -155,7 +161,9 @@ export function monteCarloMetrics(
       }
     } else {
       // u_r = 0: an exact common shift of every value.
-      out.peak[k] = s * (best.reduce((a, g) => (g > a ? g : a), -Infinity) + c);
+      const top = best.reduce((a, g) => (g > a ? g : a), -Infinity);
+      out.peak[k] = s * (top + c);
+      (req.relativeDb ?? []).forEach((d, l) => { out.relative[l][k] = coverageEfficiency(baseCdf, s * (top - d), quantity); }); // shift-invariant
       req.levelsPct.forEach((p, l) => { const v = percentile(baseCdf, p, quantity); out.percentiles[l][k] = v === null ? NaN : v + s * c; });
       req.thresholds.forEach((t, l) => { out.coverage[l][k] = coverageEfficiency(baseCdf, t - s * c, quantity); });
       for (let b = 0; b < out.beamPeaks.length; b++) out.beamPeaks[b][k] = s * (beamBest[b] + c);

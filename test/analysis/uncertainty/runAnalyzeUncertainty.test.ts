@@ -26,6 +26,7 @@ const CHECKS = `checks:
   - { kind: percentile, name: cov50, levelPct: 50, limit: 4, toleranceDb: 0.5 }
   - { kind: min-peak, name: peak, limit: 15 }
   - { kind: min-coverage, name: cov4, threshold: 4, minEfficiency: 0.5 }
+  - { kind: min-relative-coverage, name: within 15 dB, dbBelowPeak: 15, minEfficiency: 0.5 }
 `;
 
 async function run(job: string, stepDeg = 5, pdf = false) {
@@ -46,6 +47,9 @@ describe('uncertainty through runAnalyze', () => {
     expect(u.verdict).toBe(plain.verdict);
     expect(u.checks.map((c) => ({ ...c, decision: undefined }))).toEqual(plain.checks.map((c) => ({ ...c, decision: undefined })));
     expect(u.confidence!.draws).toBe(200);
+    // a window relative to the peak is re-read against each draw's own peak
+    expect(u.checks.find((c) => c.kind === 'min-relative-coverage')!.decision!.probabilityOfConformance).not.toBeNull();
+    expect(u.confidence!.probabilityOfConformance).not.toBeNull();
     expect(u.checks.every((c) => c.decision!.probabilityOfConformance! >= 0 && c.decision!.probabilityOfConformance! <= 1)).toBe(true);
     expect(mu.settings.uncertainty).toMatchObject({ decisionRule: 'shared-risk' });
     // grid adequacy is reported for every unit, uncertainty or not
