@@ -54,6 +54,7 @@ describe('every partial or patched grid says so (issue 12)', () => {
     const cells = Object.fromEntries(header.split(',').map((h, k) => [h, row.split(',')[k]]));
     expect(cells.verdict).toBe('pass (partial sphere)');
     expect(cells.full_sphere).toBe('no');
-    expect(Number(cells.unmeasured_sr)).toBeCloseTo(2 * Math.PI * (1 + Math.cos((92.5 * Math.PI) / 180)), 9);
+    // summary.csv rounds solid angles to 4 decimals (i14's CSV rounding).
+    expect(Number(cells.unmeasured_sr)).toBeCloseTo(2 * Math.PI * (1 + Math.cos((92.5 * Math.PI) / 180)), 4);
   });
 });
