@@ -1,6 +1,7 @@
 import type { Quantity, SphereGrid, UnmeasuredRegion, Warning } from '../types.js';
 import { warning } from '../warnings.js';
 import { isFullSphere } from './isFullSphere.js';
+import { hasTrp } from '../quantity.js';
 
 const FOUR_PI = 4 * Math.PI;
 
@@ -30,7 +31,7 @@ export function gridWarnings(grid: SphereGrid, quantity: Quantity, where?: { fil
     const lost = FOUR_PI - grid.solidAngleSr;
     const list = regions.length ? `: ${regions.map((r, k) => `region ${k + 1}: ${regionText(r)}`).join('; ')}` : '';
     out.push(warning('partial-sphere', `the scan leaves ${lost.toFixed(4)} sr (${(100 * lost / FOUR_PI).toFixed(2)} % of 4π) unmeasured in ${regions.length || 1} region${regions.length === 1 ? '' : 's'}${list}; unmeasured directions count as not covered`, where));
-    if (quantity !== 'eis') out.push(warning('trp-partial-sphere', `TRP is not reported: ${(100 * lost / FOUR_PI).toFixed(2)} % of 4π is unmeasured`, where));
+    if (hasTrp(quantity)) out.push(warning('trp-partial-sphere', `TRP is not reported: ${(100 * lost / FOUR_PI).toFixed(2)} % of 4π is unmeasured`, where));
   }
   const missing = grid.missing ?? [];
   if (missing.length) {

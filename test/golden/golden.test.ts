@@ -6,7 +6,7 @@
  */
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { ensureBuilt } from '../cli/buildOnce.js';
 // @ts-expect-error plain ES module shared with scripts/golden-update.mjs
 import { CASES, GOLDEN_DIR, OUTPUT_FILES, runCase } from './cases.mjs';
@@ -14,7 +14,7 @@ import { CASES, GOLDEN_DIR, OUTPUT_FILES, runCase } from './cases.mjs';
 interface GoldenCase { name: string }
 
 describe('golden outputs (npm run golden:update regenerates them)', () => {
-  ensureBuilt();
+  beforeAll(() => ensureBuilt(), 180_000);
   for (const c of CASES as GoldenCase[]) {
     it(`${c.name}: exit code and output files are byte-identical to test/golden/${c.name}/`, () => {
       const dir = path.join(GOLDEN_DIR as string, c.name);
@@ -27,6 +27,6 @@ describe('golden outputs (npm run golden:update regenerates them)', () => {
         expect(got.files[f]?.split('\n') ?? null, `${c.name}/${f}`).toEqual(want?.split('\n') ?? null);
         expect(got.files[f], `${c.name}/${f}`).toBe(want);
       }
-    }, 60_000);
+    }, 120_000);
   }
 });

@@ -2,7 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { CHECK_KIND_DEFS, CHECK_KINDS } from '../../src/limits/checkKinds.js';
 import { evaluateCheck } from '../../src/limits/evaluateCheck.js';
 import { describeCheck } from '../../src/limits/formatLimitSet.js';
@@ -51,8 +51,8 @@ describe('min-relative-coverage: coverage within d dB of the TSP peak ≥ e', ()
       "checks[0].minEfficiency: found '2', expected a fraction of the sphere between 0 and 1 (0.5 = 50 %)",
     ]);
   });
+  beforeAll(() => ensureBuilt(), 180_000);
   it('end to end: a limit file with the kind makes the batch compute the window and judge it', () => {
-    ensureBuilt();
     const dir = mkdtempSync(path.join(tmpdir(), 'spherecov-relcov-'));
     const limits = path.join(dir, 'rel.yaml');
     writeFileSync(limits, 'name: rel\nquantity: eirp\nsource: invented for a test\nchecks:\n  - { kind: min-relative-coverage, dbBelowPeak: 10, minEfficiency: 0.2 }\n');
@@ -70,5 +70,5 @@ describe('min-relative-coverage: coverage within d dB of the TSP peak ≥ e', ()
       expect(check.threshold).toBeCloseTo(u.tsp.peak.value - 10, 9); // eirp: peak − d
     }
     expect(readFileSync(path.join(out, 'summary.csv'), 'utf8').split('\n')[0]).toContain('coverage_within_10db_of_peak');
-  }, 60_000);
+  }, 120_000);
 });
