@@ -114,7 +114,7 @@ describe('inspect', () => {
     expectClose(r.measurements[0].grid.solidAngleSr, 4 * Math.PI, 1e-9, 'regular full grid covers 4π');
     const text = formatInspect(r);
     expect(text).toContain('file power.csv');
-    expect(text).toContain('layout: long; delimiter: comma; LF; parser: fast');
+    expect(text).toContain('layout: long; delimiter: comma; decimal point; LF; parser: fast');
     expect(text).toContain('calibrated from received power');
     expect(text).toMatch(/power_dbm\s+power \[dBm\]/);
     expect(text).toContain('unit DUT-A at 28 GHz: eirp (dBm), 2 beams from 1 file(s)');
