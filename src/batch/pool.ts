@@ -6,8 +6,8 @@
  * there is only one task): a worker pays its own module loading, font parsing and JIT warm-up
  * (about as much CPU as a few units), which the main thread has already paid or pays anyway.
  * With `jobs` = 'auto' (the default) the work decides: the main thread starts alone, and after
- * each of its tasks the pool estimates the work left (tasks left × the main thread's mean task
- * time); workers (cores − 1) are started only when that is more than WORTH_IT times what a
+ * each of its tasks (from the third on) the pool estimates the work left (tasks left × the
+ * main thread's fastest task time); workers (cores − 1) are started only when that is more than WORTH_IT times what a
  * worker costs to start, so a build that one thread finishes sooner never pays for workers.
  * Tasks are handed out one at a time from a shared counter (the next free lane takes the next
  * task); each worker holds up to two tasks, so it does not sit idle while the main thread is busy
@@ -46,9 +46,9 @@ const WORKER_DEPTH = 2;
  */
 const WORKER_START_MS = { plain: 550, pdf: 1850 };
 /** Start workers only when the work left is at least this many times their start-up cost. */
-const WORTH_IT = 2;
+const WORTH_IT = 3;
 
-/** 'auto': workers pay off when the work left (tasks × mean task time) outweighs WORTH_IT × their start-up. */
+/** 'auto': workers pay off when the work left (tasks × a warm task's time) outweighs WORTH_IT × their start-up. */
 export function workersPayOff(tasksLeft: number, meanTaskMs: number, startMs: number): boolean {
   return tasksLeft * meanTaskMs > WORTH_IT * startMs;
 }
@@ -91,16 +91,19 @@ export class TaskPool {
       workerLanes.push(...this.workers.map(workerLane));
     };
     const startMs = tasks[0].report ? WORKER_START_MS.pdf : WORKER_START_MS.plain;
-    let mainMs = 0, mainDone = 0;
+    // The fastest task so far: the first ones also pay JIT warm-up (and font loading with PDFs),
+    // 3–5× a warm task on the bench build, which would overstate the work left; decide from the
+    // third task on.
+    let fastestMs = Infinity, mainDone = 0;
     const mainLane = async (): Promise<void> => {
       for (let i = take(); i !== null; i = take()) {
         hooks.onStart?.(tasks[i]);
         const t0 = performance.now();
         finish(i, await safeRunTask(tasks[i]));
-        mainMs += performance.now() - t0;
+        fastestMs = Math.min(fastestMs, performance.now() - t0);
         mainDone++;
         // 'auto': is the work left worth the workers' start-up?
-        if (auto && this.workers.length === 0 && !stop() && workersPayOff(tasks.length - next, mainMs / mainDone, startMs)) startWorkers();
+        if (auto && this.workers.length === 0 && !stop() && mainDone >= 3 && workersPayOff(tasks.length - next, fastestMs, startMs)) startWorkers();
       }
     };
 

@@ -5,13 +5,13 @@ import { parseJobs } from '../../src/cli/parse.js';
 
 describe("--jobs 'auto'", () => {
   it('keeps a small build on the main thread and starts workers for a long one', () => {
-    // 20 units of 20 ms left: 0.4 s of work, less than twice a 0.55 s start-up.
-    expect(workersPayOff(20, 20, 550)).toBe(false);
-    // 100 units of 150 ms with PDFs: 15 s of work against 2 × 1.85 s.
+    // 20 units of 25 ms left: 0.5 s of work, less than three times a 0.55 s start-up.
+    expect(workersPayOff(20, 25, 550)).toBe(false);
+    // 100 units of 150 ms with PDFs: 15 s of work against 3 × 1.85 s.
     expect(workersPayOff(100, 150, 1850)).toBe(true);
-    // The boundary: exactly twice the start-up is not enough (strictly more is).
-    expect(workersPayOff(11, 100, 550)).toBe(false);
-    expect(workersPayOff(12, 100, 550)).toBe(true);
+    // The boundary: exactly three times the start-up is not enough (strictly more is).
+    expect(workersPayOff(33, 50, 550)).toBe(false);
+    expect(workersPayOff(34, 50, 550)).toBe(true);
     expect(workersPayOff(0, 1e6, 550)).toBe(false);
   });
 
