@@ -274,16 +274,26 @@ export interface CheckDecision {
   bias: number | null;
 }
 
-/** Measurement-uncertainty summary of one unit (present when an uncertainty is given). */
-export interface UnitConfidence {
-  decisionRule: 'shared-risk' | 'guarded' | 'non-binary';
-  /** U (95 %), u_c, u_r and the guard band w, dB. */
+/** How a measured value is turned into a verdict (ILAC-G8:09/2019 §4.2; 3GPP TS 38.101-2 §4.1). */
+export type DecisionRule = 'shared-risk' | 'guarded' | 'non-binary';
+
+/** A measurement uncertainty resolved for one quantity: the numbers the computations use. */
+export interface ResolvedUncertainty {
+  decisionRule: DecisionRule;
+  /** U (95 %), dB. */
   expandedDb: number;
+  /** u_c: standard uncertainty common to every direction of a unit (calibration, reference gain), dB. */
   commonDb: number;
+  /** u_r: standard uncertainty independent per direction, dB. */
   perDirectionDb: number;
+  /** w, dB (guarded); U for the other rules, where it sets the non-binary zones. */
   guardBandDb: number;
   draws: number;
   seed: number;
+}
+
+/** Measurement-uncertainty summary of one unit (present when an uncertainty is given): the resolved numbers, then the results. */
+export interface UnitConfidence extends ResolvedUncertainty {
   /** P(every check truly met), Monte-Carlo (joint over the checks); null without checks or with one not evaluable. */
   probabilityOfConformance: number | null;
   probabilityStdErr: number | null;

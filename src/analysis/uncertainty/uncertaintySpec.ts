@@ -1,8 +1,7 @@
-import type { Quantity } from '../../types.js';
+import type { DecisionRule, Quantity, ResolvedUncertainty } from '../../types.js';
 import { QUANTITIES } from '../../quantity.js';
 
-/** How a measured value is turned into a verdict (ILAC-G8:09/2019 §4.2; 3GPP TS 38.101-2 §4.1). */
-export type DecisionRule = 'shared-risk' | 'guarded' | 'non-binary';
+export type { DecisionRule };
 export const DECISION_RULES: readonly DecisionRule[] = ['shared-risk', 'guarded', 'non-binary'];
 
 /** Coverage factor of an expanded uncertainty at 95 % for a normal model (two-sided). */
@@ -39,20 +38,8 @@ export const DEFAULT_DRAWS = 1000;
 export const LARGE_GRID_POINTS = 10_000;
 export const LARGE_GRID_DRAWS = 200;
 
-/** A spec resolved for one quantity: the numbers the computations use. */
-export interface ResolvedUncertainty {
-  decisionRule: DecisionRule;
-  /** U (95 %), dB. */
-  expandedDb: number;
-  /** u_c: standard uncertainty common to every direction of a unit (calibration, reference gain), dB. */
-  commonDb: number;
-  /** u_r: standard uncertainty independent per direction, dB. */
-  perDirectionDb: number;
-  /** w, dB (guarded); U for the other rules, where it sets the non-binary zones. */
-  guardBandDb: number;
-  draws: number;
-  seed: number;
-}
+/** A spec resolved for one quantity: the numbers the computations use (the shape results.json repeats in `confidence`). */
+export type { ResolvedUncertainty };
 
 /**
  * Resolve the spec for one quantity: u_c from the split of the combined standard uncertainty

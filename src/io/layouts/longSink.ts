@@ -1,5 +1,4 @@
-import { mwToDbm, wToDbm } from '../../units.js';
-import { inSaneRange, LEVEL_RANGE } from '../saneRange.js';
+import { levelToDb } from './levelToDb.js';
 import { pairComponent } from '../columnRoles.js';
 import type { LongPlan } from './longLayout.js';
 import type { DropoutLog } from './dropoutLog.js';
@@ -73,19 +72,10 @@ export class LongSink implements RowSink {
   }
 
   private toDb(v: number, slot: number, line: number, loc: RowLocator): number | null {
-    const u = this.plan.fileValueUnit;
-    if (u === 'mW' || u === 'W') {
-      if (!(v > 0)) {
-        this.err(line, this.fieldOfNum(slot), loc, `a positive power in ${u}`);
-        return null;
-      }
-      v = u === 'mW' ? mwToDbm(v) : wToDbm(v);
-    }
-    if (!inSaneRange(v, LEVEL_RANGE)) {
-      this.err(line, this.fieldOfNum(slot), loc, `${LEVEL_RANGE.expected}${u === 'mW' || u === 'W' ? ` after conversion from ${u}` : ''}`);
-      return null;
-    }
-    return v;
+    const db = levelToDb(v, this.plan.fileValueUnit);
+    if (typeof db === 'number') return db;
+    this.err(line, this.fieldOfNum(slot), loc, db);
+    return null;
   }
 
   row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {

@@ -1,5 +1,4 @@
-import { mwToDbm, wToDbm } from '../../units.js';
-import { inSaneRange, LEVEL_RANGE } from '../saneRange.js';
+import { levelToDb } from './levelToDb.js';
 import type { MatrixPlan } from './matrixLayout.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { RowLocator, RowSink } from '../rowSink.js';
@@ -46,23 +45,17 @@ export class MatrixSink implements RowSink {
     const thetaDeg = tp ? clamped : 90 - clamped;
     const u = p.fileValueUnit;
     for (let c = 1; c < nums.length && c <= this.colDeg.length; c++) {
-      let v = nums[c];
+      const v = nums[c];
       if (v !== v) {
         this.dropouts.add(line, p.fields.names[c], thetaDeg, this.colDeg[c - 1]);
         continue; // a dropout: no sample at this direction
       }
-      if (u === 'mW' || u === 'W') {
-        if (!(v > 0)) {
-          this.errors.add(inputError(this.file, line, loc.col(c), p.fields.names[c], loc.text(c).trim(), `a positive power in ${u}`));
-          continue;
-        }
-        v = u === 'mW' ? mwToDbm(v) : wToDbm(v);
-      }
-      if (!inSaneRange(v, LEVEL_RANGE)) {
-        this.errors.add(inputError(this.file, line, loc.col(c), p.fields.names[c], loc.text(c).trim(), LEVEL_RANGE.expected));
+      const db = levelToDb(v, u);
+      if (typeof db === 'string') {
+        this.errors.add(inputError(this.file, line, loc.col(c), p.fields.names[c], loc.text(c).trim(), db));
         continue;
       }
-      this.acc.push(thetaDeg, this.colDeg[c - 1], v);
+      this.acc.push(thetaDeg, this.colDeg[c - 1], db);
     }
     this.rows++;
   }

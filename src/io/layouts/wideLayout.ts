@@ -6,8 +6,7 @@
  * from the headers; a unit or frequency column may stand beside the angles.
  */
 import type { InputError, Quantity, Warning } from '../../types.js';
-import { inSaneRange, LEVEL_RANGE } from '../saneRange.js';
-import { mwToDbm, wToDbm } from '../../units.js';
+import { levelToDb } from './levelToDb.js';
 import { warning } from '../../warnings.js';
 import { roleOfName } from '../columnRoles.js';
 import { addField, fieldPlan, KEY, NUM } from '../fieldPlan.js';
@@ -246,19 +245,10 @@ class WideSink implements LayoutSink {
   }
 
   private toDb(v: number, slot: number, line: number, loc: RowLocator): number | null {
-    const u = this.plan.fileValueUnit;
-    if (u === 'mW' || u === 'W') {
-      if (!(v > 0)) {
-        this.err(line, this.field(slot), loc, `a positive power in ${u}`);
-        return null;
-      }
-      v = u === 'mW' ? mwToDbm(v) : wToDbm(v);
-    }
-    if (!inSaneRange(v, LEVEL_RANGE)) {
-      this.err(line, this.field(slot), loc, `${LEVEL_RANGE.expected}${u === 'mW' || u === 'W' ? ` after conversion from ${u}` : ''}`);
-      return null;
-    }
-    return v;
+    const db = levelToDb(v, this.plan.fileValueUnit);
+    if (typeof db === 'number') return db;
+    this.err(line, this.field(slot), loc, db);
+    return null;
   }
 
   row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {
