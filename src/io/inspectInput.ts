@@ -1,10 +1,11 @@
-import { existsSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { gridSummary } from '../sphere/gridSummary.js';
 import type { InputError, Quantity, Warning } from '../types.js';
 import { assembleMeasurements } from './assembleMeasurements.js';
-import { findExportFiles } from './findExportFiles.js';
-import { findJobFile, loadJobFile } from './jobFile.js';
+import { findExportFiles, NotFileOrFolderError, toPosix, type ExportFiles } from './findExportFiles.js';
+import { findJobFile } from './findJobFile.js';
+import { loadJobFile } from './jobFile.js';
+import { fsReason, isFsError } from './fsProblem.js';
 import { readExportFile } from './readExportFile.js';
 import { decimalSeparatorSeen, type DecimalSeparatorSeen } from './decimalSeparator.js';
 import type { InspectReport, JobSpec, RawBeam } from './types.js';
@@ -16,18 +17,33 @@ export interface InspectOptions {
 }
 
 /**
+ * The export files of the input, found by the walker analyze uses (so inspect shows the files
+ * analyze would read); an input that does not exist, is a pipe or cannot be listed becomes the
+ * report's error and null.
+ */
+async function findFiles(input: string, report: InspectReport): Promise<ExportFiles | null> {
+  try {
+    return await findExportFiles(input);
+  } catch (e) {
+    if (e instanceof NotFileOrFolderError) report.errors.push({ file: input, message: e.message });
+    else if (isFsError(e)) report.errors.push({ file: input, message: e.code === 'ENOENT' ? `${input}: not found, expected a file or folder of exports` : `${input}: cannot read it: ${fsReason(e)}` });
+    else throw e;
+    return null;
+  }
+}
+
+/**
  * How spherecov understands a file or folder, before anyone trusts a number: per file the
  * layout, dialect, column roles, units, angle convention, identities; per unit and frequency
  * the grid; all warnings and errors. Never throws for bad input.
  */
 export async function inspectInput(input: string, opts: InspectOptions = {}): Promise<InspectReport> {
-  const abs = path.resolve(input);
-  const report: InspectReport = { input, job: { path: null, errors: [] }, files: [], measurements: [], errors: [], warnings: [] };
-  if (!existsSync(abs)) {
-    report.errors.push({ file: input, message: `${input}: not found, expected a file or folder of exports` });
-    return report;
-  }
-  const root = statSync(abs).isFile() ? path.dirname(abs) : abs;
+  const report: InspectReport = { input, job: { path: null, errors: [] }, files: [], skippedLinks: [], measurements: [], errors: [], warnings: [] };
+  const found = await findFiles(input, report);
+  if (!found) return report;
+  report.skippedLinks = found.skippedLinks.map(toPosix);
+  report.errors.push(...found.problems);
+  const root = found.root;
   const jobPath = opts.job ? path.resolve(opts.job) : findJobFile(root);
   let job: JobSpec | undefined;
   if (jobPath) {
@@ -37,7 +53,7 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
     job = loaded.job ?? undefined;
   }
   const beams: RawBeam[] = [];
-  for (const f of findExportFiles(abs)) {
+  for (const f of found.files) {
     const r = await readExportFile(f, { inputRoot: root, job, quantityOverride: opts.quantity });
     const decimalSeparator = r.info.layout && r.info.delimiter ? decimalSeparatorSeen(f, r.info.delimiter, r.info.header?.line ?? 1) : null;
     report.files.push({
@@ -92,6 +108,7 @@ function decimalText(d: DecimalSeparatorSeen | null | undefined): string {
 export function formatInspect(r: InspectReport): string {
   const out: string[] = [`input: ${r.input}`, `job file: ${r.job.path ?? 'none'}`];
   for (const e of r.job.errors) out.push(`  error: ${e.message}`);
+  for (const l of r.skippedLinks) out.push(`skipped link: ${l} (broken, or pointing outside the input folder; not read)`);
   const delimName: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
   for (const f of r.files) {
     out.push('', `file ${f.file}`);

@@ -1,4 +1,3 @@
-import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { LineCounter, parseDocument, isMap, isSeq, type Document } from 'yaml';
 import type { InputError } from '../types.js';
@@ -13,17 +12,7 @@ import { QUANTITIES } from '../quantity.js';
 import { validateUncertainty } from '../analysis/uncertainty/uncertaintySpec.js';
 import { MERGE_RULES } from '../sphere/mergeConflicts.js';
 
-/** Job-file names looked for in an input folder, in this order. */
-export const JOB_FILE_NAMES = ['spherecov.yaml', 'spherecov.yml', 'spherecov.json'];
-
-/** The job file of an input folder, or null. */
-export function findJobFile(inputDir: string): string | null {
-  for (const name of JOB_FILE_NAMES) {
-    const p = path.join(inputDir, name);
-    if (existsSync(p)) return p;
-  }
-  return null;
-}
+export { findJobFile, JOB_FILE_NAMES } from './findJobFile.js';
 
 const ROLE_KEYS: Record<string, ColumnRole> = {
   theta: 'theta', phi: 'phi', azimuth: 'azimuth', elevation: 'elevation', value: 'value', value_theta: 'valueTheta',

@@ -173,6 +173,8 @@ export interface InspectMeasurement {
 export interface InspectReport {
   input: string;
   job: { path: string | null; errors: InputError[] };
+  /** Symbolic links not followed (broken, or pointing outside the input folder), relative POSIX paths; analyze lists the same in results.json settings.skippedLinks. */
+  skippedLinks: string[];
   files: (FileReadResult['info'] & {
     /** The decimal separator found in the first data rows (point, comma, both, none); null when the file was not understood. */
     decimalSeparator: 'point' | 'comma' | 'both' | 'none' | null;

@@ -15,7 +15,7 @@ export async function readAll(input: string, parser: ReadContext['parser'] = 'au
   const jobPath = findJobFile(root);
   const loaded = jobPath ? loadJobFile(jobPath) : { job: null, errors: [] };
   const files: FileReadResult[] = [];
-  for (const f of findExportFiles(abs)) files.push(await readExportFile(f, { inputRoot: root, job: loaded.job ?? undefined, parser }));
+  for (const f of (await findExportFiles(abs)).files) files.push(await readExportFile(f, { inputRoot: root, job: loaded.job ?? undefined, parser }));
   const asm = assembleMeasurements(files.flatMap((f) => f.beams), files.map((f) => ({ path: f.file, sha256: f.sha256 })));
   return { files, jobErrors: loaded.errors, ...asm };
 }
