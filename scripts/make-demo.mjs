@@ -236,6 +236,12 @@ limits: 3gpp-fr2-pc3-n257
 checks:
 ${PROGRAMME.map((c) => `  - { kind: min-coverage, threshold: ${c.thresholdDbm}, minEfficiency: ${c.minEfficiency}, name: "programme: ${Math.round(c.minEfficiency * 100)} % of sphere ≥ ${c.thresholdDbm} dBm" }`).join('\n')}
 reference: RV28-P1-001
+test_info:
+  chamber: CATR-2 (invented)
+  operator: D. Demo
+  date_measured: 2026-11-30
+  dut_description: RV28 prototype build P1, 28 GHz module (invented, simulated)
+  notes: Simulated measurements from src/sim; nothing here was measured.
 `;
 
 await main();

@@ -375,6 +375,19 @@ export interface CoverageHole extends Direction {
   nearestBeam: string;
 }
 
+/**
+ * The one coverage threshold of a unit's analysis (src/limits/impliedChoices.ts): the coverage
+ * holes are found at it and the report's map contour is drawn at it, so both say the same thing.
+ */
+export interface AnalysisThreshold {
+  /** The threshold in the value unit (dBm, dBi). */
+  value: number;
+  /** Where it comes from: the limit set's first min-coverage check, else its first percentile check's limit, else the first requested coverage threshold. */
+  source: 'min-coverage-check' | 'percentile-check' | 'requested';
+  /** Whether the checks' test tolerance relaxes it (today never: the requirement as written). */
+  toleranceApplied: boolean;
+}
+
 export interface BeamRemoval {
   percentileLossDb: number | null;
   coverageLoss: number | null;
@@ -415,6 +428,8 @@ export interface UnitResult {
   grid: GridSummary;
   sources: SourceFile[];
   limitSet: { name: string; source: string } | null;
+  /** The threshold the holes below were found at and the map contour is drawn at; null: none in this run. */
+  analysisThreshold?: AnalysisThreshold | null;
   holes?: CoverageHole[];
   subset?: BeamSubset | null;
   reference?: { unit: string; deltas: Record<string, number | null> } | null;
@@ -531,10 +546,18 @@ export interface UnitNotAnalyzed {
   files: string[];
 }
 
+/**
+ * Test metadata from the job file's `test_info:` block (chamber, operator, date_measured, notes,
+ * dut_description, or any other snake_case key), each value the text as written; key order as written.
+ */
+export type TestInfo = Record<string, string>;
+
 export interface ResultsFile {
   schemaVersion: 1;
   tool: { name: 'spherecov'; version: string };
   generatedAt: string;
+  /** The job file's `test_info:` block as written (key → text), null without one. */
+  testInfo: TestInfo | null;
   settings: Record<string, unknown>;
   units: UnitResult[];
   /** Units that could not be read or analyzed, each with its first error (verdict "error"). */

@@ -366,6 +366,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
       schemaVersion: 1,
       tool: { name: 'spherecov', version: TOOL_VERSION },
       generatedAt,
+      testInfo: job?.testInfo ?? null,
       settings: {
         input: toPosix(path.basename(input)),
         percentilesPct,
@@ -427,6 +428,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
           generatedAt,
           toolVersion: TOOL_VERSION,
           limitSetName: limitSet?.name ?? null,
+          testInfo: job?.testInfo,
         },
         report as ReportSettings,
       );

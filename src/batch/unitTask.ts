@@ -29,7 +29,7 @@ import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js
 import { applyJointChecks, type JointMaps } from './jointChecks.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView } from './polarizationUnits.js';
 import type { ViewerUnit } from '../viewer/viewerData.js';
-import { impliedChoices } from '../limits/impliedChoices.js';
+import { analysisThreshold, impliedChoices } from '../limits/impliedChoices.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -149,7 +149,8 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
   const beamValues = m.beams.map((b) => b.values);
   const beamIds = m.beams.map((b) => b.id);
   const level = analysisLevel(ls);
-  const hT = holeThreshold(ls, input.thresholds);
+  const threshold = analysisThreshold(ls, input.thresholds);
+  const hT = threshold?.value ?? null;
   const extras = input.coreOnly !== true;
   const removal: (BeamRemoval | undefined)[] = !extras ? beamValues.map(() => undefined) : beamValues.length > 1
     ? beamRemoval(m.grid, beamValues, m.quantity, level, hT)
@@ -175,6 +176,7 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     grid,
     sources: m.sources,
     limitSet: ls ? { name: ls.name, source: ls.source } : null,
+    analysisThreshold: threshold,
     holes: hT === null || !extras ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
     subset: extras ? greedySubset(m.grid, beamValues, beamIds, m.quantity, level) : null,
     gridAdequacy: extras ? gridAdequacy(m.grid, tsp.values, m.quantity, input.percentilesPct, input.thresholds) : null,
@@ -206,7 +208,7 @@ export async function renderUnit(
     {
       result, measurement: m, tsp, generatedAt: input.generatedAt, toolVersion: input.toolVersion, referenceDelta, tspCdf: cdf,
       polarizationCdfs: componentTsps?.map((c) => ({ name: c.name, curve: cdfCurve(c.values, c.weightSr, m.quantity) })),
-      analysisThreshold: holeThreshold(input.limitSet, input.thresholds),
+      testInfo: input.job?.testInfo,
       jointMaps,
     },
     input.report,

@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { LineCounter, parseDocument, isMap, isSeq, type Document } from 'yaml';
+import { LineCounter, parseDocument, isMap, isScalar, isSeq, type Document } from 'yaml';
 import type { InputError } from '../types.js';
 import { clipText } from './inputError.js';
 import { parseNumberText } from './numberText.js';
@@ -19,7 +19,7 @@ const ROLE_KEYS: Record<string, ColumnRole> = {
   value_phi: 'valuePhi', power: 'power', pol: 'pol', unit: 'unit', beam: 'beam', frequency: 'frequency',
 };
 const TOP_KEYS = ['columns', 'identity', 'quantity', 'value_unit', 'angles', 'frequency_unit', 'header_line', 'dropout_tokens', 'calibration', 'limits', 'checks',
-  'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference', 'uncertainty', 'merge_rule'];
+  'percentiles', 'coverage_thresholds', 'coverageThresholds', 'report', 'reference', 'uncertainty', 'merge_rule', 'test_info'];
 const FREQ_KEYS: Record<string, number> = { frequency_hz: 1, frequency_mhz: 1e6, frequency_ghz: 1e9 };
 
 type Path = (string | number)[];
@@ -106,6 +106,27 @@ class Checker {
     });
     return out;
   }
+}
+
+/** A `test_info:` key: snake_case like the job file's own keys (also keeps JSON key order: no number-like keys). */
+const TEST_INFO_KEY = /^[a-z][a-z0-9_]*$/;
+
+/**
+ * The `test_info:` block: one text per snake_case key, kept as written. A plain scalar keeps its
+ * source text (`chamber: 007` stays '007', `date_measured: 2026-11-30` stays a text), a quoted or
+ * block scalar its string; nested mappings and lists are refused (one text per key).
+ */
+function testInfo(c: Checker, doc: Document, v: unknown): Record<string, string> | undefined {
+  const block = c.object(v, ['test_info']);
+  if (!block) return undefined;
+  const out: Record<string, string> = {};
+  for (const k of Object.keys(block)) {
+    const node = doc.getIn(['test_info', k], true);
+    if (!TEST_INFO_KEY.test(k)) c.fail(['test_info', k], k, 'a key in snake_case, e.g. chamber, operator, date_measured, notes, dut_description');
+    else if (!isScalar(node)) c.fail(['test_info', k], block[k], 'a text (one line, or a YAML block with |)');
+    else out[k] = typeof node.value === 'string' ? node.value : (node as { source?: string }).source ?? String(node.value ?? '');
+  }
+  return out;
 }
 
 /**
@@ -244,6 +265,7 @@ export function loadJobFile(filePath: string): { job: JobSpec | null; errors: In
     const spec = validateUncertainty(top.uncertainty, ['uncertainty'], (p, found, expected) => c.fail(p, found, expected));
     if (spec) job.uncertainty = spec;
   }
+  if (top.test_info !== undefined) job.testInfo = testInfo(c, doc, top.test_info);
   for (const k of Object.keys(job) as (keyof JobSpec)[]) if (job[k] === undefined) delete job[k];
   return c.errors.length ? { job: null, errors: c.errors } : { job, errors: [] };
 }

@@ -63,6 +63,8 @@ export interface JobSpec {
   reference?: string;
   /** Measurement uncertainty and decision rule (src/analysis/uncertainty/uncertaintySpec.ts). */
   uncertainty?: UncertaintySpec;
+  /** Test metadata (`test_info:`), key → text as written, shown in the reports and results.json. */
+  testInfo?: Record<string, string>;
 }
 
 export interface ReadContext {

@@ -1,3 +1,4 @@
+import type { AnalysisThreshold } from '../types.js';
 import type { LimitSet } from './limitSet.js';
 
 /** The choices a limit set implies for the optional analysis and the report. */
@@ -24,10 +25,27 @@ export interface ImpliedChoices {
  */
 export function impliedChoices(ls: Pick<LimitSet, 'checks'> | null | undefined, requestedThresholds: number[]): ImpliedChoices {
   const checks = ls?.checks ?? [];
-  const cov = checks.find((c) => c.kind === 'min-coverage');
   const pct = checks.find((c) => c.kind === 'percentile');
-  const threshold = cov?.kind === 'min-coverage' ? cov.threshold
-    : pct?.kind === 'percentile' ? pct.limit
-    : requestedThresholds.length ? requestedThresholds[0] : null;
-  return { threshold, levelPct: pct?.kind === 'percentile' ? pct.levelPct : 50 };
+  return {
+    threshold: analysisThreshold(ls, requestedThresholds)?.value ?? null,
+    levelPct: pct?.kind === 'percentile' ? pct.levelPct : 50,
+  };
+}
+
+/**
+ * The analysis threshold with where it comes from and whether a test tolerance relaxes it, as
+ * results.json records it per unit and the report's caption states it (one value for holes and
+ * the map contour). The selection is impliedChoices' (above); the tolerance is never applied:
+ * holes and contour show the requirement as written, while the verdict alone is relaxed.
+ * null when neither the limit set nor the request names a threshold. Cost O(checks).
+ * @example analysisThreshold(null, [8]) // { value: 8, source: 'requested', toleranceApplied: false }
+ */
+export function analysisThreshold(ls: Pick<LimitSet, 'checks'> | null | undefined, requestedThresholds: number[]): AnalysisThreshold | null {
+  const checks = ls?.checks ?? [];
+  const cov = checks.find((c) => c.kind === 'min-coverage');
+  if (cov?.kind === 'min-coverage') return { value: cov.threshold, source: 'min-coverage-check', toleranceApplied: false };
+  const pct = checks.find((c) => c.kind === 'percentile');
+  if (pct?.kind === 'percentile') return { value: pct.limit, source: 'percentile-check', toleranceApplied: false };
+  if (requestedThresholds.length) return { value: requestedThresholds[0], source: 'requested', toleranceApplied: false };
+  return null;
 }

@@ -14,6 +14,7 @@ import { cdfLimitMarks } from './unitReport.js';
 import { isLowerBetter } from '../quantity.js';
 import { errorLocation, errorMessage, verdictWord, worstMarginText } from './unitStatus.js';
 import { formatMetric, metricLabel, statsMetricIndex } from '../metrics/catalogue.js';
+import { testInfoBlock } from './sections/testInfoBlock.js';
 
 /** A thumbnail's pixels painted with one colour scale (each pixel is its own "point"). */
 function thumbnailPng(t: MapThumbnail, entry: (v: number) => number, table: Uint8Array): Buffer {
@@ -73,6 +74,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
     ['Tool', `spherecov ${input.toolVersion}`],
   ], MARGIN.left, w, 90);
   doc.moveDown(0.4);
+  testInfoBlock(doc, input.testInfo);
 
   heading(doc, 'Units', 40);
   const cols: Column[] = [

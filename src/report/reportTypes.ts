@@ -1,4 +1,4 @@
-import type { BuildSummary, Measurement, Polarization, TotalScanPattern, UnitNotAnalyzed, UnitResult } from '../types.js';
+import type { BuildSummary, Measurement, Polarization, TestInfo, TotalScanPattern, UnitNotAnalyzed, UnitResult } from '../types.js';
 import type { CdfCurve } from './cdfCurve.js';
 import type { ColorMapName } from './colorMap.js';
 
@@ -49,11 +49,8 @@ export interface UnitReportInput {
   tspCdf?: CdfCurve;
   /** θ/φ pairs: each polarization component's TSP CDF (src/report/polarizationSection.ts). */
   polarizationCdfs?: { name: Polarization; curve: CdfCurve }[];
-  /**
-   * The run's one analysis threshold (limits/impliedChoices.ts): the map contour is drawn there, the
-   * same threshold the hole search used. Absent (a caller without the limit set): contourThreshold.
-   */
-  analysisThreshold?: number | null;
+  /** The job file's `test_info:` block, shown on page 1 as written. */
+  testInfo?: TestInfo | null;
   /** Per-direction data of checks joining two measurements (src/batch/jointChecks.ts), e.g. the inter-band regions. */
   jointMaps?: { interBand?: { inA: Uint8Array; inB: Uint8Array; names: [string, string] } };
 }
@@ -81,6 +78,8 @@ export interface BuildReportInput {
   generatedAt: string;
   toolVersion: string;
   limitSetName: string | null;
+  /** The job file's `test_info:` block, shown on page 1 as written. */
+  testInfo?: TestInfo | null;
 }
 
 /** The key of a unit at a frequency in BuildReportInput maps. */

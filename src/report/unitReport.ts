@@ -15,6 +15,8 @@ import { formatMetric, metricLabel, metricsOfUnit, rowKey, rowMetrics, type Metr
 import { polarizationSection } from './polarizationSection.js';
 import { jointSection } from './jointSection.js';
 import { confidencePage } from './confidencePage.js';
+import { testInfoBlock } from './sections/testInfoBlock.js';
+import { thresholdSourceText } from './thresholdText.js';
 
 const PERCENTILE_RULE =
   'step rule: the smallest value whose solid-angle-weighted CDF over 4π reaches p; unmeasured solid angle counts as worst';
@@ -36,8 +38,13 @@ export function listedHoles(r: UnitResult): { listed: NonNullable<UnitResult['ho
 
 export const unitLabel = (r: UnitResult) => `${r.unit}${r.frequencyHz === null ? '' : ` · ${fmtFrequency(r.frequencyHz)}`}`;
 
-/** The coverage threshold drawn as the map contour: a coverage check's, else the first requested. */
+/**
+ * The coverage threshold drawn as the map contour: the unit's analysis threshold (the one its holes
+ * were found at, src/limits/impliedChoices.ts); for a result without one (written by an older
+ * version), a coverage check's, else the first requested.
+ */
 export function contourThreshold(r: UnitResult): number | null {
+  if (r.analysisThreshold !== undefined) return r.analysisThreshold?.value ?? null;
   const c = r.checks.find((k) => k.kind === 'min-coverage' && k.threshold !== undefined);
   return c?.threshold ?? r.tsp.coverage[0]?.threshold ?? null;
 }
@@ -101,6 +108,7 @@ function titleBlock(doc: Doc, input: UnitReportInput, s: ReportSettings): void {
     ['Beams', `${r.beams.length}`],
   ], MARGIN.left + half + 16, half, 78);
   doc.y = Math.max(yLeft, doc.y) + 4;
+  testInfoBlock(doc, input.testInfo);
 }
 
 function verdictBlock(doc: Doc, r: UnitResult): void {
@@ -192,7 +200,7 @@ function tspMapSection(doc: Doc, input: UnitReportInput, maps: UnitMaps, s: Repo
   doc.y = ly + 13;
   const cmp = r.quantity === 'eis' ? 'at or below' : 'at or above';
   note(doc, `Hammer equal-area projection: area on the page is proportional to solid angle. Centre φ = ${fmt(s.mapCenterPhiDeg, 0)}°, θ = 90°; top θ = 0° (+z). ` +
-    (threshold !== null ? `Black line with white edge: contour at ${fmt(threshold)} ${r.valueUnit} (inside: ${cmp}), the same threshold the coverage holes are found at (the limit set's coverage threshold as written, else its percentile limit, else the first requested threshold; no test tolerance applied). ` : '') +
+    (threshold !== null ? `Black line with white edge: contour at ${fmt(threshold)} ${r.valueUnit} (inside: ${cmp}), the same threshold the coverage holes are found at (${thresholdSourceText(r.analysisThreshold)}). ` : '') +
     (holes.length ? `H1… mark the coverage holes listed below. ` : '') + 'Graticule every 30° in θ and φ. Brightest = best.');
 }
 
@@ -467,7 +475,7 @@ export async function renderUnitPdf(input: UnitReportInput, settings: ReportSett
   const r = input.result;
   const sec = settings.sections;
   const doc = createDoc(settings, input.generatedAt, `${settings.title}: ${r.unit}`, `Spherical coverage of ${unitLabel(r)}`);
-  const threshold = input.analysisThreshold !== undefined ? input.analysisThreshold : contourThreshold(r);
+  const threshold = contourThreshold(r);
   const needMaps = sec.tspMap || sec.bestBeamMap || (sec.reference && !!input.referenceDelta);
   const maps = needMaps
     ? buildUnitMaps(input.measurement, input.tsp, { widthPx: settings.mapWidthPx, centerPhiDeg: settings.mapCenterPhiDeg, colorMap: settings.colorMap, threshold, delta: sec.reference ? input.referenceDelta : undefined })

@@ -91,6 +91,28 @@ describe('job file', () => {
     expect(bad.job).toBeNull();
     expect(bad.errors[0].message).toMatch(/^spherecov\.json:2:\d+: syntax: found '.*', expected valid JSON/);
   });
+  it('test_info keeps every value as written, in the order written; a nested value or a non-snake_case key is a located error', () => {
+    const p = path.join(dir, 'spherecov.yaml');
+    writeFileSync(p, [
+      'test_info:', '  operator: B. Sample', '  chamber: 007', '  date_measured: 2026-11-30', '  rev: 1.50', '  lid: yes',
+      '  dut_description: "module: P1"', '  blank:', '  notes: |', '    line one', '    line two', '',
+    ].join('\n'));
+    const { job, errors } = loadJobFile(p);
+    expect(errors).toEqual([]);
+    // YAML would read 007 as 7, 1.50 as 1.5 and yes as a text: the plain scalars keep their source text.
+    expect(job?.testInfo).toEqual({
+      operator: 'B. Sample', chamber: '007', date_measured: '2026-11-30', rev: '1.50', lid: 'yes', dut_description: 'module: P1', blank: '',
+      notes: 'line one\nline two\n',
+    });
+    expect(Object.keys(job!.testInfo!)).toEqual(['operator', 'chamber', 'date_measured', 'rev', 'lid', 'dut_description', 'blank', 'notes']);
+    writeFileSync(p, ['test_info:', '  chamber: [a, b]', '  Operator: X', ''].join('\n'));
+    expect(loadJobFile(p).errors.map((e) => e.message)).toEqual([
+      "spherecov.yaml:2:12: test_info.chamber: found '[\"a\",\"b\"]', expected a text (one line, or a YAML block with |)",
+      "spherecov.yaml:3:13: test_info.Operator: found 'Operator', expected a key in snake_case, e.g. chamber, operator, date_measured, notes, dut_description",
+    ]);
+    writeFileSync(p, 'test_info: CATR-2\n');
+    expect(loadJobFile(p).errors[0].message).toBe("spherecov.yaml:1:12: test_info: found 'CATR-2', expected a mapping of keys to values");
+  });
   it('mapped columns read a file detection alone cannot', async () => {
     const p = path.join(dir, 'spherecov.yaml');
     writeFileSync(p, 'columns: { theta: "Pos Theta", phi: "Pos Phi", value: "Level", beam: "CW" }\nquantity: eis\n');

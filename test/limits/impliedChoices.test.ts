@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { impliedChoices } from '../../src/limits/impliedChoices.js';
+import { analysisThreshold, impliedChoices } from '../../src/limits/impliedChoices.js';
 import type { LimitCheck } from '../../src/limits/limitSet.js';
 
 const cov: LimitCheck = { kind: 'min-coverage', name: 'c', threshold: 8, minEfficiency: 0.5, toleranceDb: 1 };
@@ -11,5 +11,12 @@ describe('limit-implied choices: one threshold and one level for holes, contour,
     expect(impliedChoices({ checks: [pct] }, [3])).toEqual({ threshold: 11.5, levelPct: 20 });
     expect(impliedChoices(null, [3, 4])).toEqual({ threshold: 3, levelPct: 50 });
     expect(impliedChoices({ checks: [] }, [])).toEqual({ threshold: null, levelPct: 50 });
+  });
+
+  it('analysisThreshold says where the threshold comes from and that no tolerance relaxes it (cov has toleranceDb 1)', () => {
+    expect(analysisThreshold({ checks: [pct, cov] }, [3])).toEqual({ value: 8, source: 'min-coverage-check', toleranceApplied: false });
+    expect(analysisThreshold({ checks: [pct] }, [3])).toEqual({ value: 11.5, source: 'percentile-check', toleranceApplied: false });
+    expect(analysisThreshold(null, [3, 4])).toEqual({ value: 3, source: 'requested', toleranceApplied: false });
+    expect(analysisThreshold({ checks: [] }, [])).toBeNull();
   });
 });
