@@ -1,4 +1,4 @@
-import type { BeamPattern, Measurement, Quantity, SourceFile, Warning } from './types.js';
+import type { BeamPattern, Measurement, SourceFile, Warning } from './types.js';
 import { FULL_SPHERE_REL_TOL } from './sphere/isFullSphere.js';
 import { neumaierSum } from './sphere/neumaierSum.js';
 import { isQuantity, quantityUnit } from './quantity.js';

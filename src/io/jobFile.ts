@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { LineCounter, parseDocument, isMap, isScalar, isSeq, type Document } from 'yaml';
+import { LineCounter, parseDocument, isMap, isScalar, type Document } from 'yaml';
 import type { InputError } from '../types.js';
 import { clipText } from './inputError.js';
 import { parseNumberText } from './numberText.js';

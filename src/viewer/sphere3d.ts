@@ -34,7 +34,6 @@ export class SphereView {
   private geometry: BufferGeometry;
   private mesh: Mesh;
   private marker: Mesh;
-  private lookup: NearestLookup | null = null;
   private vertexPoint: Int32Array;
 
   constructor(readonly canvas: HTMLCanvasElement, private onPoint: (dir: { thetaDeg: number; phiDeg: number } | null) => void) {
@@ -89,7 +88,6 @@ export class SphereView {
 
   /** Which grid point each vertex shows (the map's lookup: the cell that holds the direction). */
   setGrid(lookup: NearestLookup): void {
-    this.lookup = lookup;
     const rings = 180 / STEP_DEG + 1, cols = 360 / STEP_DEG + 1;
     for (let r = 0; r < rings; r++) for (let c = 0; c < cols; c++) this.vertexPoint[r * cols + c] = lookup(r * STEP_DEG, (c * STEP_DEG) % 360);
   }

@@ -5,7 +5,7 @@
  * (`28 GHz Beam 0 EIRP (dBm)`, `Beam 0 EIRP @ 28 GHz`). Beam ids (and block frequencies) come
  * from the headers; a unit or frequency column may stand beside the angles.
  */
-import type { InputError, Quantity, Warning } from '../../types.js';
+import type { Quantity, Warning } from '../../types.js';
 import { levelToDb } from './levelToDb.js';
 import { warning } from '../../warnings.js';
 import { roleOfName } from '../columnRoles.js';
@@ -310,7 +310,7 @@ class WideSink implements LayoutSink {
         this.template ??= acc;
         return acc;
       });
-      const second = this.plan.blocks.map((b, k) => (b.slotB >= 0 ? new SampleAccumulator(this.template, line) : null));
+      const second = this.plan.blocks.map((b) => (b.slotB >= 0 ? new SampleAccumulator(this.template, line) : null));
       g = { unitId, freqRaw, accs, second };
       this.groups.push(g);
       this.byKey.set(key, g);
