@@ -3,6 +3,7 @@ import type { BeamRemoval, Quantity, SphereGrid } from '../types.js';
 import { createPatchedPercentile } from './patchedPercentile.js';
 import { createPercentileSelector } from './percentileSelector.js';
 import { betterByDb, isLowerBetter, worstValue } from '../quantity.js';
+import { NeumaierAccumulator } from '../sphere/neumaierSum.js';
 
 /**
  * What each beam is worth: how much the chosen percentile of the total scan pattern and the
@@ -73,17 +74,13 @@ export function beamRemoval(
   patched.setBase(bestVal, lo - pad, hi + pad);
   return beams.map((_, b) => {
     const changed = byBeam.subarray(groupStart[b], groupStart[b + 1]);
-    let lost = 0, c = 0;
+    const lost = new NeumaierAccumulator(); // Eq. 2: the lost solid angle
     for (let j = 0; j < changed.length; j++) {
       const i = changed[j];
-      if (covered(bestVal[i]) && !covered(secondVal[i])) {
-        const w = grid.weightSr[i], t = lost + w; // Eq. 2: Neumaier sum of the lost solid angle
-        c += Math.abs(lost) >= w ? lost - t + w : w - t + lost;
-        lost = t;
-      }
+      if (covered(bestVal[i]) && !covered(secondVal[i])) lost.add(grid.weightSr[i]);
     }
     const rest = beams.length > 1 ? (changed.length === 0 ? full : finite(patched.evaluate(changed, changed.length, secondVal) ?? null)) : null;
     const percentileLossDb = full === null || rest === null ? null : betterByDb(quantity, full, rest); // Eq. 1
-    return { percentileLossDb, coverageLoss: threshold === null ? null : (lost + c) / sphereSr };
+    return { percentileLossDb, coverageLoss: threshold === null ? null : lost.total() / sphereSr };
   });
 }

@@ -1,6 +1,7 @@
 import { gridNeighbors, type GridAdjacency } from '../sphere/neighbors.js';
 import type { CoverageHole, Quantity, SphereGrid, TotalScanPattern } from '../types.js';
 import { isLowerBetter } from '../quantity.js';
+import { NeumaierAccumulator } from '../sphere/neumaierSum.js';
 
 const RAD = Math.PI / 180;
 
@@ -98,13 +99,12 @@ function worseFirst(a: number, b: number, lowerIsBetter: boolean): number {
 function describeHole(
   grid: SphereGrid, values: Float64Array, beams: Float64Array[], beamIds: string[], points: Int32Array, lowerIsBetter: boolean,
 ): CoverageHole {
-  let area = 0, areaC = 0, x = 0, y = 0, z = 0;
+  const area = new NeumaierAccumulator(); // Eq. 1
+  let x = 0, y = 0, z = 0;
   let worstAt = points[0];
   for (const i of points) {
     const w = grid.weightSr[i];
-    const t = area + w; // Eq. 1, Neumaier compensated sum
-    areaC += Math.abs(area) >= Math.abs(w) ? area - t + w : w - t + area;
-    area = t;
+    area.add(w); // Eq. 1
     const th = grid.thetaDeg[i] * RAD, ph = grid.phiDeg[i] * RAD;
     x += w * Math.sin(th) * Math.cos(ph);
     y += w * Math.sin(th) * Math.sin(ph);
@@ -113,11 +113,12 @@ function describeHole(
   }
   const norm = Math.hypot(x, y, z);
   let thetaDeg = grid.thetaDeg[worstAt], phiDeg = grid.phiDeg[worstAt];
-  if (norm > 1e-12 * (area + areaC)) {
+  const solidAngleSr = area.total();
+  if (norm > 1e-12 * solidAngleSr) {
     thetaDeg = Math.acos(Math.min(1, Math.max(-1, z / norm))) / RAD;
     phiDeg = thetaDeg < 1e-9 || thetaDeg > 180 - 1e-9 ? 0 : ((Math.atan2(y, x) / RAD) % 360 + 360) % 360;
   }
-  return { solidAngleSr: area + areaC, thetaDeg, phiDeg, worst: values[worstAt], nearestBeam: nearestBeam(grid, beams, beamIds, points, lowerIsBetter) };
+  return { solidAngleSr, thetaDeg, phiDeg, worst: values[worstAt], nearestBeam: nearestBeam(grid, beams, beamIds, points, lowerIsBetter) };
 }
 
 function nearestBeam(grid: SphereGrid, beams: Float64Array[], beamIds: string[], points: Int32Array, lowerIsBetter: boolean): string {

@@ -1,4 +1,4 @@
-import { neumaierSum } from '../sphere/neumaierSum.js';
+import { neumaierError, neumaierSum } from '../sphere/neumaierSum.js';
 import { sphereNormSr } from './sphereNormSr.js';
 
 const LN10_OVER_10 = Math.LN10 / 10;
@@ -27,11 +27,11 @@ export function beamTrpDbm(
   if (weightSr.length !== n) throw new RangeError(`beamTrpDbm: ${n} values but ${weightSr.length} weights`);
   if (!fullSphere) return null;
   let sum = 0;
-  let comp = 0;
+  let comp = 0; // Neumaier in locals: this loop is the hottest sum of the measure stage
   for (let i = 0; i < n; i++) {
     const x = weightSr[i] * Math.exp(values[i] * LN10_OVER_10); // Eq. 1
     const t = sum + x;
-    comp += Math.abs(sum) >= Math.abs(x) ? sum - t + x : x - t + sum;
+    comp += neumaierError(sum, x, t);
     sum = t;
   }
   return 10 * Math.log10((sum + comp) / sphereNormSr(weightSumSr)); // Eq. 1

@@ -1,3 +1,4 @@
+import { NeumaierAccumulator, neumaierAddAt } from '../sphere/neumaierSum.js';
 import { sphereNormSr } from './sphereNormSr.js';
 
 /** The solid-angle-weighted distribution of a pattern as a step function over distinct values. */
@@ -37,19 +38,13 @@ export function weightedCdf(values: ArrayLike<number>, weightSr: ArrayLike<numbe
     const v = values[i];
     let lo = 0, hi = m - 1;
     while (lo < hi) { const mid = (lo + hi) >> 1; if (distinct[mid] < v) lo = mid + 1; else hi = mid; }
-    const w = weightSr[i];
-    const t = stepSr[lo] + w;
-    stepComp[lo] += Math.abs(stepSr[lo]) >= Math.abs(w) ? stepSr[lo] - t + w : w - t + stepSr[lo];
-    stepSr[lo] = t;
+    neumaierAddAt(stepSr, stepComp, lo, weightSr[i]);
   }
   const cumulativeSr = new Float64Array(m);
-  let sum = 0, comp = 0;
+  const running = new NeumaierAccumulator();
   for (let k = 0; k < m; k++) {
-    const x = stepSr[k] + stepComp[k];
-    const t = sum + x;
-    comp += Math.abs(sum) >= Math.abs(x) ? sum - t + x : x - t + sum;
-    sum = t;
-    cumulativeSr[k] = sum + comp; // Eq. 1 (numerator)
+    running.add(stepSr[k] + stepComp[k]);
+    cumulativeSr[k] = running.total(); // Eq. 1 (numerator)
   }
   const measuredSr = m > 0 ? cumulativeSr[m - 1] : 0;
   return { values: distinct, cumulativeSr, measuredSr, sphereSr: sphereNormSr(measuredSr) };
