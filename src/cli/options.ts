@@ -3,6 +3,7 @@
  * parsing), `--help` and the README options table (`npm run docs:options`).
  */
 import { QUANTITIES } from '../quantity.js';
+import { DEFAULT_PERCENTILES_PCT } from '../batch/options.js';
 
 export type CommandName = 'analyze' | 'inspect' | 'limits';
 
@@ -30,7 +31,7 @@ export const OPTIONS: OptionSpec[] = [
     description: 'Folder for results.json, summary.csv, build-stats.csv, the PDFs and viewer.html (created if missing).' },
   { name: 'percentiles', value: 'list', commands: ['analyze'],
     description: 'CDF percentile levels in %, comma separated, added to those the limit set needs.',
-    defaultText: '0,5,10,20,50,60,80,85,90,95,100' },
+    defaultText: DEFAULT_PERCENTILES_PCT.join(',') },
   { name: 'coverage-thresholds', value: 'list', commands: ['analyze'],
     description: 'Absolute thresholds for coverage efficiency in the value\'s unit (dBm, dBi); may be negative.',
     defaultText: 'those of the limit set' },

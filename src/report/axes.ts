@@ -1,12 +1,9 @@
 import { fmt, niceRange, stepDigits } from './format.js';
 import { INK, MUTED, type Doc } from './pdfDoc.js';
+import type { PageBox } from './pageBox.js';
 
 /** A plot frame mapping data to page coordinates. */
-export interface Axes {
-  x: number;
-  y: number;
-  w: number;
-  h: number;
+export interface Axes extends PageBox {
   xMin: number;
   xMax: number;
   yMin: number;

@@ -1,16 +1,12 @@
 import type { Rgb } from './colorMap.js';
+import type { PageBox } from './pageBox.js';
 import { fmt, stepDigits } from './format.js';
 import { HAMMER_HALF_HEIGHT, HAMMER_HALF_WIDTH, hammerForward, hammerForwardLonLat } from './hammerProjection.js';
 import { HATCH_PERIOD_PX } from './paintMap.js';
 import { INK, MUTED, type Doc } from './pdfDoc.js';
 
 /** Page rectangle holding the map ellipse (width = 2·height). */
-export interface MapBox {
-  x: number;
-  y: number;
-  w: number;
-  h: number;
-}
+export type MapBox = PageBox;
 
 export function mapToPage(box: MapBox, mx: number, my: number): [number, number] {
   return [box.x + ((mx + HAMMER_HALF_WIDTH) / (2 * HAMMER_HALF_WIDTH)) * box.w, box.y + ((HAMMER_HALF_HEIGHT - my) / (2 * HAMMER_HALF_HEIGHT)) * box.h];

@@ -1,16 +1,11 @@
 import type { PercentileValue, Quantity, CoveragePoint } from '../types.js';
 import { clipTo, drawAxes, px, py, type Axes } from './axes.js';
+import type { PageBox } from './pageBox.js';
 import type { CdfCurve } from './cdfCurve.js';
 import { fmt, niceRange, quantityLabel } from './format.js';
 import { INK, MUTED, type Doc } from './pdfDoc.js';
 import { atOrBetterText, isLowerBetter, worsenedBy } from '../quantity.js';
 
-export interface Box {
-  x: number;
-  y: number;
-  w: number;
-  h: number;
-}
 
 /** A limit drawn on the CDF: a vertical line at `value`, and a marker at its level when it has one. */
 export interface LimitMark {
@@ -55,7 +50,7 @@ export function cdfAxisTitle(q: Quantity): string {
  */
 export function drawCdfPlot(
   doc: Doc,
-  box: Box,
+  box: PageBox,
   q: Quantity,
   unit: string,
   curves: CurveStyle[],
@@ -147,7 +142,7 @@ export function drawCdfPlot(
  * Coverage efficiency versus absolute threshold (bottom axis) and dB from the TSP peak (top axis).
  * Markers at the requested thresholds.
  */
-export function drawCoveragePlot(doc: Doc, box: Box, q: Quantity, unit: string, curve: CoveragePoint[], peak: number, marks: CoveragePoint[]): void {
+export function drawCoveragePlot(doc: Doc, box: PageBox, q: Quantity, unit: string, curve: CoveragePoint[], peak: number, marks: CoveragePoint[]): void {
   // x range: where the curve changes (0.1 % … 99.9 %), one point beyond, plus the marks.
   let first = curve.findIndex((c) => c.efficiency > 0.001 && c.efficiency < 0.999);
   let last = curve.length - 1 - [...curve].reverse().findIndex((c) => c.efficiency > 0.001 && c.efficiency < 0.999);
