@@ -12,9 +12,6 @@ import { pointingDrift } from '../analysis/pointingDrift.js';
 /** A beam whose peak direction moves more than this across the measured band is flagged (our default). */
 export const MAX_POINTING_DRIFT_DEG = 5;
 
-/** The metrics part of a unit result, in the shape the analysis functions take (owned by the metric catalogue). */
-export const metricsOf = metricsOfUnit;
-
 /**
  * reference: every unit gets `reference = { unit, deltas }` against the reference unit at the
  * same frequency (null when the reference has no measurement there, or for the reference
@@ -33,7 +30,7 @@ export function crossUnitExtras(units: UnitResult[], reference: string | undefin
     if (refs.length === 0) problem = `--reference: unit '${reference}' is not among the analyzed units`;
     for (const u of units) {
       const ref = refs.find((r) => r.frequencyHz === u.frequencyHz && r.quantity === u.quantity);
-      u.reference = ref && ref !== u ? { unit: reference, deltas: referenceDeltas(metricsOf(u), metricsOf(ref)) } : null;
+      u.reference = ref && ref !== u ? { unit: reference, deltas: referenceDeltas(metricsOfUnit(u), metricsOfUnit(ref)) } : null;
     }
   }
   const byUnit = new Map<string, UnitResult[]>();
@@ -42,7 +39,7 @@ export function crossUnitExtras(units: UnitResult[], reference: string | undefin
   for (const list of byUnit.values()) {
     const withF = list.filter((u): u is UnitResult & { frequencyHz: number } => u.frequencyHz !== null);
     if (withF.length < 2) continue;
-    const trend = frequencyTrend(withF.map((u) => ({ frequencyHz: u.frequencyHz, metrics: metricsOf(u) })));
+    const trend = frequencyTrend(withF.map((u) => ({ frequencyHz: u.frequencyHz, metrics: metricsOfUnit(u) })));
     const drift = pointingDrift(withF.map((u) => ({ frequencyHz: u.frequencyHz, beams: u.beams })), MAX_POINTING_DRIFT_DEG)
       .map(({ beam, driftDeg, flagged, betweenHz }) => ({ beam, driftDeg, flagged, betweenHz }));
     for (const u of list) {

@@ -19,6 +19,7 @@ import { computeMetrics } from '../coverage/computeMetrics.js';
 import { combinedSensitivityArrays } from '../coverage/combinedSensitivity.js';
 import { createMeasurement } from '../measurement.js';
 import { summarizeChecks } from '../limits/judge.js';
+import { componentResultMetrics, metricsOfUnit } from '../metrics/catalogue.js';
 
 /** How an EIS θ/φ pair is judged: each polarization on its own (default) or the combined-sensitivity view. */
 export type EisPolarizationView = 'each' | 'combined';
@@ -119,8 +120,7 @@ export function componentSummary(c: Measurement, settings: MetricSettings): { su
   const { metrics, tsp } = computeMetrics(c, settings);
   return { tsp: { name: c.polarization as Polarization, values: tsp.values, weightSr: c.grid.weightSr }, summary: {
     name: c.polarization as Polarization,
-    tsp: { peak: metrics.peak, percentiles: metrics.percentiles, coverage: metrics.coverage, relativeCoverage: metrics.relativeCoverage },
-    beams: metrics.beams.map((b) => ({ id: b.id, peak: b.peak, bestShare: b.bestShare })),
+    ...componentResultMetrics(metrics),
     checks: [],
     verdict: null,
   } };
@@ -180,8 +180,7 @@ export function mergeEachPolarization(each: MeasuredUnit[]): MeasuredUnit {
     warnings,
     polarizations: each.map((u) => ({
       name: polOf(u),
-      tsp: { peak: u.result.tsp.peak, percentiles: u.result.tsp.percentiles, coverage: u.result.tsp.coverage, relativeCoverage: u.result.tsp.relativeCoverage },
-      beams: u.result.beams.map((b) => ({ id: b.id, peak: b.peak, bestShare: b.bestShare })),
+      ...componentResultMetrics(metricsOfUnit(u.result)),
       checks: u.result.checks,
       verdict: u.result.verdict,
     })),

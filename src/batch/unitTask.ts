@@ -16,7 +16,8 @@ import { beamRemoval } from '../analysis/beamRemoval.js';
 import { greedySubset } from '../analysis/greedySubset.js';
 import { referenceDeltas } from '../analysis/referenceDeltas.js';
 import { tspDifference } from '../analysis/tspDifference.js';
-import { crossUnitExtras, metricsOf } from './crossUnit.js';
+import { crossUnitExtras } from './crossUnit.js';
+import { metricsOfUnit, unitResultMetrics } from '../metrics/catalogue.js';
 import type { CdfCurve } from '../report/cdfCurve.js';
 import type { MapThumbnail, ReportSettings } from '../report/reportTypes.js';
 import { gridSummary } from '../sphere/gridSummary.js';
@@ -160,15 +161,7 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     frequencyHz: m.frequencyHz,
     quantity: m.quantity,
     valueUnit: m.valueUnit,
-    solidAngleSr: metrics.solidAngleSr,
-    beams: metrics.beams.map((b, i) => ({ ...b, removal: removal[i], neverBest: b.bestShare === 0 })),
-    tsp: {
-      peak: metrics.peak,
-      percentiles: metrics.percentiles,
-      coverage: metrics.coverage,
-      relativeCoverage: metrics.relativeCoverage,
-      curve: metrics.curve,
-    },
+    ...unitResultMetrics(metrics, removal),
     checks: judged.checks,
     verdict: judged.verdict,
     worstCheck: judged.worstCheck,
@@ -289,7 +282,7 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     const ref = self ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
     let delta: Float64Array | undefined;
     if (ref && input.reference !== undefined && ref.result.quantity === result.quantity) {
-      result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOf(result), metricsOf(ref.result)) };
+      result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOfUnit(result), metricsOfUnit(ref.result)) };
       delta = tspDifference(m.grid, tsp, ref.grid, ref.tsp);
     }
     const out = await renderUnit(m, result, tsp, input, delta, componentTsps, jointMaps.get(mu));

@@ -12,10 +12,13 @@
  * three, `coverage@8` in rows and statistics but `coverage_at_8` in summary.csv, `trpMaxDbm` in
  * rows but `maxTrp` in statistics).
  *
+ * results.json's metric fields of a unit (and of a polarization component) are written here too
+ * (unitResultMetrics, componentResultMetrics), and read back by metricsOfUnit.
+ *
  * Adding a metric: one entry in FAMILIES below (and, when it needs a new computed value, the
  * field in CoverageMetrics that computeMetrics fills). See DEVELOPERS.md "How to add a metric".
  */
-import type { CoverageMetrics, Quantity, UnitResult } from '../types.js';
+import type { BeamRemoval, CoverageMetrics, PolarizationResult, Quantity, UnitResult } from '../types.js';
 import { worstOf } from '../quantity.js';
 
 /** What a metric's number is. 'value': the quantity's unit (dBm or dBi); 'fraction': of 4π. */
@@ -203,9 +206,35 @@ export function coverageMetricValues(m: CoverageMetrics, quantity: Quantity): Me
   return out;
 }
 
-/** The metrics part of a unit result, in the shape the analysis functions take. */
+/** The metrics part of a unit result, in the shape the analysis functions take (the inverse of unitResultMetrics). */
 export function metricsOfUnit(u: UnitResult): CoverageMetrics {
   return { ...u.tsp, solidAngleSr: u.solidAngleSr, beams: u.beams };
+}
+
+/**
+ * The metric fields of a unit result (results.json `solidAngleSr`, `beams`, `tsp`) from the unit's
+ * coverage metrics, in the published order; metricsOfUnit reads them back. Each beam carries its
+ * removal cost (the per-unit analysis; absent with --core-only) and whether it is never the best
+ * beam anywhere (bestShare 0).
+ */
+export function unitResultMetrics(m: CoverageMetrics, removal: readonly (BeamRemoval | undefined)[] = []): Pick<UnitResult, 'solidAngleSr' | 'beams' | 'tsp'> {
+  return {
+    solidAngleSr: m.solidAngleSr,
+    beams: m.beams.map((b, i) => ({ ...b, removal: removal[i], neverBest: b.bestShare === 0 })),
+    tsp: { peak: m.peak, percentiles: m.percentiles, coverage: m.coverage, relativeCoverage: m.relativeCoverage, curve: m.curve },
+  };
+}
+
+/**
+ * The metric fields of one θ or φ component of a polarization pair (results.json
+ * `polarizations[].tsp` and `.beams`): the summary values without the coverage curve, and per
+ * beam its id, peak and best share.
+ */
+export function componentResultMetrics(m: Pick<CoverageMetrics, 'peak' | 'percentiles' | 'coverage' | 'relativeCoverage' | 'beams'>): Pick<PolarizationResult, 'tsp' | 'beams'> {
+  return {
+    tsp: { peak: m.peak, percentiles: m.percentiles, coverage: m.coverage, relativeCoverage: m.relativeCoverage },
+    beams: m.beams.map((b) => ({ id: b.id, peak: b.peak, bestShare: b.bestShare })),
+  };
 }
 
 /** The check metrics (one per check, its value) and the worst margin of a judged unit. */

@@ -2,10 +2,10 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
-  coverageMetricValues, csvColumn, formatMetric, metricLabel, metricRow, peakBeamIndex, rowKey, rowMetrics, statsKey,
-  type MetricInstance,
+  componentResultMetrics, coverageMetricValues, csvColumn, formatMetric, metricLabel, metricRow, metricsOfUnit, peakBeamIndex, rowKey,
+  rowMetrics, statsKey, unitResultMetrics, type MetricInstance,
 } from '../../src/metrics/catalogue.js';
-import type { CoverageMetrics } from '../../src/types.js';
+import type { CoverageMetrics, UnitResult } from '../../src/types.js';
 
 const beam = (id: string, value: number, trpDbm: number | null) => ({ id, peak: { value, thetaDeg: 90, phiDeg: 0 }, trpDbm, bestShare: 0.5 });
 const metrics: CoverageMetrics = {
@@ -51,6 +51,25 @@ describe('metric catalogue', () => {
     expect(formatMetric({ family: 'peak' }, -0.001, 'delta')).toBe('0.00 dB');
     expect(formatMetric({ family: 'check', param: 'c', unit: 'fraction' }, 0.55)).toBe('55.0 %');
     expect(formatMetric({ family: 'peak' }, null)).toBe('—');
+  });
+
+  it('writes a unit result\'s metric fields in the published order, and reads them back unchanged', () => {
+    const removal = [{ percentileLossDb: 0.5, coverageLoss: 0.01 }, undefined, undefined];
+    const fields = unitResultMetrics(metrics, removal);
+    // Key order is what results.json prints (CONTRACT.md; test/golden holds it byte for byte).
+    expect(Object.keys(fields)).toEqual(['solidAngleSr', 'beams', 'tsp']);
+    expect(Object.keys(fields.tsp)).toEqual(['peak', 'percentiles', 'coverage', 'relativeCoverage', 'curve']);
+    expect(Object.keys(fields.beams[0])).toEqual(['id', 'peak', 'trpDbm', 'bestShare', 'removal', 'neverBest']);
+    expect(fields.beams.map((b) => b.neverBest)).toEqual([false, false, false]);
+    expect(unitResultMetrics({ ...metrics, beams: [{ ...metrics.beams[0], bestShare: 0 }] }).beams[0].neverBest).toBe(true);
+    const back = metricsOfUnit({ ...fields } as UnitResult);
+    expect({ ...back, beams: back.beams.map(({ id, peak, trpDbm, bestShare }) => ({ id, peak, trpDbm, bestShare })) }).toEqual(metrics);
+  });
+
+  it('writes a polarization component without the curve, beams by id, peak and best share', () => {
+    const c = componentResultMetrics(metrics);
+    expect(Object.keys(c.tsp)).toEqual(['peak', 'percentiles', 'coverage', 'relativeCoverage']);
+    expect(c.beams[1]).toEqual({ id: 'b', peak: { value: 22, thetaDeg: 90, phiDeg: 0 }, bestShare: 0.5 });
   });
 
   it('no source file outside the catalogue spells a metric key or decodes one', () => {
