@@ -28,7 +28,7 @@ import { assessConfidence } from '../analysis/uncertainty/assessConfidence.js';
 import { gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
 import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js';
 import { applyJointChecks, type JointMaps } from './jointChecks.js';
-import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView } from './polarizationUnits.js';
+import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView, type MeasuredUnit } from './polarizationUnits.js';
 import type { ViewerUnit } from '../viewer/viewerData.js';
 import { analysisThreshold, impliedChoices } from '../limits/impliedChoices.js';
 
@@ -116,6 +116,17 @@ export function analysisLevel(ls: LimitSet | null): number {
 /** What measureUnit reads of a task: the metrics asked for, the limit set, and whether to skip the optional analysis. */
 export type MeasureOptions = Pick<TaskInput, 'percentilesPct' | 'thresholds' | 'relativeDb' | 'limitSet' | 'coreOnly' | 'uncertainty'>;
 
+/** A limit set made for another frequency range or another quantity than the measurement: said in words. */
+function limitSetMismatch(ls: LimitSet | null, m: Measurement): string[] {
+  if (!ls) return [];
+  const out: string[] = [];
+  if (frequencyInRange(ls, m.frequencyHz) === false) {
+    out.push(`limit set '${ls.name}' is for ${ls.frequencyRangeMHz?.join('–')} MHz but this measurement is at ${(m.frequencyHz as number) / 1e6} MHz`);
+  }
+  if (ls.quantity !== m.quantity) out.push(`limit set '${ls.name}' is for ${ls.quantity} but the measurement is ${m.quantity}`);
+  return out;
+}
+
 /** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis. */
 export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {
   const { tsp, metrics } = computeMetrics(m, {
@@ -141,12 +152,7 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     confidence = assessed.confidence;
     warnings.push(...gridCountWarnings(grid.points, grid.kind, m.quantity, input.uncertainty?.powerClass).map(warningText));
   }
-  if (ls && frequencyInRange(ls, m.frequencyHz) === false) {
-    warnings.push(`limit set '${ls.name}' is for ${ls.frequencyRangeMHz?.join('–')} MHz but this measurement is at ${(m.frequencyHz as number) / 1e6} MHz`);
-  }
-  if (ls && ls.quantity !== m.quantity) {
-    warnings.push(`limit set '${ls.name}' is for ${ls.quantity} but the measurement is ${m.quantity}`);
-  }
+  warnings.push(...limitSetMismatch(ls, m));
   const beamValues = m.beams.map((b) => b.values);
   const beamIds = m.beams.map((b) => b.id);
   const level = analysisLevel(ls);
@@ -214,22 +220,29 @@ export async function renderUnit(
   };
 }
 
-/**
- * Read, assemble and analyze every measurement of one group of files.
- * A file with errors fails its unit only: units named in its rows are not analyzed (a unit
- * judged on the beams that happened to be readable would look worse or better than it is); a
- * file that gave no rows at all fails the whole group (its unit is unknown, and the group is
- * a unit folder or one file stem).
- */
-export async function runTask(input: TaskInput): Promise<TaskOutput> {
-  const beams: RawBeam[] = [];
-  const sources: SourceFile[] = [];
-  const errors: InputError[] = [];
-  const fileWarnings = new Map<string, Warning[]>();
-  const failedUnits = new Set<string>();
+/** What reading a group's files gave. */
+interface GroupRead {
+  /** Beams of the units that every file read cleanly (none when a file gave no rows at all). */
+  usable: RawBeam[];
+  sources: SourceFile[];
+  errors: InputError[];
+  fileWarnings: Map<string, Warning[]>;
   /** Every unit named by any row of this group (readable or not), with its files. */
-  const seen = new Map<string, Set<string>>();
-  const spellings = new Map<string, Set<string>>();
+  seen: Map<string, Set<string>>;
+  /** Each unit's name (NFC) → its spellings as written. */
+  spellings: Map<string, Set<string>>;
+}
+
+/**
+ * Read every file of a group. A file with errors fails its unit only: units named in its rows are
+ * not analyzed (a unit judged on the beams that happened to be readable would look worse or
+ * better than it is); a file that gave no rows at all fails the whole group (its unit is unknown,
+ * and the group is a unit folder or one file stem).
+ */
+async function readGroup(input: TaskInput): Promise<GroupRead> {
+  const read: GroupRead = { usable: [], sources: [], errors: [], fileWarnings: new Map(), seen: new Map(), spellings: new Map() };
+  const beams: RawBeam[] = [];
+  const failedUnits = new Set<string>();
   let groupFailed = false;
   const ctx = { inputRoot: input.inputRoot, job: input.job ?? undefined, quantityOverride: input.quantityOverride };
   for (const f of input.files) {
@@ -239,14 +252,14 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     // kept for results.json (unitAsWritten).
     for (const b of r.beams) {
       const unit = b.unit.normalize('NFC');
-      spellings.set(unit, (spellings.get(unit) ?? new Set()).add(b.unit));
+      read.spellings.set(unit, (read.spellings.get(unit) ?? new Set()).add(b.unit));
       b.unit = unit;
       b.beam = b.beam.normalize('NFC');
     }
-    sources.push({ path: r.file, sha256: r.sha256 });
-    errors.push(...r.errors);
-    fileWarnings.set(r.file, r.warnings);
-    for (const b of r.beams) seen.set(b.unit, (seen.get(b.unit) ?? new Set()).add(r.file));
+    read.sources.push({ path: r.file, sha256: r.sha256 });
+    read.errors.push(...r.errors);
+    read.fileWarnings.set(r.file, r.warnings);
+    for (const b of r.beams) read.seen.set(b.unit, (read.seen.get(b.unit) ?? new Set()).add(r.file));
     if (r.errors.length > 0) {
       if (r.beams.length === 0) groupFailed = true;
       for (const b of r.beams) failedUnits.add(b.unit);
@@ -254,49 +267,65 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
     }
     beams.push(...r.beams);
   }
-  const usable = groupFailed ? [] : beams.filter((b) => !failedUnits.has(b.unit));
-  const assembled = assembleMeasurements(usable, sources, { consumeRaw: true, mergeRule: input.job?.mergeRule });
+  read.usable = groupFailed ? [] : beams.filter((b) => !failedUnits.has(b.unit));
+  return read;
+}
+
+/** A measurement with the warnings of its own files added (each once). */
+function withFileWarnings(m: Measurement, read: GroupRead): Measurement {
+  const own = new Set(read.usable.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz).map((b) => b.file));
+  const extra = [...own].sort().flatMap((f) => read.fileWarnings.get(f) ?? []);
+  const known = new Set(m.warnings.map(warningText));
+  return { ...m, warnings: collapseWarnings([...m.warnings, ...extra.filter((w) => !known.has(warningText(w)))]) };
+}
+
+/**
+ * The outputs of one measured unit: its spellings as written, its deltas and difference map
+ * against the reference at its frequency, its PDF and its viewer data.
+ */
+async function unitOutput(mu: MeasuredUnit, input: TaskInput, read: GroupRead, jointMaps: JointMaps | undefined): Promise<UnitOutput> {
+  const { m, result, tsp, componentTsps } = mu;
+  const written = [...(read.spellings.get(result.unit) ?? [])].sort();
+  if (written.some((w) => w !== result.unit)) result.unitAsWritten = written;
+  const self = m.unit === input.reference && !input.referenceExternal;
+  const ref = self ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
+  let delta: Float64Array | undefined;
+  if (ref && input.reference !== undefined && ref.result.quantity === result.quantity) {
+    result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOfUnit(result), metricsOfUnit(ref.result)) };
+    delta = tspDifference(m.grid, tsp, ref.grid, ref.tsp);
+  }
+  const out = await renderUnit(m, result, tsp, input, delta, componentTsps, jointMaps);
+  if (input.viewer) {
+    const { packViewerUnit } = await import('../report/viewerPack.js');
+    out.viewer = packViewerUnit(m, result, `${m.unit}@${m.frequencyHz ?? '-'}`);
+  }
+  return out;
+}
+
+/** Read, assemble and analyze every measurement of one group of files (readGroup says which units fail). */
+export async function runTask(input: TaskInput): Promise<TaskOutput> {
+  const read = await readGroup(input);
+  const { usable, errors } = read;
+  const assembled = assembleMeasurements(usable, read.sources, { consumeRaw: true, mergeRule: input.job?.mergeRule });
   errors.push(...assembled.errors);
-  const withFileWarnings = (m: Measurement): Measurement => {
-    const own = new Set(usable.filter((b) => b.unit === m.unit && b.frequencyHz === m.frequencyHz).map((b) => b.file));
-    const extra = [...own].sort().flatMap((f) => fileWarnings.get(f) ?? []);
-    const known = new Set(m.warnings.map(warningText));
-    return { ...m, warnings: collapseWarnings([...m.warnings, ...extra.filter((w) => !known.has(warningText(w)))]) };
-  };
   // θ/φ pairs: the total (EIRP) or each polarization (EIS) carries the verdict.
   const planned = planPolarizations(assembled.measurements, input.eisPolarizations ?? 'each');
   errors.push(...planned.errors);
+  const own = (m: Measurement): Measurement => withFileWarnings(m, read);
   const measured = planned.plans.map((p) => measurePlan(
-    { ...p, main: withFileWarnings(p.main), components: p.rule === 'each' ? p.components.map(withFileWarnings) : p.components },
+    { ...p, main: own(p.main), components: p.rule === 'each' ? p.components.map(own) : p.components },
     input, (m) => measureUnit(m, input)));
   // Extras across this group's own frequencies and against the reference, before the PDFs are drawn.
   // Checks joining two measurements of a unit (transmit + receive, two bands) once all are measured.
   const jointMaps = applyJointChecks(measured, input.limitSet);
   crossUnitExtras(measured.map((u) => u.result), undefined);
   const units: UnitOutput[] = [];
-  for (const mu of measured) {
-    const { m, result, tsp, componentTsps } = mu;
-    const written = [...(spellings.get(result.unit) ?? [])].sort();
-    if (written.some((w) => w !== result.unit)) result.unitAsWritten = written;
-    const self = m.unit === input.reference && !input.referenceExternal;
-    const ref = self ? undefined : input.referencePatterns?.find((p) => p.frequencyHz === m.frequencyHz);
-    let delta: Float64Array | undefined;
-    if (ref && input.reference !== undefined && ref.result.quantity === result.quantity) {
-      result.reference = { unit: input.reference, deltas: referenceDeltas(metricsOfUnit(result), metricsOfUnit(ref.result)) };
-      delta = tspDifference(m.grid, tsp, ref.grid, ref.tsp);
-    }
-    const out = await renderUnit(m, result, tsp, input, delta, componentTsps, jointMaps.get(mu));
-    if (input.viewer) {
-      const { packViewerUnit } = await import('../report/viewerPack.js');
-      out.viewer = packViewerUnit(m, result, `${m.unit}@${m.frequencyHz ?? '-'}`);
-    }
-    units.push(out);
-  }
+  for (const mu of measured) units.push(await unitOutput(mu, input, read, jointMaps.get(mu)));
   const referencePatterns = input.exportReference
     ? measured.filter((u) => input.exportAll || u.m.unit === input.reference).map((u) => ({ frequencyHz: u.m.frequencyHz, grid: u.m.grid, tsp: u.tsp, result: u.result }))
     : undefined;
-  const leftover = [...fileWarnings.entries()].filter(([f]) => !usable.some((b) => b.file === f)).flatMap(([, w]) => w);
-  const notAnalyzed = unitsNotAnalyzed(input.key, sources.map((s) => s.path), seen, usable, measured.map((u) => u.m), errors);
+  const leftover = [...read.fileWarnings.entries()].filter(([f]) => !usable.some((b) => b.file === f)).flatMap(([, w]) => w);
+  const notAnalyzed = unitsNotAnalyzed(input.key, read.sources.map((s) => s.path), read.seen, usable, measured.map((u) => u.m), errors);
   return { key: input.key, units, notAnalyzed, errors, warnings: [...leftover, ...assembled.warnings], referencePatterns };
 }
 
