@@ -27,9 +27,10 @@ import { outputDirProblem } from './outputDir.js';
 import { checkReference } from './referenceCheck.js';
 import type { TaskInput } from './unitTask.js';
 import { TOOL_VERSION } from './version.js';
-import pngjs from 'pngjs';
+import { lazyPackage } from '../lazyPackage.js';
 
-const { PNG } = pngjs;
+/** pngjs checks a report logo only (src/lazyPackage.ts). */
+const pngjs = lazyPackage<typeof import('pngjs')>('pngjs');
 
 /** What the run compares against: a unit of the build, a golden unit's own folder, or nothing. */
 export interface ReferencePlan {
@@ -225,7 +226,7 @@ function logoDataUrl(ref: string, baseDir: string): string {
     // Decoded once here: a damaged PNG would otherwise fail inside the PDF writer's inflate,
     // asynchronously, where no report can catch it.
     try {
-      PNG.sync.read(bytes);
+      pngjs().PNG.sync.read(bytes);
     } catch (e) {
       throw new RunError(`the job file's report.logo: '${clipText(ref)}' is a damaged PNG image (${clipText((e as Error).message)})`);
     }

@@ -6,8 +6,11 @@
  * look-around like `(?=…)` / `(?<=…)`); such a pattern is a job-file error with its key path.
  * The syntax is otherwise the familiar one (classes, groups, `\d`, `\s`, anchors, `(?i)`).
  */
-import { RE2JS } from 're2js';
+import type { RE2JS } from 're2js';
+import { lazyPackage } from '../lazyPackage.js';
 
+/** re2js loads with the first job file that names a pattern (src/lazyPackage.ts). */
+const re2js = lazyPackage<typeof import('re2js')>('re2js');
 const compiled = new Map<string, RE2JS>();
 
 /**
@@ -26,7 +29,7 @@ export function identityPatternProblem(pattern: string): string | null {
 function compile(pattern: string): RE2JS {
   let re = compiled.get(pattern);
   if (!re) {
-    re = RE2JS.compile(pattern);
+    re = re2js().RE2JS.compile(pattern);
     compiled.set(pattern, re);
   }
   return re;

@@ -1,4 +1,8 @@
 import type { Document } from 'yaml';
+import { lazyPackage } from '../lazyPackage.js';
+
+/** The YAML parser, loaded when a job file, limit set or report settings are read (src/lazyPackage.ts). */
+export const yamlPackage = lazyPackage<typeof import('yaml')>('yaml');
 
 /**
  * Largest number of alias expansions accepted in a job or limit file. Real files use a few

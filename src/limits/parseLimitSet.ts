@@ -1,6 +1,5 @@
-import { LineCounter, parseDocument, isMap, isNode, isScalar } from 'yaml';
 import type { InputError } from '../types.js';
-import { yamlToJs } from '../io/yamlToJs.js';
+import { yamlPackage, yamlToJs } from '../io/yamlToJs.js';
 import type { LimitSet } from './limitSet.js';
 import { validateLimitSet, type KeyPath } from './validateLimitSet.js';
 
@@ -13,6 +12,7 @@ import { validateLimitSet, type KeyPath } from './validateLimitSet.js';
  * @example parseLimitSetText('name: x\nquantity: eirp\nchecks: []\n', 'x.yaml').limitSet?.name // 'x'
  */
 export function parseLimitSetText(text: string, file: string): { limitSet: LimitSet | null; errors: InputError[] } {
+  const { LineCounter, parseDocument, isMap, isNode, isScalar } = yamlPackage();
   const lineCounter = new LineCounter();
   const doc = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true });
   if (doc.errors.length > 0) {

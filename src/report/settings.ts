@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { parse } from 'yaml';
+import { yamlPackage } from '../io/yamlToJs.js';
 import { clipText } from '../io/inputError.js';
 import type { ReportSections, ReportSettings } from './reportTypes.js';
 
@@ -38,7 +38,7 @@ function checkSettings(s: ReportSettings): ReportSettings {
  * @throws ReportSettingsError when a value has the wrong type or an unknown choice.
  */
 export function loadReportSettings(overrides: ReportSettingsOverrides = {}): ReportSettings {
-  const base = parse(readFileSync(DEFAULT_PATH, 'utf8')) as ReportSettings;
+  const base = yamlPackage().parse(readFileSync(DEFAULT_PATH, 'utf8')) as ReportSettings;
   const known = new Set(Object.keys(base));
   for (const k of Object.keys(overrides)) if (!known.has(k)) fail(k, k, `one of ${[...known].join(', ')}`);
   const creation = overrides.creationDate ?? base.creationDate;

@@ -1,7 +1,6 @@
 import type { RegularLayout, SphereGrid } from '../types.js';
 import { seamGap } from './regularLayout.js';
-// @ts-ignore -- d3-geo-voronoi ships no type declarations; the one call used is typed below.
-import { geoDelaunay as untypedGeoDelaunay } from 'd3-geo-voronoi';
+import { geoDelaunay } from './geoDelaunay.js';
 
 /** Adjacency of the grid points in compressed sparse row form. */
 export interface GridAdjacency {
@@ -10,8 +9,6 @@ export interface GridAdjacency {
   /** Neighbour indices, ascending within each point's slice; the relation is symmetric. */
   neighbors: Int32Array;
 }
-
-const geoDelaunay = untypedGeoDelaunay as (points: [number, number][]) => { edges: [number, number][] };
 
 /**
  * Which grid points touch which: the neighbour graph used to grow connected regions

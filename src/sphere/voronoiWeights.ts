@@ -1,15 +1,8 @@
-// @ts-ignore -- d3-geo-voronoi ships no type declarations; the one call used is typed below.
-import { geoDelaunay as untypedGeoDelaunay } from 'd3-geo-voronoi';
 import type { UnmeasuredRegion } from '../types.js';
 import { clippedCellArea } from './clippedCellArea.js';
 import { regionExtent, type RegionCap } from './regionExtent.js';
 import { gapTriangles } from './unmeasuredRule.js';
-
-const geoDelaunay = untypedGeoDelaunay as (points: [number, number][]) => {
-  triangles: [number, number, number][];
-  centers: [number, number][];
-  polygons: (number[] | undefined)[];
-};
+import { geoDelaunay } from './geoDelaunay.js';
 
 const RAD = Math.PI / 180;
 

@@ -8,6 +8,13 @@ import { computeMetrics } from '../coverage/computeMetrics.js';
 import { judge } from '../limits/judge.js';
 import { findHoles } from '../analysis/findHoles.js';
 import { gridSummary } from '../sphere/gridSummary.js';
+import { d3GeoVoronoi } from '../sphere/geoDelaunay.js';
+// @ts-ignore -- d3-geo-voronoi ships no type declarations (typed in sphere/geoDelaunay.ts).
+import * as geoVoronoiPackage from 'd3-geo-voronoi';
+
+// The page has no `require`: the hole search on a scattered grid gets the triangulation from
+// the bundle (src/lazyPackage.ts).
+d3GeoVoronoi.provide(geoVoronoiPackage as Parameters<typeof d3GeoVoronoi.provide>[0]);
 
 export interface Computed {
   /** Indices (into the measurement's beams) of the enabled beams, ascending. */

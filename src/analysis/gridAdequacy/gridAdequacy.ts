@@ -62,6 +62,13 @@ export function gridAdequacy(grid: SphereGrid, tspValues: Float64Array, quantity
   };
 }
 
+/** values[index[j]] for each j (a plain loop: Float64Array.from with a mapping function is several times slower). */
+function pick(values: Float64Array, index: Int32Array): Float64Array {
+  const out = new Float64Array(index.length);
+  for (let j = 0; j < index.length; j++) out[j] = values[index[j]];
+  return out;
+}
+
 function pointsSaved(grid: SphereGrid, f: number): number {
   const reg = grid.regular;
   const rows = reg?.thetaRowsDeg;
