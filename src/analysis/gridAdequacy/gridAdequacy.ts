@@ -33,7 +33,7 @@ export function gridAdequacy(grid: SphereGrid, tspValues: Float64Array, quantity
   thresholds: number[], cal = GRID_ADEQUACY_CALIBRATION): GridAdequacy {
   const subs = subGrids(grid);
   const full = weightedCdf(tspValues, grid.weightSr);
-  const cdfs = subs.map((s) => weightedCdf(Float64Array.from(s.parentIndex, (i) => tspValues[i]), s.grid.weightSr));
+  const cdfs = subs.map((s) => weightedCdf(pick(tspValues, s.parentIndex), s.grid.weightSr));
   const spread = (read: (c: ReturnType<typeof weightedCdf>) => number | null): number | null => {
     const v = read(full);
     if (v === null) return null;
