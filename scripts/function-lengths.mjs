@@ -6,9 +6,9 @@
  * inside their parent too). test/structure/functionLength.test.ts holds src/batch (and, once its
  * split lands, src/report) to a stated limit.
  *
- *   node scripts/function-lengths.mjs [--over N] [folder …]   (default: src/batch src/report)
+ *   node scripts/function-lengths.mjs [--over N] [folder|file …]   (default: src/batch src/report)
  */
-import { readdirSync, readFileSync } from 'node:fs';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import ts from 'typescript';
@@ -38,17 +38,19 @@ export function functionLengthsOfText(fileName, text) {
   return out;
 }
 
-/** Every function of every .ts file under the folders (recursive): { file, name, line, lines }, longest first. */
+/** Every function of every .ts file under the folders (recursive; a file path measures that file): { file, name, line, lines }, longest first. */
 export function functionLengths(folders, root = process.cwd()) {
   const out = [];
+  const measure = (p) => {
+    const file = path.relative(root, p).split(path.sep).join('/');
+    for (const f of functionLengthsOfText(file, readFileSync(p, 'utf8'))) out.push({ file, ...f });
+  };
   const walk = (dir) => {
+    if (statSync(dir).isFile()) return measure(dir);
     for (const e of readdirSync(dir, { withFileTypes: true })) {
       const p = path.join(dir, e.name);
       if (e.isDirectory()) walk(p);
-      else if (e.name.endsWith('.ts') && !e.name.endsWith('.d.ts')) {
-        const file = path.relative(root, p).split(path.sep).join('/');
-        for (const f of functionLengthsOfText(file, readFileSync(p, 'utf8'))) out.push({ file, ...f });
-      }
+      else if (e.name.endsWith('.ts') && !e.name.endsWith('.d.ts')) measure(p);
     }
   };
   for (const f of folders) walk(path.resolve(root, f));

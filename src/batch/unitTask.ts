@@ -3,7 +3,7 @@
  * assemble the measurements, compute and judge each one, run the per-unit analysis and render
  * the unit PDFs. Input and output are plain data (structured-clone safe).
  */
-import type { BeamRemoval, InputError, Measurement, Quantity, SourceFile, SphereGrid, TotalScanPattern, UnitNotAnalyzed, UnitResult, Warning } from '../types.js';
+import type { BeamRemoval, GridSummary, InputError, Measurement, Quantity, SourceFile, SphereGrid, TotalScanPattern, UnitNotAnalyzed, UnitResult, Warning } from '../types.js';
 import type { JobSpec, RawBeam } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { readExportFile } from '../io/readExportFile.js';
@@ -127,23 +127,21 @@ function limitSetMismatch(ls: LimitSet | null, m: Measurement): string[] {
   return out;
 }
 
-/** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis. */
-export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {
-  const { tsp, metrics } = computeMetrics(m, {
-    percentilesPct: input.percentilesPct,
-    thresholds: input.thresholds,
-    relativeDb: input.relativeDb,
-  });
-  const grid = gridSummary(m);
+/**
+ * The verdict of one measurement: its checks judged, how sure the verdict is (issue 17: only with
+ * an uncertainty for this quantity; else nothing changes) and its warnings as text (quality
+ * warnings join the measurement's typed warnings, which results.json and the PDF both read).
+ */
+function verdictOf(m: Measurement, computed: ReturnType<typeof computeMetrics>, grid: GridSummary, input: MeasureOptions):
+  { judged: ReturnType<typeof judge>; confidence: UnitResult['confidence']; warnings: string[] } {
+  const { tsp, metrics } = computed;
   const ls = input.limitSet;
-  let judged = ls
+  let judged: ReturnType<typeof judge> = ls
     ? judge(metrics, ls, { quantity: m.quantity, fullSphere: grid.fullSphere })
     : { checks: [], verdict: 'none' as const, worstCheck: null };
-  // Quality warnings join the measurement's typed warnings (results.json and the PDF read both).
   const known = new Set(m.warnings.map((w) => `${w.code}|${w.message}`));
   for (const w of qualityWarnings(m, metrics.beams)) if (!known.has(`${w.code}|${w.message}`)) m.warnings.push(w);
   const warnings = m.warnings.map(warningText);
-  // How sure the verdict is (issue 17): only with an uncertainty for this quantity; else nothing changes.
   const resolved = resolveUncertainty(input.uncertainty, m.quantity, m.grid.thetaDeg.length);
   let confidence: UnitResult['confidence'];
   if (resolved) {
@@ -153,6 +151,20 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     warnings.push(...gridCountWarnings(grid.points, grid.kind, m.quantity, input.uncertainty?.powerClass).map(warningText));
   }
   warnings.push(...limitSetMismatch(ls, m));
+  return { judged, confidence, warnings };
+}
+
+/** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis. */
+export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {
+  const computed = computeMetrics(m, {
+    percentilesPct: input.percentilesPct,
+    thresholds: input.thresholds,
+    relativeDb: input.relativeDb,
+  });
+  const { tsp, metrics } = computed;
+  const grid = gridSummary(m);
+  const ls = input.limitSet;
+  const { judged, confidence, warnings } = verdictOf(m, computed, grid, input);
   const beamValues = m.beams.map((b) => b.values);
   const beamIds = m.beams.map((b) => b.id);
   const level = analysisLevel(ls);
