@@ -26,11 +26,61 @@ export interface MergeConflicts {
   worst: MergeConflict[];
 }
 
+/** The samples of a build's merged points, grouped by point (ascending), file order within a group. */
+interface MergedGroups {
+  points: Int32Array;
+  /** Samples of points[g] are samples[start[g] .. start[g + 1]). */
+  start: Int32Array;
+  samples: Int32Array;
+}
+
+const groupsOf = new WeakMap<GridBuild, MergedGroups>();
+
+/**
+ * The points that hold two or more raw samples and their samples (one O(n) pass, cached per
+ * build: every beam of a measurement shares its build, so the scan of a 64-beam file's 65,160
+ * samples runs once instead of once per beam, and no per-beam grid-sized arrays are made).
+ */
+function mergedGroups(build: GridBuild): MergedGroups {
+  let g = groupsOf.get(build);
+  if (g !== undefined) return g;
+  const { pointOf } = build;
+  const m = build.grid.thetaDeg.length;
+  const count = new Int32Array(m);
+  for (let i = 0; i < pointOf.length; i++) count[pointOf[i]]++;
+  const slot = new Int32Array(m).fill(-1);
+  let groups = 0;
+  let total = 0;
+  for (let p = 0; p < m; p++) {
+    if (count[p] < 2) continue;
+    slot[p] = groups++;
+    total += count[p];
+  }
+  const points = new Int32Array(groups);
+  const start = new Int32Array(groups + 1);
+  for (let p = 0, k = 0; p < m; p++) {
+    if (slot[p] < 0) continue;
+    points[k] = p;
+    start[k + 1] = start[k] + count[p];
+    k++;
+  }
+  const fillAt = start.slice(0, groups);
+  const samples = new Int32Array(total);
+  for (let i = 0; i < pointOf.length; i++) {
+    const k = slot[pointOf[i]];
+    if (k >= 0) samples[fillAt[k]++] = i;
+  }
+  g = { points, start, samples };
+  groupsOf.set(build, g);
+  return g;
+}
+
 /**
  * Finds the grid points whose coincident raw samples (φ = 0/360 seam, pole rows, repeated
  * rows) spread by more than `limitDb` (max − min of the finite samples, Eq. 1). Every merge of
  * every beam is checked, whatever the row order. Returns nothing without coincident samples.
- * Cost O(n) and three Int32Arrays of the grid size when the build merged samples; O(1) else.
+ * Ties: the lowest (highest) sample is the first in file order among equal values.
+ * Cost O(n) once per build (the merged points' samples, cached), then O(merged samples) a beam.
  * @throws RangeError when rawValues does not have one value per raw sample.
  * @example mergeConflicts(build, Float64Array.of(0, 20 /* same direction *\/)).count // 1
  */
@@ -39,24 +89,24 @@ export function mergeConflicts(build: GridBuild, rawValues: Float64Array, limitD
   const n = rawValues.length;
   if (n !== pointOf.length) throw new RangeError(`mergeConflicts: ${n} values for ${pointOf.length} samples`);
   if (build.merged === 0) return { count: 0, worst: [] };
-  const m = build.grid.thetaDeg.length;
-  const lo = new Int32Array(m).fill(-1);
-  const hi = new Int32Array(m).fill(-1);
-  for (let i = 0; i < n; i++) {
-    const v = rawValues[i];
-    if (!Number.isFinite(v)) continue;
-    const p = pointOf[i];
-    if (lo[p] < 0 || v < rawValues[lo[p]]) lo[p] = i;
-    if (hi[p] < 0 || v > rawValues[hi[p]]) hi[p] = i;
-  }
+  const { points, start, samples } = mergedGroups(build);
   const found: MergeConflict[] = [];
   let count = 0;
-  for (let p = 0; p < m; p++) {
-    if (lo[p] < 0 || lo[p] === hi[p]) continue;
-    const a = rawValues[lo[p]], b = rawValues[hi[p]];
+  for (let k = 0; k < points.length; k++) {
+    let lo = -1;
+    let hi = -1;
+    for (let j = start[k]; j < start[k + 1]; j++) {
+      const i = samples[j];
+      const v = rawValues[i];
+      if (!Number.isFinite(v)) continue;
+      if (lo < 0 || v < rawValues[lo]) lo = i;
+      if (hi < 0 || v > rawValues[hi]) hi = i;
+    }
+    if (lo < 0 || lo === hi) continue;
+    const a = rawValues[lo], b = rawValues[hi];
     if (!(b - a > limitDb)) continue; // Eq. 1
     count++;
-    found.push({ point: p, low: lo[p], high: hi[p], lowDb: a, highDb: b });
+    found.push({ point: points[k], low: lo, high: hi, lowDb: a, highDb: b });
   }
   found.sort((x, y) => y.highDb - y.lowDb - (x.highDb - x.lowDb) || x.point - y.point);
   return { count, worst: found.slice(0, keep) };

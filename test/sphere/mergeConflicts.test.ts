@@ -72,3 +72,38 @@ describe('conflicting samples at one direction are never silent (issue 12)', () 
     fs.rmSync(dir, { recursive: true, force: true });
   });
 });
+
+describe('mergeConflicts on a shared build (issue 18: the merged points are found once per build)', () => {
+  it('equals a scan of every sample, for several beams of one build, ties and NaN included', async () => {
+    const { buildSphereGrid } = await import('../../src/sphere/buildGrid.js');
+    const { mergeConflicts } = await import('../../src/sphere/mergeConflicts.js');
+    // 15° grid written θ-major with φ = 360 columns and every pole sample; rows repeated out of order.
+    const t: number[] = [], p: number[] = [];
+    for (let th = 0; th <= 180; th += 15) for (let ph = 0; ph <= 360; ph += 15) { t.push(th); p.push(ph); }
+    for (const [th, ph] of [[45, 30], [90, 0], [45, 30]]) { t.push(th); p.push(ph); }
+    const build = buildSphereGrid(Float64Array.from(t), Float64Array.from(p));
+    // The oracle: the straightforward scan over all samples in file order (lowest/highest first seen wins).
+    const oracle = (v: Float64Array) => {
+      const lo = new Map<number, number>(), hi = new Map<number, number>();
+      v.forEach((x, i) => {
+        if (!Number.isFinite(x)) return;
+        const q = build.pointOf[i];
+        if (!lo.has(q) || x < v[lo.get(q)!]) lo.set(q, i);
+        if (!hi.has(q) || x > v[hi.get(q)!]) hi.set(q, i);
+      });
+      return [...lo.keys()].sort((a, b) => a - b)
+        .filter((q) => lo.get(q) !== hi.get(q) && v[hi.get(q)!] - v[lo.get(q)!] > 0.5)
+        .map((q) => ({ point: q, low: lo.get(q)!, high: hi.get(q)!, lowDb: v[lo.get(q)!], highDb: v[hi.get(q)!] }));
+    };
+    let seed = 7;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    for (let beam = 0; beam < 6; beam++) {
+      // Values on a 0.25 dB step (ties are common), a few NaN samples.
+      const v = Float64Array.from(t, () => (rnd() < 0.03 ? NaN : Math.round(rnd() * 8) / 4));
+      const want = oracle(v);
+      const got = mergeConflicts(build, v, 0.5, 1000);
+      expect(got.count).toBe(want.length);
+      expect([...got.worst].sort((a, b) => a.point - b.point)).toEqual(want);
+    }
+  });
+});
