@@ -191,11 +191,26 @@ export interface BeamMetrics {
   pointing?: Direction;
 }
 
+/** A CDF level and the value a requirement asks it to reach (limits/impliedChoices.ts percentileLimit). */
+export interface LevelLimit {
+  levelPct: number;
+  /** The level's limit as written, in the value unit (dBm, dBi). */
+  threshold: number;
+}
+
+/** Coverage efficiency at the value a limit set's percentile check asks its level to reach. */
+export interface LevelLimitCoverage extends LevelLimit {
+  /** Fraction of 4π at or better than `threshold` (coverageEfficiency). */
+  efficiency: number;
+}
+
 export interface CoverageMetrics {
   peak: PeakValue;
   percentiles: PercentileValue[];
   coverage: CoveragePoint[];
   relativeCoverage: RelativeCoveragePoint[];
+  /** Coverage efficiency at the limit set's percentile limit; absent without a percentile check. */
+  coverageAtLevelLimit?: LevelLimitCoverage;
   /** The whole coverage-efficiency curve, thresholds ascending. */
   curve: CoveragePoint[];
   solidAngleSr: number;
@@ -419,6 +434,8 @@ export interface UnitResult {
     percentiles: PercentileValue[];
     coverage: CoveragePoint[];
     relativeCoverage: RelativeCoveragePoint[];
+    /** Coverage efficiency at the limit set's percentile limit; absent without a percentile check. */
+    coverageAtLevelLimit?: LevelLimitCoverage;
     curve: CoveragePoint[];
   };
   checks: CheckResult[];

@@ -30,7 +30,7 @@ import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js
 import { applyJointChecks, type JointMaps } from './jointChecks.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView, type MeasuredUnit } from './polarizationUnits.js';
 import type { ViewerUnit } from '../viewer/viewerData.js';
-import { analysisThreshold, impliedChoices } from '../limits/impliedChoices.js';
+import { analysisThreshold, impliedChoices, percentileLimit } from '../limits/impliedChoices.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -160,6 +160,7 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     percentilesPct: input.percentilesPct,
     thresholds: input.thresholds,
     relativeDb: input.relativeDb,
+    levelLimit: percentileLimit(input.limitSet),
   });
   const { tsp, metrics } = computed;
   const grid = gridSummary(m);

@@ -1,9 +1,9 @@
-import type { CoverageMetrics, Measurement, TotalScanPattern } from '../types.js';
+import type { CoverageMetrics, LevelLimit, Measurement, TotalScanPattern } from '../types.js';
 import { isFullSphere } from '../sphere/isFullSphere.js';
 import { beamPeak } from './beamPeak.js';
 import { beamPointing, gridVectors } from './beamPointing.js';
 import { bestShares } from './bestShares.js';
-import { coverageAt, relativeCoverage } from './coverageEfficiency.js';
+import { coverageAt, coverageEfficiency, relativeCoverage } from './coverageEfficiency.js';
 import { coverageCurve } from './coverageCurve.js';
 import { percentile } from './percentile.js';
 import { totalScanPattern } from './totalScanPattern.js';
@@ -20,12 +20,15 @@ export interface MetricOptions {
   relativeDb: number[];
   /** Step of the coverage-efficiency curve, dB (default 0.1). */
   curveStepDb?: number;
+  /** The limit set's percentile requirement (limits/impliedChoices.ts percentileLimit), for coverageAtLevelLimit. */
+  levelLimit?: LevelLimit | null;
 }
 
 /**
  * Every coverage metric of one measurement: combine (total scan pattern), then measure
  * (weighted CDF, percentiles, coverage efficiency absolute/relative/curve, peak, per-beam
- * peak, TRP on a full sphere for eirp/gain, best share). Definitions in the called functions.
+ * peak, TRP on a full sphere for eirp/gain, best share; with `levelLimit`, the coverage
+ * efficiency at the limit set's percentile limit). Definitions in the called functions.
  * Cost O(points·beams + points·log points); the CDF sort is the only sort.
  * @throws RangeError for a level outside [0, 100] (from percentile).
  * @example computeMetrics(m, { percentilesPct: [50], thresholds: [10], relativeDb: [3] }).metrics.peak
@@ -43,6 +46,7 @@ export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: Tota
     percentiles: opts.percentilesPct.map((levelPct) => ({ levelPct, value: percentile(cdf, levelPct, quantity) })),
     coverage: coverageAt(cdf, opts.thresholds, quantity),
     relativeCoverage: relativeCoverage(cdf, opts.relativeDb, quantity),
+    ...(opts.levelLimit ? { coverageAtLevelLimit: { ...opts.levelLimit, efficiency: coverageEfficiency(cdf, opts.levelLimit.threshold, quantity) } } : {}),
     curve: coverageCurve(cdf, quantity, opts.curveStepDb),
     solidAngleSr: grid.solidAngleSr,
     beams: m.beams.map((b, k) => {

@@ -1,4 +1,4 @@
-import type { AnalysisThreshold } from '../types.js';
+import type { AnalysisThreshold, LevelLimit } from '../types.js';
 import type { LimitSet } from './limitSet.js';
 
 /** The choices a limit set implies for the optional analysis and the report. */
@@ -48,4 +48,18 @@ export function analysisThreshold(ls: Pick<LimitSet, 'checks'> | null | undefine
   if (pct?.kind === 'percentile') return { value: pct.limit, source: 'percentile-check', toleranceApplied: false };
   if (requestedThresholds.length) return { value: requestedThresholds[0], source: 'requested', toleranceApplied: false };
   return null;
+}
+
+/**
+ * The level and value of the limit set's percentile requirement: the first percentile check's
+ * level (the same check impliedChoices takes its level from) and its limit as written — the
+ * EIRP/EIS value the requirement asks that level to reach, without the test tolerance (as
+ * analysisThreshold). The coverage efficiency at this value is the catalogue's
+ * `coverageAtLevelLimit` metric. null when the limit set has no percentile check.
+ * Cost O(checks).
+ * @example percentileLimit({ checks: [{ kind: 'percentile', name: 'p50', levelPct: 50, limit: 11.5 }] }) // { levelPct: 50, threshold: 11.5 }
+ */
+export function percentileLimit(ls: Pick<LimitSet, 'checks'> | null | undefined): LevelLimit | null {
+  const pct = (ls?.checks ?? []).find((c) => c.kind === 'percentile');
+  return pct?.kind === 'percentile' ? { levelPct: pct.levelPct, threshold: pct.limit } : null;
 }

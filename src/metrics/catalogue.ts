@@ -28,7 +28,7 @@ export type MetricUnit = 'value' | 'dBm' | 'dB' | 'fraction';
 export type MetricSense = 'quantity' | 'higher' | 'lower' | 'none';
 
 export type MetricFamily =
-  | 'peak' | 'percentile' | 'coverage' | 'relativeCoverage'
+  | 'peak' | 'percentile' | 'coverage' | 'relativeCoverage' | 'coverageAtLevelLimit'
   | 'trpPeakBeam' | 'trpMax' | 'worstBeamPeak' | 'check' | 'worstMargin';
 
 /** One metric: a family and its parameter (a number for levels and thresholds, a name for checks). */
@@ -83,6 +83,13 @@ const FAMILIES: Record<MetricFamily, FamilyDef> = {
   relativeCoverage: {
     label: (p) => `coverage within ${num(p)} dB of peak`, unit: 'fraction', sense: 'higher',
     rowKey: (p) => `relativeCoverage@${num(p)}dB`, csvColumn: (p) => `coverage_within_${num(p)}db_of_peak`,
+  },
+  coverageAtLevelLimit: {
+    // The share of the sphere at or better than the value the limit set's percentile check asks
+    // its level (the parameter, %) to reach; the check passes when it reaches the level's share.
+    label: (p) => `coverage at the ${num(p)} %-tile limit`, unit: 'fraction', sense: 'higher',
+    rowKey: (p) => `coverageAtLevelLimit@p${num(p)}`, statsKey: (p) => `coverageAtLevelLimit@p${num(p)}`,
+    csvColumn: (p) => `coverage_at_p${num(p)}_limit`,
   },
   trpPeakBeam: {
     label: () => 'TRP of the peak beam (dBm)', unit: 'dBm', sense: 'none',
@@ -179,7 +186,8 @@ export function peakBeamIndex(m: Pick<CoverageMetrics, 'beams' | 'peak'>): numbe
 
 /**
  * The catalogued metrics that a unit's metric row carries, with values, in output order: peak,
- * percentiles, coverage, relative coverage, TRP of the peak beam, highest TRP.
+ * percentiles, coverage, relative coverage, coverage at the percentile limit, TRP of the peak
+ * beam, highest TRP.
  * Cost O(metrics + beams).
  */
 function rowValues(m: CoverageMetrics): MetricValue[] {
@@ -187,6 +195,8 @@ function rowValues(m: CoverageMetrics): MetricValue[] {
   for (const p of m.percentiles) out.push({ metric: { family: 'percentile', param: p.levelPct }, value: p.value });
   for (const c of m.coverage) out.push({ metric: { family: 'coverage', param: c.threshold }, value: c.efficiency });
   for (const c of m.relativeCoverage) out.push({ metric: { family: 'relativeCoverage', param: c.dbBelowPeak }, value: c.efficiency });
+  const ll = m.coverageAtLevelLimit;
+  if (ll) out.push({ metric: { family: 'coverageAtLevelLimit', param: ll.levelPct }, value: ll.efficiency });
   const pb = peakBeamIndex(m);
   out.push({ metric: { family: 'trpPeakBeam' }, value: pb < 0 ? null : m.beams[pb].trpDbm });
   const trps = m.beams.map((b) => b.trpDbm).filter((t): t is number => t !== null);
@@ -221,7 +231,11 @@ export function unitResultMetrics(m: CoverageMetrics, removal: readonly (BeamRem
   return {
     solidAngleSr: m.solidAngleSr,
     beams: m.beams.map((b, i) => ({ ...b, removal: removal[i], neverBest: b.bestShare === 0 })),
-    tsp: { peak: m.peak, percentiles: m.percentiles, coverage: m.coverage, relativeCoverage: m.relativeCoverage, curve: m.curve },
+    tsp: {
+      peak: m.peak, percentiles: m.percentiles, coverage: m.coverage, relativeCoverage: m.relativeCoverage,
+      ...(m.coverageAtLevelLimit ? { coverageAtLevelLimit: m.coverageAtLevelLimit } : {}), // only with a percentile check
+      curve: m.curve,
+    },
   };
 }
 

@@ -5,6 +5,7 @@
 import type { CheckResult, CoverageHole, CoverageMetrics, Measurement, TotalScanPattern, UnitResult } from '../types.js';
 import type { ViewerBuild } from './viewerData.js';
 import { computeMetrics } from '../coverage/computeMetrics.js';
+import { percentileLimit } from '../limits/impliedChoices.js';
 import { judge } from '../limits/judge.js';
 import { findHoles } from '../analysis/findHoles.js';
 import { gridSummary } from '../sphere/gridSummary.js';
@@ -38,6 +39,7 @@ export function recompute(m: Measurement, enabled: boolean[], build: ViewerBuild
     percentilesPct: build.percentilesPct,
     thresholds: build.thresholds,
     relativeDb: build.relativeDb,
+    levelLimit: percentileLimit(build.limitSet),
   });
   const ls = build.limitSet;
   const judged = ls

@@ -59,6 +59,8 @@ describe('metric catalogue', () => {
     // Key order is what results.json prints (CONTRACT.md; test/golden holds it byte for byte).
     expect(Object.keys(fields)).toEqual(['solidAngleSr', 'beams', 'tsp']);
     expect(Object.keys(fields.tsp)).toEqual(['peak', 'percentiles', 'coverage', 'relativeCoverage', 'curve']);
+    const withLimit = unitResultMetrics({ ...metrics, coverageAtLevelLimit: { levelPct: 50, threshold: 10, efficiency: 0.6 } });
+    expect(Object.keys(withLimit.tsp)).toEqual(['peak', 'percentiles', 'coverage', 'relativeCoverage', 'coverageAtLevelLimit', 'curve']);
     expect(Object.keys(fields.beams[0])).toEqual(['id', 'peak', 'trpDbm', 'bestShare', 'removal', 'neverBest']);
     expect(fields.beams.map((b) => b.neverBest)).toEqual([false, false, false]);
     expect(unitResultMetrics({ ...metrics, beams: [{ ...metrics.beams[0], bestShare: 0 }] }).beams[0].neverBest).toBe(true);
