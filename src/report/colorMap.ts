@@ -129,3 +129,12 @@ export function divergingAt(t: number): Rgb {
   const i = 3 * lutIndex(t);
   return [DIVERGING_LUT[i], DIVERGING_LUT[i + 1], DIVERGING_LUT[i + 2]];
 }
+
+/**
+ * Line colours for overlaid curves on white paper (one per unit in the build summary): eight OKLab
+ * hue/lightness pairs picked so that neighbours in the list differ in hue by 90° or more and the
+ * list spans lightness 0.42–0.72 (red, blue, green, orange, purple, teal, brown, pink); darker than
+ * CATEGORICAL (which fills map regions) so that thin lines stay visible.
+ */
+const LINE_HUE_L: [number, number][] = [[25, 0.52], [260, 0.5], [145, 0.56], [65, 0.72], [315, 0.45], [195, 0.62], [50, 0.42], [350, 0.68]];
+export const LINE_COLORS: string[] = LINE_HUE_L.map(([h, L]) => rgbHex(gamutColor(L, h, 0.16)));

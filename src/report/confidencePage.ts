@@ -9,7 +9,7 @@ import type { CdfCurve } from './cdfCurve.js';
 import { fmt, pct } from './format.js';
 import { contentWidth, heading, keyValues, MARGIN, note, table, type Doc } from './pdfDoc.js';
 import { drawCdfPlot, type CurveStyle } from './plots.js';
-import { cdfLimitMarks } from './unitReport.js';
+import { cdfLimitMarks } from './cdfLimitMarks.js';
 
 const RULE_TEXT = {
   'shared-risk': 'shared risk (3GPP TS 38.101-2 §4.1): the limit relaxed by the test tolerance, the measured value compared as it is',

@@ -18,6 +18,14 @@ export function fmtFrequency(hz: number | null): string {
   return `${fmt(hz, 0)} Hz`;
 }
 
+/** A frequency in as few characters as it needs, for keys and titles: `28 GHz`, `26.5 GHz`, `—` when not given. */
+export function fmtFrequencyShort(hz: number | null): string {
+  if (hz === null) return '—';
+  if (hz >= 1e9) return `${Number((hz / 1e9).toFixed(3))} GHz`;
+  if (hz >= 1e6) return `${Number((hz / 1e6).toFixed(3))} MHz`;
+  return `${fmt(hz, 0)} Hz`;
+}
+
 /** Owned by src/quantity.ts; re-exported for the report's imports. */
 export { quantityLabel } from '../quantity.js';
 

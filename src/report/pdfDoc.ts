@@ -118,7 +118,7 @@ export function table(doc: Doc, cols: Column[], rows: string[][], opts: { fontSi
     doc.font('B').fontSize(fs).fillColor(INK);
     let x = x0;
     for (const c of cols) {
-      doc.text(c.header, x + 3, y + 3, { width: c.width - 6, align: c.align ?? 'left', lineBreak: false, ellipsis: true });
+      oneLine(doc, c.header, x + 3, y + 3, c.width - 6, c.align ?? 'left');
       x += c.width;
     }
     doc.y = y + rowH + 1;
@@ -158,4 +158,12 @@ export function keyValues(doc: Doc, pairs: [string, string][], x: number, width:
     doc.font('R').fontSize(8.2).fillColor(INK).text(v, x + keyWidth, y, { width: width - keyWidth });
     doc.y = Math.max(doc.y, y + 11.5);
   }
+}
+
+/**
+ * Text on one line inside `width`, cut with an ellipsis when longer. pdfkit wraps any text given
+ * a width (lineBreak: false does not stop it); a height under two lines makes it cut instead.
+ */
+export function oneLine(doc: Doc, text: string, x: number, y: number, width: number, align: 'left' | 'right' | 'center' = 'left'): void {
+  doc.text(text, x, y, { width, height: doc.currentLineHeight(true) * 1.5, ellipsis: true, align });
 }

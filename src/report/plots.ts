@@ -18,7 +18,8 @@ export interface CurveStyle {
   curve: CdfCurve;
   color: string;
   width: number;
-  dash?: boolean;
+  /** true: a plain dash; a pattern (on, off … points; [] solid) for curves told apart by style. */
+  dash?: boolean | number[];
   label?: string;
 }
 
@@ -45,20 +46,11 @@ export function cdfAxisTitle(q: Quantity): string {
 }
 
 /**
- * Solid-angle-weighted CDF plot (CCDF for eis) of one or more curves, faint curves behind, limit
- * lines and percentile read-outs. Returns the x range used.
+ * The x range of a CDF plot: the main curves' values and the limits within half the data span of
+ * them. A limit far from the data (a maximum EIRP of 43 dBm beside a 25 dBm pattern) would squash
+ * the curve, so it is marked at the edge instead (drawLimitMarks).
  */
-export function drawCdfPlot(
-  doc: Doc,
-  box: PageBox,
-  q: Quantity,
-  unit: string,
-  curves: CurveStyle[],
-  faint: CdfCurve[],
-  percentiles: PercentileValue[],
-  limits: LimitMark[],
-): void {
-  // The x range follows the main curves and the limits; faint curves are clipped to it.
+function cdfXRange(curves: CurveStyle[], limits: LimitMark[]): ReturnType<typeof niceRange> {
   let lo = Infinity;
   let hi = -Infinity;
   for (const c of curves.map((s) => s.curve)) {
@@ -70,40 +62,33 @@ export function drawCdfPlot(
     lo = 0;
     hi = 1;
   }
-  // A limit far from the data (a maximum EIRP of 43 dBm beside a 25 dBm pattern) would squash the
-  // curve: the range takes in limits within half the data span, the others are marked at the edge.
   const reach = 0.5 * Math.max(hi - lo, 1);
-  const onScale = (v: number): boolean => v >= lo - reach && v <= hi + reach;
   for (const l of limits) {
-    if (!onScale(l.value)) continue;
+    if (l.value < lo - reach || l.value > hi + reach) continue;
     lo = Math.min(lo, l.value);
     hi = Math.max(hi, l.value);
   }
-  const xr = niceRange(lo, hi, 8);
-  const a: Axes = { ...box, xMin: xr.lo, xMax: xr.hi, yMin: 0, yMax: 1 };
-  drawAxes(doc, a, xr.ticks, xr.step, [0, 0.2, 0.4, 0.6, 0.8, 1], `${quantityLabel(q)} x (${unit})`, cdfAxisTitle(q), (v) => `${fmt(100 * v, 0)} %`);
-  clipTo(doc, a);
-  doc.lineWidth(0.35).strokeColor('#b8b8c4');
-  for (const c of faint) stepPath(doc, a, c, q);
-  if (faint.length) doc.stroke();
-  for (const s of curves) {
-    stepPath(doc, a, s.curve, q);
-    if (s.dash) doc.dash(2.5, { space: 1.5 });
-    doc.lineWidth(s.width).strokeColor(s.color).stroke();
-    doc.undash();
-  }
-  // Limits: dashed vertical at the judged limit; a diamond at (limit, level) where the curve must pass.
+  return niceRange(lo, hi, 8);
+}
+
+/** A small tag on a white ground (limit names on the plot). */
+function tag(doc: Doc, text: string, x: number, y: number, alignRightAt?: number): void {
+  doc.font('B').fontSize(6.2);
+  const w = doc.widthOfString(text) + 3;
+  const lx = alignRightAt !== undefined ? alignRightAt - w : x;
+  doc.save().rect(lx, y - 1, w, 8).fillOpacity(0.85).fill('#ffffff').restore();
+  doc.fillColor(INK).text(text, lx + 1.5, y, { lineBreak: false });
+}
+
+/** Limits: dashed vertical at the judged limit, a diamond at (limit, level) where the curve must pass, tags L1…. */
+function drawLimitMarks(doc: Doc, a: Axes, q: Quantity, limits: LimitMark[]): void {
   limits.forEach((l, k) => {
     if (l.value < a.xMin || l.value > a.xMax) {
       // Off scale: its tag at the edge it lies beyond, with an arrow.
       const right = l.value > a.xMax;
-      const tag = right ? `L${k + 1} ${fmt(l.value, 1)} →` : `← L${k + 1} ${fmt(l.value, 1)}`;
-      doc.font('B').fontSize(6.2);
-      const w = doc.widthOfString(tag) + 3;
       const ly = a.y + a.h - 12 - 9 * (k % 3);
-      const lx = right ? a.x + a.w - w - 2 : a.x + 2;
-      doc.save().rect(lx, ly - 1, w, 8).fillOpacity(0.85).fill('#ffffff').restore();
-      doc.fillColor(INK).text(tag, lx + 1.5, ly, { lineBreak: false });
+      if (right) tag(doc, `L${k + 1} ${fmt(l.value, 1)} →`, 0, ly, a.x + a.w - 2);
+      else tag(doc, `← L${k + 1} ${fmt(l.value, 1)}`, a.x + 2, ly);
       return;
     }
     const x = px(a, l.value);
@@ -112,15 +97,16 @@ export function drawCdfPlot(
       const y = py(a, drawnY(q, l.levelPct / 100));
       doc.polygon([x, y - 3.5], [x + 3.5, y], [x, y + 3.5], [x - 3.5, y]).lineWidth(0.8).fillAndStroke('#ffffff', INK);
     }
-    const tag = `L${k + 1}`;
     doc.font('B').fontSize(6.2);
-    const w = doc.widthOfString(tag) + 3;
+    const w = doc.widthOfString(`L${k + 1}`) + 3;
     const ly = a.y + 3 + 9 * (k % 3);
-    const lx = x + w + 4 > a.x + a.w ? x - w - 2 : x + 2;
-    doc.save().rect(lx, ly - 1, w, 8).fillOpacity(0.85).fill('#ffffff').restore();
-    doc.fillColor(INK).text(tag, lx + 1.5, ly, { lineBreak: false });
+    if (x + w + 4 > a.x + a.w) tag(doc, `L${k + 1}`, 0, ly, x - 2);
+    else tag(doc, `L${k + 1}`, x + 2, ly);
   });
-  // Percentile read-outs: dots on the TSP curve, numbered by level.
+}
+
+/** Percentile read-outs: dots on the TSP curve, numbered by level (labels that would collide are skipped). */
+function drawPercentileDots(doc: Doc, a: Axes, q: Quantity, percentiles: PercentileValue[]): void {
   let lastX = -Infinity;
   let lastY = -Infinity;
   for (const p of percentiles) {
@@ -134,6 +120,42 @@ export function drawCdfPlot(
       lastY = y;
     }
   }
+}
+
+/** One curve in its style: `dash` true is the plain dash, an array a dash pattern ([] solid). */
+function strokeCurve(doc: Doc, a: Axes, q: Quantity, s: CurveStyle): void {
+  stepPath(doc, a, s.curve, q);
+  const pattern = Array.isArray(s.dash) ? s.dash : s.dash ? [2.5, 1.5] : [];
+  // pdfkit takes an array as the whole pattern (its typings only name the number form).
+  if (pattern.length) doc.dash(pattern as unknown as number, {});
+  doc.lineWidth(s.width).strokeColor(s.color).stroke();
+  doc.undash();
+}
+
+/**
+ * Solid-angle-weighted CDF plot (CCDF for eis) of one or more curves, faint curves behind, limit
+ * lines and percentile read-outs.
+ */
+export function drawCdfPlot(
+  doc: Doc,
+  box: PageBox,
+  q: Quantity,
+  unit: string,
+  curves: CurveStyle[],
+  faint: CdfCurve[],
+  percentiles: PercentileValue[],
+  limits: LimitMark[],
+): void {
+  const xr = cdfXRange(curves, limits);
+  const a: Axes = { ...box, xMin: xr.lo, xMax: xr.hi, yMin: 0, yMax: 1 };
+  drawAxes(doc, a, xr.ticks, xr.step, [0, 0.2, 0.4, 0.6, 0.8, 1], `${quantityLabel(q)} x (${unit})`, cdfAxisTitle(q), (v) => `${fmt(100 * v, 0)} %`);
+  clipTo(doc, a);
+  doc.lineWidth(0.35).strokeColor('#b8b8c4');
+  for (const c of faint) stepPath(doc, a, c, q);
+  if (faint.length) doc.stroke();
+  for (const s of curves) strokeCurve(doc, a, q, s);
+  drawLimitMarks(doc, a, q, limits);
+  drawPercentileDots(doc, a, q, percentiles);
   doc.restore();
   doc.fillColor(INK).font('R').fontSize(9);
 }

@@ -7,7 +7,7 @@ import { colorAt, divergingAt } from './colorMap.js';
 import { directionToPage, drawBoundaries, drawColorBar, drawMapFrame, mapLabel, unmeasuredSwatch, type MapBox } from './drawMap.js';
 import { fmt, fmtFrequency, niceRange, pct, quantityLabel, verdictText } from './format.js';
 import { addFooters, contentWidth, createDoc, ensureSpace, finish, heading, INK, keyValues, MARGIN, MUTED, note, table, type Column, type Doc } from './pdfDoc.js';
-import { drawCdfPlot, drawCoveragePlot, type LimitMark } from './plots.js';
+import { drawCdfPlot, drawCoveragePlot } from './plots.js';
 import type { ReportSettings, UnitReportInput } from './reportTypes.js';
 import { beamColor, buildUnitMaps, DELTA_OUTLINE_DB, scaleT, type UnitMaps } from './unitMaps.js';
 import { drawAxes, px, py, type Axes } from './axes.js';
@@ -15,6 +15,7 @@ import { formatMetric, metricLabel, metricsOfUnit, rowKey, rowMetrics, type Metr
 import { polarizationSection } from './polarizationSection.js';
 import { jointSection } from './jointSection.js';
 import { confidencePage } from './confidencePage.js';
+import { cdfLimitMarks } from './cdfLimitMarks.js';
 import { testInfoBlock } from './sections/testInfoBlock.js';
 import { thresholdSourceText } from './thresholdText.js';
 
@@ -56,18 +57,6 @@ function checkValue(c: CheckResult, v: number | null, unit: string): string {
 
 function resultText(c: CheckResult): string {
   return c.status === 'pass' ? '✓ pass' : c.status === 'fail' ? '✗ FAIL' : 'not evaluable';
-}
-
-/** Limits drawable on the value axis of the CDF (the coverage and TRP checks are in other units). */
-export function cdfLimitMarks(checks: CheckResult[]): LimitMark[] {
-  const out: LimitMark[] = [];
-  for (const c of checks) {
-    if (c.kind === 'percentile') out.push({ label: `${c.name}: ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit, levelPct: c.levelPct });
-    // A per-beam limit (min-beam-peak) is on another quantity than the TSP: not drawn here.
-    else if (c.kind === 'min-peak' || c.kind === 'max-peak')
-      out.push({ label: `${c.name}: ${fmt(c.effectiveLimit)}`, value: c.effectiveLimit });
-  }
-  return out;
 }
 
 function titleBlock(doc: Doc, input: UnitReportInput, s: ReportSettings): void {

@@ -4,6 +4,8 @@ import { cdfCurve, loadReportSettings, renderBuildPdf, unitKey, unitMapThumbnail
 import type { BuildReportInput } from '../../src/report/reportTypes.js';
 import { makeMeasurement, makeResult, makeTsp } from './fixture.js';
 import { pdfPages } from './pdfText.js';
+import { DISTINCT_LINE_STYLES, lineStyle } from '../../src/report/lineStyles.js';
+import { LINE_COLORS } from '../../src/report/colorMap.js';
 
 const DATE = '2026-02-03T04:05:06Z';
 
@@ -62,5 +64,25 @@ describe('renderBuildPdf', () => {
     const input = buildInput(3);
     const s = loadReportSettings({ creationDate: DATE });
     expect((await renderBuildPdf(input, s)).equals(await renderBuildPdf(input, s))).toBe(true);
+  });
+});
+
+describe('the CDF overlay identifies every unit', () => {
+  it('numbers the units table and keys each curve to its row: number, unit, frequency and verdict in the key', async () => {
+    const input = buildInput(5);
+    const pages = await pdfPages(await renderBuildPdf(input, loadReportSettings({ creationDate: DATE })));
+    const overlay = pages.find((p) => p.includes('CDF of every unit'))!;
+    // buildInput names units QX-20 … QX-24 in table order; unit 1 (QX-21) is the failed one.
+    const key = overlay.slice(overlay.indexOf('EIRP x'), overlay.indexOf('Each line is one unit'));
+    input.units.forEach((u, k) => expect(key).toContain(`${k + 1} ${u.unit} · 28 GHz ${u.verdict === 'fail' ? 'FAIL' : 'PASS'}`));
+    expect(pages[0]).toMatch(/# Unit Freq\. Verdict/);
+    input.units.forEach((u, k) => expect(pages[0]).toContain(`${k + 1} ${u.unit} 28 GHz`));
+  });
+
+  it('gives each of the first 32 units its own colour and dash pattern', () => {
+    const styles = Array.from({ length: DISTINCT_LINE_STYLES }, (_, k) => JSON.stringify(lineStyle(k)));
+    expect(new Set(styles).size).toBe(32);
+    expect(lineStyle(32)).toEqual(lineStyle(0));
+    expect(new Set(LINE_COLORS).size).toBe(LINE_COLORS.length);
   });
 });
