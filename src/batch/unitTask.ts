@@ -7,6 +7,7 @@ import type { BeamRemoval, GridSummary, InputError, Measurement, Quantity, Sourc
 import type { JobSpec, RawBeam } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { readExportFile } from '../io/readExportFile.js';
+import { nfcIdentity } from '../io/nfcIdentity.js';
 import { assembleMeasurements } from '../io/assembleMeasurements.js';
 import { computeMetrics } from '../coverage/computeMetrics.js';
 import { judge } from '../limits/judge.js';
@@ -260,15 +261,7 @@ async function readGroup(input: TaskInput): Promise<GroupRead> {
   const ctx = { inputRoot: input.inputRoot, job: input.job ?? undefined, quantityOverride: input.quantityOverride };
   for (const f of input.files) {
     const r = await readExportFile(f, ctx);
-    // One Unicode form (NFC) for unit and beam names before anything groups by them: 'é' typed
-    // as one code point or as e + combining accent is one unit. The spellings as written are
-    // kept for results.json (unitAsWritten).
-    for (const b of r.beams) {
-      const unit = b.unit.normalize('NFC');
-      read.spellings.set(unit, (read.spellings.get(unit) ?? new Set()).add(b.unit));
-      b.unit = unit;
-      b.beam = b.beam.normalize('NFC');
-    }
+    nfcIdentity(r.beams, read.spellings); // the spellings as written go to results.json (unitAsWritten)
     read.sources.push({ path: r.file, sha256: r.sha256 });
     read.errors.push(...r.errors);
     read.fileWarnings.set(r.file, r.warnings);

@@ -7,6 +7,7 @@ import { findJobFile } from './findJobFile.js';
 import { loadJobFile } from './jobFile.js';
 import { fsReason, isFsError } from './fsProblem.js';
 import { readExportFile } from './readExportFile.js';
+import { nfcIdentity } from './nfcIdentity.js';
 import { decimalSeparatorSeen, type DecimalSeparatorSeen } from './decimalSeparator.js';
 import type { InspectReport, JobSpec, RawBeam } from './types.js';
 
@@ -55,6 +56,7 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
   const beams: RawBeam[] = [];
   for (const f of found.files) {
     const r = await readExportFile(f, { inputRoot: root, job, quantityOverride: opts.quantity });
+    nfcIdentity(r.beams); // units and beams named as analyze groups them
     const decimalSeparator = r.info.layout && r.info.delimiter ? decimalSeparatorSeen(f, r.info.delimiter, r.info.header?.line ?? 1) : null;
     report.files.push({
       ...r.info, decimalSeparator, file: r.file, sha256: r.sha256,
