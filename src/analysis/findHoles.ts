@@ -2,6 +2,7 @@ import { gridNeighbors, type GridAdjacency } from '../sphere/neighbors.js';
 import type { CoverageHole, Quantity, SphereGrid, TotalScanPattern } from '../types.js';
 import { isLowerBetter } from '../quantity.js';
 import { NeumaierAccumulator } from '../sphere/neumaierSum.js';
+import { unitVector } from '../sphere/direction.js';
 
 const RAD = Math.PI / 180;
 
@@ -105,10 +106,10 @@ function describeHole(
   for (const i of points) {
     const w = grid.weightSr[i];
     area.add(w); // Eq. 1
-    const th = grid.thetaDeg[i] * RAD, ph = grid.phiDeg[i] * RAD;
-    x += w * Math.sin(th) * Math.cos(ph);
-    y += w * Math.sin(th) * Math.sin(ph);
-    z += w * Math.cos(th); // Eq. 2
+    const [ux, uy, uz] = unitVector(grid.thetaDeg[i], grid.phiDeg[i]);
+    x += w * ux;
+    y += w * uy;
+    z += w * uz; // Eq. 2
     if (worseFirst(values[i], values[worstAt], lowerIsBetter) < 0) worstAt = i;
   }
   const norm = Math.hypot(x, y, z);

@@ -1,26 +1,13 @@
 import type { Direction, Quantity, SphereGrid } from '../types.js';
 import { betterSign } from '../quantity.js';
+import { unitVectors, type UnitVectors } from '../sphere/direction.js';
 
-/** Unit vectors of the grid points, computed once per grid and shared by all its beams. */
-export interface GridVectors {
-  x: Float64Array;
-  y: Float64Array;
-  z: Float64Array;
-}
+/** Unit vectors of the grid points (src/sphere/direction.ts), computed once per grid and shared by all its beams. */
+export type GridVectors = UnitVectors;
 
-/** x = sin θ cos φ, y = sin θ sin φ, z = cos θ for every grid point. Cost O(n). */
+/** The grid's unit vectors (unitVectors of its θ and φ). Cost O(n). */
 export function gridVectors(grid: Pick<SphereGrid, 'thetaDeg' | 'phiDeg'>): GridVectors {
-  const n = grid.thetaDeg.length;
-  const v = { x: new Float64Array(n), y: new Float64Array(n), z: new Float64Array(n) };
-  const rad = Math.PI / 180;
-  for (let i = 0; i < n; i++) {
-    const t = grid.thetaDeg[i] * rad;
-    const p = grid.phiDeg[i] * rad;
-    v.x[i] = Math.sin(t) * Math.cos(p);
-    v.y[i] = Math.sin(t) * Math.sin(p);
-    v.z[i] = Math.cos(t);
-  }
-  return v;
+  return unitVectors(grid.thetaDeg, grid.phiDeg);
 }
 
 /**

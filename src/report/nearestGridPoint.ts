@@ -1,4 +1,5 @@
 import type { SphereGrid } from '../types.js';
+import { unitVector, unitVectors } from '../sphere/direction.js';
 
 /** Returns the index of the grid point whose cell holds (θ, φ), or −1 if it is not measured. */
 export type NearestLookup = (thetaDeg: number, phiDeg: number) => number;
@@ -72,14 +73,7 @@ function regularLookup(grid: SphereGrid): NearestLookup {
 
 function scatteredLookup(grid: SphereGrid): NearestLookup {
   const n = grid.thetaDeg.length;
-  const xyz = new Float64Array(3 * n);
-  for (let i = 0; i < n; i++) {
-    const t = grid.thetaDeg[i] * RAD;
-    const p = grid.phiDeg[i] * RAD;
-    xyz[3 * i] = Math.sin(t) * Math.cos(p);
-    xyz[3 * i + 1] = Math.sin(t) * Math.sin(p);
-    xyz[3 * i + 2] = Math.cos(t);
-  }
+  const { x: ux, y: uy, z: uz } = unitVectors(grid.thetaDeg, grid.phiDeg);
   const sortedW = Float64Array.from(grid.weightSr).sort();
   const maxGapRad = 0.8 * Math.sqrt(sortedW[n >> 1] || 4 * Math.PI);
   const cosMax = Math.cos(Math.min(Math.PI, maxGapRad));
@@ -91,11 +85,7 @@ function scatteredLookup(grid: SphereGrid): NearestLookup {
   const bp = (p: number) => ((Math.floor(p / cellDeg) % nP) + nP) % nP;
   for (let i = 0; i < n; i++) buckets[bt(grid.thetaDeg[i]) * nP + bp(grid.phiDeg[i])].push(i);
   return (thetaDeg, phiDeg) => {
-    const t = thetaDeg * RAD;
-    const p = phiDeg * RAD;
-    const qx = Math.sin(t) * Math.cos(p);
-    const qy = Math.sin(t) * Math.sin(p);
-    const qz = Math.cos(t);
+    const [qx, qy, qz] = unitVector(thetaDeg, phiDeg);
     let best = -1;
     let bestDot = cosMax;
     const r0 = bt(thetaDeg);
@@ -107,7 +97,7 @@ function scatteredLookup(grid: SphereGrid): NearestLookup {
       for (let dc = -span; dc <= span; dc++) {
         if (2 * span + 1 > nP && (dc < 0 || dc >= nP)) continue;
         for (const i of buckets[r * nP + (((c0 + dc) % nP) + nP) % nP]) {
-          const dot = qx * xyz[3 * i] + qy * xyz[3 * i + 1] + qz * xyz[3 * i + 2];
+          const dot = qx * ux[i] + qy * uy[i] + qz * uz[i];
           if (dot > bestDot) {
             bestDot = dot;
             best = i;

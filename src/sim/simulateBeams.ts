@@ -1,3 +1,4 @@
+import { unitVector } from '../sphere/direction.js';
 import { elementGain } from './elementPattern.js';
 import { C_M_PER_S, excitation } from './steering.js';
 import type { ArrayModel, SampleGrid, SimulatedBeam, SteeringBeam } from './types.js';
@@ -36,11 +37,7 @@ export function simulateBeams(
   const hRe = new Float64Array(nEl * nPts);
   const hIm = new Float64Array(nEl * nPts);
   for (let i = 0; i < nPts; i++) {
-    const t = grid.thetaDeg[i] * DEG;
-    const p = grid.phiDeg[i] * DEG;
-    const ux = Math.sin(t) * Math.cos(p);
-    const uy = Math.sin(t) * Math.sin(p);
-    const uz = Math.cos(t);
+    const [ux, uy, uz] = unitVector(grid.thetaDeg[i], grid.phiDeg[i]);
     for (let n = 0; n < nEl; n++) {
       const el = model.elements[n];
       const b = el.boresight;

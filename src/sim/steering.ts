@@ -1,3 +1,4 @@
+import { unitVector } from '../sphere/direction.js';
 import type { ArrayModel, SteeringBeam } from './types.js';
 
 const C_M_PER_S = 299_792_458;
@@ -35,9 +36,7 @@ export function excitation(model: ArrayModel, beam: SteeringBeam): { re: Float64
   const re = new Float64Array(n);
   const im = new Float64Array(n);
   const k0 = (2 * Math.PI * model.designFrequencyHz) / C_M_PER_S;
-  const t = (beam.thetaDeg * Math.PI) / 180;
-  const p = (beam.phiDeg * Math.PI) / 180;
-  const u0 = [Math.sin(t) * Math.cos(p), Math.sin(t) * Math.sin(p), Math.cos(t)];
+  const u0 = unitVector(beam.thetaDeg, beam.phiDeg);
   const perElementMw = 10 ** (model.conductedPowerDbm / 10) / beam.elements.length;
   for (const i of beam.elements) {
     const el = model.elements[i];

@@ -1,10 +1,10 @@
 import type { MissingSample, RegularLayout, UnmeasuredRegion } from '../types.js';
+import { unitVector } from './direction.js';
 import { regionExtent, type RegionCap } from './regionExtent.js';
 import { seamGap } from './regularLayout.js';
 import { regularUnmeasured } from './regularUnmeasured.js';
 import { regularWeights } from './regularWeights.js';
 
-const RAD = Math.PI / 180;
 
 /**
  * Largest share of the lattice points that may be missing, in all and in any one θ row, for a
@@ -138,8 +138,8 @@ export function latticeWeights(thetaDeg: Float64Array, phiDeg: Float64Array): La
     for (const [r, c] of group) {
       const w = cell[rowStart[r] + c];
       area += w;
-      const t = thetaRowsDeg[r] * RAD, p = cols[c] * RAD;
-      caps.push({ x: Math.sin(t) * Math.cos(p), y: Math.sin(t) * Math.sin(p), z: Math.cos(t), radiusRad: Math.sqrt(w / Math.PI) });
+      const [x, y, z] = unitVector(thetaRowsDeg[r], cols[c]);
+      caps.push({ x, y, z, radiusRad: Math.sqrt(w / Math.PI) });
     }
     unmeasured.push(regionExtent(caps, group.map(([, c]) => cols[c]), area));
   }

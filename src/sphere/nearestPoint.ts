@@ -1,3 +1,5 @@
+import { unitVector, unitVectors } from './direction.js';
+
 const RAD = Math.PI / 180;
 
 /** Finds the grid point nearest to a direction; `distanceRad` holds the last answer's angle. */
@@ -24,18 +26,18 @@ export function nearestPointFinder(thetaDeg: Float64Array, phiDeg: Float64Array)
   for (let i = 0; i < n; i++) order[i] = i;
   order.sort((a, b) => thetaDeg[a] - thetaDeg[b]);
   const tRad = new Float64Array(n);
-  const xyz = new Float64Array(3 * n);
+  const xyz = new Float64Array(3 * n); // in θ order, interleaved: one cache line a candidate
+  const u = unitVectors(thetaDeg, phiDeg);
   for (let k = 0; k < n; k++) {
     const i = order[k];
-    const t = thetaDeg[i] * RAD, p = phiDeg[i] * RAD, s = Math.sin(t);
-    tRad[k] = t;
-    xyz[3 * k] = s * Math.cos(p); xyz[3 * k + 1] = s * Math.sin(p); xyz[3 * k + 2] = Math.cos(t);
+    tRad[k] = thetaDeg[i] * RAD;
+    xyz[3 * k] = u.x[i]; xyz[3 * k + 1] = u.y[i]; xyz[3 * k + 2] = u.z[i];
   }
   const finder: NearestFinder = {
     distanceRad: 0,
     nearest(qThetaDeg: number, qPhiDeg: number): number {
-      const t = qThetaDeg * RAD, p = qPhiDeg * RAD, s = Math.sin(t);
-      const qx = s * Math.cos(p), qy = s * Math.sin(p), qz = Math.cos(t);
+      const t = qThetaDeg * RAD;
+      const [qx, qy, qz] = unitVector(qThetaDeg, qPhiDeg);
       let lo = 0, hi = n;
       while (lo < hi) { const mid = (lo + hi) >> 1; if (tRad[mid] < t) lo = mid + 1; else hi = mid; }
       let best = -1, bestAngle = Infinity;

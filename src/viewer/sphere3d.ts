@@ -10,6 +10,7 @@ import {
 } from 'three';
 import { OrbitControls } from 'three/examples/jsm/controls/OrbitControls.js';
 import type { NearestLookup } from '../report/nearestGridPoint.js';
+import { unitVector } from '../sphere/direction.js';
 
 const STEP_DEG = 2;
 const RAD = Math.PI / 180;
@@ -23,8 +24,7 @@ export function webglAvailable(): boolean {
   }
 }
 
-const unitVector = (thetaDeg: number, phiDeg: number): Vector3 =>
-  new Vector3(Math.sin(thetaDeg * RAD) * Math.cos(phiDeg * RAD), Math.sin(thetaDeg * RAD) * Math.sin(phiDeg * RAD), Math.cos(thetaDeg * RAD));
+const unitVector3 = (thetaDeg: number, phiDeg: number): Vector3 => new Vector3(...unitVector(thetaDeg, phiDeg));
 
 export class SphereView {
   private renderer: WebGLRenderer;
@@ -43,7 +43,7 @@ export class SphereView {
     this.resetView();
     const rings = 180 / STEP_DEG + 1, cols = 360 / STEP_DEG + 1;
     const pos = new Float32Array(rings * cols * 3);
-    for (let r = 0; r < rings; r++) for (let c = 0; c < cols; c++) pos.set(unitVector(r * STEP_DEG, c * STEP_DEG).toArray(), 3 * (r * cols + c));
+    for (let r = 0; r < rings; r++) for (let c = 0; c < cols; c++) pos.set(unitVector3(r * STEP_DEG, c * STEP_DEG).toArray(), 3 * (r * cols + c));
     const index: number[] = [];
     for (let r = 0; r + 1 < rings; r++) for (let c = 0; c + 1 < cols; c++) {
       const a = r * cols + c, b = a + 1, d = a + cols, e = d + 1;
@@ -73,7 +73,7 @@ export class SphereView {
   }
 
   resetView(): void {
-    this.camera.position.copy(unitVector(60, 30).multiplyScalar(4.2));
+    this.camera.position.copy(unitVector3(60, 30).multiplyScalar(4.2));
     this.camera.lookAt(0, 0, 0);
   }
 
@@ -108,7 +108,7 @@ export class SphereView {
 
   setMarker(dir: { thetaDeg: number; phiDeg: number } | null): void {
     this.marker.visible = dir !== null;
-    if (dir) this.marker.position.copy(unitVector(dir.thetaDeg, dir.phiDeg).multiplyScalar(1.01));
+    if (dir) this.marker.position.copy(unitVector3(dir.thetaDeg, dir.phiDeg).multiplyScalar(1.01));
     this.render();
   }
 
@@ -127,7 +127,7 @@ export class SphereView {
 
   /** Client coordinates of a direction when it faces the camera, else null (for tests and the cursor). */
   clientOf(thetaDeg: number, phiDeg: number): [number, number] | null {
-    const u = unitVector(thetaDeg, phiDeg);
+    const u = unitVector3(thetaDeg, phiDeg);
     if (u.dot(this.camera.position.clone().normalize()) < 0.2) return null;
     const ndc = u.clone().project(this.camera);
     const rect = this.canvas.getBoundingClientRect();
@@ -137,7 +137,7 @@ export class SphereView {
   /** Turn the camera to look at a direction from outside. */
   face(thetaDeg: number, phiDeg: number): void {
     const d = this.camera.position.length();
-    this.camera.position.copy(unitVector(Math.min(179, Math.max(1, thetaDeg)), phiDeg).multiplyScalar(d));
+    this.camera.position.copy(unitVector3(Math.min(179, Math.max(1, thetaDeg)), phiDeg).multiplyScalar(d));
     this.camera.lookAt(0, 0, 0);
     this.controls.update();
     this.render();
@@ -159,7 +159,7 @@ export class SphereView {
     else return;
     e.preventDefault();
     th = Math.min(179, Math.max(1, th));
-    this.camera.position.copy(unitVector(th, ph).multiplyScalar(dist));
+    this.camera.position.copy(unitVector3(th, ph).multiplyScalar(dist));
     this.camera.lookAt(0, 0, 0);
     this.controls.update();
     this.render();

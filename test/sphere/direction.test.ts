@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { angularDistanceDeg, azElToThetaPhi, normalizePhiDeg, unitVector } from '../../src/sphere/direction.js';
+import { angularDistanceDeg, azElToThetaPhi, normalizePhiDeg, unitVector, unitVectors } from '../../src/sphere/direction.js';
 import { neumaierSum } from '../../src/sphere/neumaierSum.js';
 import { sphericalTriangleArea } from '../../src/sphere/sphericalTriangleArea.js';
 import { expectClose } from '../helpers/expectClose.js';
@@ -32,5 +32,14 @@ describe('directions', () => {
   it('spherical triangle: one octant is π/2 sr (geometry), orientation gives the sign', () => {
     expectClose(sphericalTriangleArea(1, 0, 0, 0, 1, 0, 0, 0, 1), Math.PI / 2, 1e-15, 'octant');
     expectClose(sphericalTriangleArea(1, 0, 0, 0, 0, 1, 0, 1, 0), -Math.PI / 2, 1e-15, 'reversed');
+  });
+  it('unitVectors: the bits of unitVector point by point; axes and the φ = 90° meridian exactly (geometry)', () => {
+    const theta = [0, 90, 90, 180, 37.5, 123.25], phi = [0, 0, 90, 0, 271, 12.5];
+    const v = unitVectors(theta, phi);
+    theta.forEach((t, i) => expect([v.x[i], v.y[i], v.z[i]]).toEqual(unitVector(t, phi[i])));
+    expect([v.x[0], v.y[0], v.z[0]]).toEqual([0, 0, 1]);
+    expect(v.z[3]).toBe(-1);
+    expectClose(Math.hypot(v.x[4], v.y[4], v.z[4]), 1, 1e-15, 'unit length to rounding');
+    expect(() => unitVectors([1, 2], [3])).toThrow(RangeError);
   });
 });
