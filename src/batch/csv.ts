@@ -1,6 +1,9 @@
 /**
- * CSV writing for summary.csv and build-stats.csv: RFC 4180 quoting plus formula neutralization.
+ * CSV writing for summary.csv and build-stats.csv: what a cell says is decided here (numbers,
+ * formula neutralization, text a spreadsheet would change); RFC 4180 quoting and the joining of
+ * cells and lines are papaparse's `unparse` (the library the readers already use).
  */
+import Papa from 'papaparse';
 
 /**
  * A text cell that begins with `=`, `+`, `-` or `@` (or a tab / carriage return, which some
@@ -13,10 +16,13 @@ export function neutralizeCell(text: string): string {
   return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
 }
 
-/** Quote a cell when it holds a delimiter, a quote or a line break (RFC 4180 §2). */
-function quote(text: string): string {
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
+/**
+ * papaparse's unparse with RFC 4180 (§2) quoting only: a cell is quoted when it holds a comma, a
+ * double quote, a line break or a byte order mark, or begins or ends with a space (which a
+ * spreadsheet could trim), and a quote inside is doubled. Formula escaping is ours (csvText),
+ * not papaparse's `escapeFormulae`, which would also quote every neutralized cell.
+ */
+const UNPARSE: Papa.UnparseConfig = { delimiter: ',', newline: '\r\n', quotes: false, quoteChar: '"', escapeChar: '"', escapeFormulae: false, header: false };
 
 export type CsvCell = string | number | boolean | null | undefined;
 
@@ -35,17 +41,22 @@ export function looksLikeSpreadsheetValue(text: string): boolean {
 }
 
 /**
- * One CSV cell: numbers via shortest round-trip form, null/undefined/NaN empty, text neutralized.
- * Text that a spreadsheet would read as a value is written as the constant formula `="0012"`,
- * which LibreOffice Calc and Excel show as the text 0012 (checked by converting with LibreOffice
- * in test/batch/spreadsheet.test.ts); results.json keeps the name verbatim.
+ * What one cell says, before quoting: numbers via shortest round-trip form, null/undefined/NaN
+ * empty, text neutralized. Text that a spreadsheet would read as a value is written as the
+ * constant formula `="0012"`, which LibreOffice Calc and Excel show as the text 0012 (checked by
+ * converting with LibreOffice in test/batch/spreadsheet.test.ts); results.json keeps the name verbatim.
  */
-export function csvCell(value: CsvCell): string {
+function csvText(value: CsvCell): string {
   if (value === null || value === undefined) return '';
   if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
   if (typeof value === 'boolean') return value ? 'true' : 'false';
-  if (looksLikeSpreadsheetValue(value)) return quote(`="${value}"`);
-  return quote(neutralizeCell(value));
+  if (looksLikeSpreadsheetValue(value)) return `="${value}"`;
+  return neutralizeCell(value);
+}
+
+/** One CSV cell as written in a file: csvText, quoted where RFC 4180 needs it. */
+export function csvCell(value: CsvCell): string {
+  return Papa.unparse([[csvText(value)]], UNPARSE);
 }
 
 /** The UTF-8 byte order mark: lets a spreadsheet program recognise UTF-8 (non-ASCII unit names). */
@@ -53,7 +64,6 @@ export const UTF8_BOM = '\uFEFF';
 
 /** Rows to CSV text with a UTF-8 BOM, CRLF line ends (RFC 4180) and a final line break. */
 export function toCsv(header: string[], rows: CsvCell[][]): string {
-  const lines = [header.map((h) => quote(neutralizeCell(h))).join(',')];
-  for (const row of rows) lines.push(row.map(csvCell).join(','));
-  return UTF8_BOM + lines.join('\r\n') + '\r\n';
+  const table = [header.map(neutralizeCell), ...rows.map((row) => row.map(csvText))];
+  return UTF8_BOM + Papa.unparse(table, UNPARSE) + '\r\n';
 }
