@@ -27,6 +27,17 @@ interface Fontkit {
 
 const TAG = 'spherecov-shared-font:';
 let sources: { regular: Uint8Array; bold: Uint8Array } | null = null;
+/** Why the shared-font hook fell back to the plain bytes (null while it works). */
+let sharedFontProblem: string | null = null;
+
+/*
+ * This file is the only place that touches pdfkit's private parts: fontkit reached through
+ * pdfkit's own `require` (fontkit's public registerFormat, but on pdfkit's instance) and the
+ * document's private `_font.layoutCache`. Both fall back silently at run time (reports stay
+ * correct, only slower), so `pdfkitHookProblems` below says what broke, and
+ * test/report/pdfkitHooks.test.ts fails with that text when a pdfkit upgrade changes them.
+ */
+const PDFKIT_PIN = '0.17.2';
 
 /**
  * What to pass to `doc.registerFont` for the report fonts: a short tag that pdfkit's font
@@ -69,10 +80,16 @@ export function reportFontSources(): { regular: Uint8Array; bold: Uint8Array } {
     probe.registerFont('B', tagged.bold);
     probe.font('R').font('B');
     sources = tagged;
-  } catch {
+  } catch (e) {
+    sharedFontProblem = e instanceof Error ? e.message : String(e);
     sources = fonts;
   }
   return sources;
+}
+
+/** The document's current font object (pdfkit private `_font`), undefined when absent. */
+function currentFont(doc: PDFKit.PDFDocument): { layoutCache?: unknown } | undefined {
+  return (doc as unknown as { _font?: { layoutCache?: unknown } })._font;
 }
 
 /** pdfkit's per-document word layout cache (EmbeddedFont.layoutCache), shared per font and thread. */
@@ -96,10 +113,50 @@ export function shareLayoutCaches(doc: PDFKit.PDFDocument, names: string[]): voi
   }
   for (const name of names) {
     doc.font(name);
-    const font = (doc as unknown as { _font?: { layoutCache?: unknown } })._font;
+    const font = currentFont(doc);
     if (!font || typeof font.layoutCache !== 'object' || font.layoutCache === null) continue;
     let shared = layoutCaches.get(name);
     if (!shared) layoutCaches.set(name, (shared = font.layoutCache as Record<string, unknown>));
     font.layoutCache = shared;
   }
+}
+
+/**
+ * What no longer works of the private pdfkit hooks above, in words (empty: all work, as with the
+ * pinned pdfkit). Checks: the installed pdfkit is the version the hooks were written against;
+ * fontkit is reachable through pdfkit with `create` and `registerFormat`; the shared-font format
+ * was accepted (reportFontSources returns the short tags, not the TTF bytes); a document's current
+ * font has an object `layoutCache`, and two documents end up sharing one after
+ * shareLayoutCaches. Cost: parses the fonts once (if not yet) and opens two empty documents.
+ */
+export function pdfkitHookProblems(): string[] {
+  const problems: string[] = [];
+  const here = 'src/report/fonts.ts';
+  const version = (createRequire(require.resolve('pdfkit'))('../package.json') as { version?: string }).version;
+  if (version !== PDFKIT_PIN) {
+    problems.push(`pdfkit is ${version}, the private hooks in ${here} were written against ${PDFKIT_PIN}: re-check them (the other lines of this list) and move PDFKIT_PIN`);
+  }
+  let fontkit: Partial<Fontkit> | null = null;
+  try {
+    fontkit = createRequire(require.resolve('pdfkit'))('fontkit') as Partial<Fontkit>;
+  } catch (e) {
+    problems.push(`pdfkit no longer resolves its own 'fontkit' (${e instanceof Error ? e.message : String(e)}): ${here} cannot share parsed fonts`);
+  }
+  if (fontkit && (typeof fontkit.create !== 'function' || typeof fontkit.registerFormat !== 'function')) {
+    problems.push(`pdfkit's fontkit has no create/registerFormat functions any more: ${here} cannot share parsed fonts`);
+  }
+  const s = reportFontSources();
+  if (s === cache) problems.push(`the shared-font hook fell back to the TTF bytes (${sharedFontProblem ?? 'no error recorded'}): every report parses the fonts again`);
+  const docs = [0, 1].map(() => {
+    const doc = new PDFDocument({ autoFirstPage: false });
+    doc.registerFont('R', s.regular);
+    shareLayoutCaches(doc, ['R']);
+    return currentFont(doc);
+  });
+  if (!docs[0] || typeof docs[0].layoutCache !== 'object' || docs[0].layoutCache === null) {
+    problems.push(`pdfkit's current font (doc._font) has no object layoutCache any more: ${here} cannot share word layouts`);
+  } else if (s !== cache && docs[0].layoutCache !== docs[1]?.layoutCache) {
+    problems.push(`two documents do not share the word-layout cache after shareLayoutCaches: ${here}`);
+  }
+  return problems;
 }
