@@ -7,7 +7,7 @@
  * (about as much CPU as a few units), which the main thread has already paid or pays anyway.
  * With `jobs` = 'auto' (the default) the work decides: the main thread starts alone, and after
  * each of its tasks (from the third on) the pool estimates the work left (tasks left × the
- * main thread's fastest task time); workers (cores − 1) are started only when that is more than WORTH_IT times what a
+ * main thread's fastest task, in CPU time); workers (cores − 1) are started only when that is more than WORTH_IT times what a
  * worker costs to start, so a build that one thread finishes sooner never pays for workers.
  * Tasks are handed out one at a time from a shared counter (the next free lane takes the next
  * task); each worker holds up to two tasks, so it does not sit idle while the main thread is busy
@@ -93,14 +93,18 @@ export class TaskPool {
     const startMs = tasks[0].report ? WORKER_START_MS.pdf : WORKER_START_MS.plain;
     // The fastest task so far: the first ones also pay JIT warm-up (and font loading with PDFs),
     // 3–5× a warm task on the bench build, which would overstate the work left; decide from the
-    // third task on.
+    // third task on. Measured in CPU time, like WORKER_START_MS: on a machine busy with other
+    // work a task's wall time grows several-fold (we get a share of a core) while a worker's
+    // start-up grows alike, so wall time would start workers that cannot pay off (a 20-unit
+    // build without PDFs took 1.36× --jobs 1 at load 10 on 2 cores).
     let fastestMs = Infinity, mainDone = 0;
     const mainLane = async (): Promise<void> => {
       for (let i = take(); i !== null; i = take()) {
         hooks.onStart?.(tasks[i]);
-        const t0 = performance.now();
+        const c0 = process.cpuUsage();
         finish(i, await safeRunTask(tasks[i]));
-        fastestMs = Math.min(fastestMs, performance.now() - t0);
+        const c = process.cpuUsage(c0);
+        fastestMs = Math.min(fastestMs, (c.user + c.system) / 1000);
         mainDone++;
         // 'auto': is the work left worth the workers' start-up?
         if (auto && this.workers.length === 0 && !stop() && mainDone >= 3 && workersPayOff(tasks.length - next, fastestMs, startMs)) startWorkers();
