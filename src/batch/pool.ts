@@ -53,6 +53,20 @@ export function workersPayOff(tasksLeft: number, meanTaskMs: number, startMs: nu
   return tasksLeft * meanTaskMs > WORTH_IT * startMs;
 }
 
+/**
+ * Run one task on this thread and measure its CPU time (the process's, which is this thread's
+ * while no worker runs). CPU time, like WORKER_START_MS: on a machine busy with other work a
+ * task's wall time grows several-fold (we get a share of a core) while a worker's start-up grows
+ * alike, so wall time would start workers that cannot pay off (a 20-unit build without PDFs
+ * took 1.36× `--jobs 1` at load 10 on 2 cores).
+ */
+async function taskWithCpu(task: TaskInput): Promise<{ out: TaskOutput; cpuMs: number }> {
+  const c0 = process.cpuUsage();
+  const out = await safeRunTask(task);
+  const c = process.cpuUsage(c0);
+  return { out, cpuMs: (c.user + c.system) / 1000 };
+}
+
 /** `--jobs`: a fixed number of lanes, or 'auto' (up to the machine's cores, decided from the work). */
 export type Jobs = number | 'auto';
 
@@ -91,20 +105,15 @@ export class TaskPool {
       workerLanes.push(...this.workers.map(workerLane));
     };
     const startMs = tasks[0].report ? WORKER_START_MS.pdf : WORKER_START_MS.plain;
-    // The fastest task so far: the first ones also pay JIT warm-up (and font loading with PDFs),
-    // 3–5× a warm task on the bench build, which would overstate the work left; decide from the
-    // third task on. Measured in CPU time, like WORKER_START_MS: on a machine busy with other
-    // work a task's wall time grows several-fold (we get a share of a core) while a worker's
-    // start-up grows alike, so wall time would start workers that cannot pay off (a 20-unit
-    // build without PDFs took 1.36× --jobs 1 at load 10 on 2 cores).
+    // The fastest task so far (CPU time, taskWithCpu): the first ones also pay JIT warm-up, 3–5×
+    // a warm task on the bench build, which would overstate the work left; decide from the third.
     let fastestMs = Infinity, mainDone = 0;
     const mainLane = async (): Promise<void> => {
       for (let i = take(); i !== null; i = take()) {
         hooks.onStart?.(tasks[i]);
-        const c0 = process.cpuUsage();
-        finish(i, await safeRunTask(tasks[i]));
-        const c = process.cpuUsage(c0);
-        fastestMs = Math.min(fastestMs, (c.user + c.system) / 1000);
+        const { out, cpuMs } = await taskWithCpu(tasks[i]);
+        finish(i, out);
+        fastestMs = Math.min(fastestMs, cpuMs);
         mainDone++;
         // 'auto': is the work left worth the workers' start-up?
         if (auto && this.workers.length === 0 && !stop() && mainDone >= 3 && workersPayOff(tasks.length - next, fastestMs, startMs)) startWorkers();
