@@ -14,11 +14,8 @@ const ROOT = path.resolve(__dirname, '..');
 /** Our limit in lines (the issue's "about 60"). */
 const LIMIT = 60;
 
-/**
- * Folders held to the limit. src/report joins once its split (issue 14) lands; add a folder here
- * when its functions are short.
- */
-const CHECKED = ['src/batch'];
+/** Folders held to the limit; add a folder here when its functions are short. */
+const CHECKED = ['src/batch', 'src/report'];
 
 /**
  * Functions still over the limit, each with the length it may not grow past and why it is

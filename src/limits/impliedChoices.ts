@@ -24,12 +24,20 @@ export interface ImpliedChoices {
  * @example impliedChoices(null, [8, 14]) // { threshold: 8, levelPct: 50 }
  */
 export function impliedChoices(ls: Pick<LimitSet, 'checks'> | null | undefined, requestedThresholds: number[]): ImpliedChoices {
-  const checks = ls?.checks ?? [];
-  const pct = checks.find((c) => c.kind === 'percentile');
   return {
     threshold: analysisThreshold(ls, requestedThresholds)?.value ?? null,
-    levelPct: pct?.kind === 'percentile' ? pct.levelPct : 50,
+    levelPct: impliedLevelPct(ls?.checks ?? []),
   };
+}
+
+/**
+ * The level part of impliedChoices on its own, for a reader that holds checks but not the limit
+ * set (the report reads the judged checks of a result): the first percentile check's level, else
+ * 50 %. Limit-set checks and judged checks both carry `kind` and, for percentile checks, `levelPct`.
+ * @example impliedLevelPct([{ kind: 'min-peak' }, { kind: 'percentile', levelPct: 20 }]) // 20
+ */
+export function impliedLevelPct(checks: readonly { kind: string; levelPct?: number }[]): number {
+  return checks.find((c) => c.kind === 'percentile')?.levelPct ?? 50;
 }
 
 /**

@@ -31,24 +31,24 @@ function ruleText(r: UnitResult): string {
   }
 }
 
-/** Polarization page of a unit PDF; draws nothing for a unit without components. */
-export function polarizationSection(doc: Doc, input: UnitReportInput): void {
-  const r = input.result;
+/** The levels the checks judge first, then the median and the tails; at most five columns. */
+function tableLevels(r: UnitResult): number[] {
   const pols = r.polarizations ?? [];
-  if (pols.length === 0) return;
-  heading(doc, `Polarizations θ and φ (${quantityLabel(r.quantity)})`, 260);
-  note(doc, ruleText(r));
-  const u = r.valueUnit;
-  // The levels the checks judge first, then the median and the tails; at most five columns.
   const have = new Set(pols.flatMap((p) => p.tsp.percentiles.map((x) => x.levelPct)));
-  const levels = [...new Set([...r.checks.flatMap((c) => (c.levelPct === undefined ? [] : [c.levelPct])), 50, 5, 95, 85])]
+  return [...new Set([...r.checks.flatMap((c) => (c.levelPct === undefined ? [] : [c.levelPct])), 50, 5, 95, 85])]
     .filter((l) => have.has(l)).slice(0, 5).sort((a, b) => a - b);
-  const w = contentWidth(doc);
+}
+
+/** One row per polarization (and, unless each is judged, the verdict's own row first): best value, the levels, the verdict. */
+function polarizationTable(doc: Doc, r: UnitResult): void {
+  const pols = r.polarizations ?? [];
+  const u = r.valueUnit;
+  const levels = tableLevels(r);
   const cols: Column[] = [
     { header: 'Polarization', width: 100 },
     { header: `Best (${u})`, width: 60, align: 'right' },
     ...levels.map((l): Column => ({ header: `${fmt(l, l % 1 === 0 ? 0 : 1)} % (${u})`, width: 58, align: 'right' })),
-    { header: 'Verdict', width: Math.max(70, w - 160 - 58 * levels.length) },
+    { header: 'Verdict', width: Math.max(70, contentWidth(doc) - 160 - 58 * levels.length) },
   ];
   const rows = pols.map((p) => [
     `${POL_LABEL[p.name]}${p.name === r.limitingPolarization ? ' (limiting)' : ''}`,
@@ -62,26 +62,35 @@ export function polarizationSection(doc: Doc, input: UnitReportInput): void {
       r.verdict === 'pass' ? '✓ pass' : r.verdict === 'fail' ? '✗ FAIL' : 'not judged']);
   }
   table(doc, cols, rows, { emphasis: (k) => rows[k][rows[k].length - 1].includes('FAIL') });
-  if (r.polarizationRule === 'each' && r.checks.length) {
-    const byPol = (p: Polarization, k: number) => pols.find((x) => x.name === p)?.checks[k];
-    const cw: Column[] = [
-      { header: 'Check', width: w - 300 }, { header: 'θ value', width: 62, align: 'right' }, { header: 'φ value', width: 62, align: 'right' },
-      { header: 'Judged at', width: 62, align: 'right' }, { header: 'Limiting', width: 50, align: 'center' }, { header: 'Result', width: 64, align: 'center' },
-    ];
-    const val = (v: number | null | undefined, fraction: boolean) => (v === null || v === undefined ? '—' : fraction ? `${fmt(100 * v, 1)} %` : `${fmt(v)} ${u}`);
-    table(doc, cw, r.checks.map((c, k) => {
-      const fr = c.marginUnit === 'fraction';
-      return [c.name, val(byPol('theta', k)?.value, fr), val(byPol('phi', k)?.value, fr), val(c.effectiveLimit, fr),
-        c.polarization ? POL_LABEL[c.polarization] : '—', c.status === 'pass' ? '✓ both' : c.status === 'fail' ? '✗ FAIL' : 'not evaluable'];
-    }), { emphasis: (k) => r.checks[k].status === 'fail' });
-  }
+}
+
+/** EIS judged per polarization: every check's value in both, the judged-at limit and the limiting one. */
+function checksByPolarization(doc: Doc, r: UnitResult): void {
+  const pols = r.polarizations ?? [];
+  const u = r.valueUnit;
+  const byPol = (p: Polarization, k: number) => pols.find((x) => x.name === p)?.checks[k];
+  const cw: Column[] = [
+    { header: 'Check', width: contentWidth(doc) - 300 }, { header: 'θ value', width: 62, align: 'right' }, { header: 'φ value', width: 62, align: 'right' },
+    { header: 'Judged at', width: 62, align: 'right' }, { header: 'Limiting', width: 50, align: 'center' }, { header: 'Result', width: 64, align: 'center' },
+  ];
+  const val = (v: number | null | undefined, fraction: boolean) => (v === null || v === undefined ? '—' : fraction ? `${fmt(100 * v, 1)} %` : `${fmt(v)} ${u}`);
+  table(doc, cw, r.checks.map((c, k) => {
+    const fr = c.marginUnit === 'fraction';
+    return [c.name, val(byPol('theta', k)?.value, fr), val(byPol('phi', k)?.value, fr), val(c.effectiveLimit, fr),
+      c.polarization ? POL_LABEL[c.polarization] : '—', c.status === 'pass' ? '✓ both' : c.status === 'fail' ? '✗ FAIL' : 'not evaluable'];
+  }), { emphasis: (k) => r.checks[k].status === 'fail' });
+}
+
+/** Each polarization's TSP CDF (and the verdict's own curve unless each is judged), keyed on the right. */
+function polarizationCdfs(doc: Doc, input: UnitReportInput): void {
+  const r = input.result;
   const curves: CurveStyle[] = (input.polarizationCdfs ?? []).map((c) => ({
     curve: c.curve, color: POL_COLOR[c.name], width: 1.2, dash: c.name === 'phi', label: POL_LABEL[c.name],
   }));
   if (curves.length === 0) return;
   if (r.polarizationRule !== 'each' && input.tspCdf) curves.unshift({ curve: input.tspCdf, color: INK, width: 1.5, label: 'verdict' });
-  const box = { x: MARGIN.left + 44, y: doc.y + 8, w: w - 44 - 110, h: 170 };
-  drawCdfPlot(doc, box, r.quantity, u, curves, [], [], []);
+  const box = { x: MARGIN.left + 44, y: doc.y + 8, w: contentWidth(doc) - 44 - 110, h: 170 };
+  drawCdfPlot(doc, box, r.quantity, r.valueUnit, curves, [], [], []);
   let ly = box.y + 6;
   for (const c of curves) {
     const lx = box.x + box.w + 14;
@@ -96,4 +105,15 @@ export function polarizationSection(doc: Doc, input: UnitReportInput): void {
   }
   doc.y = box.y + box.h + 28;
   note(doc, 'Solid-angle-weighted distribution of each polarization\'s own total scan pattern over 4π (drawn as in the CDF section).');
+}
+
+/** Polarization page of a unit PDF; draws nothing for a unit without components. */
+export function polarizationSection(doc: Doc, input: UnitReportInput): void {
+  const r = input.result;
+  if ((r.polarizations ?? []).length === 0) return;
+  heading(doc, `Polarizations θ and φ (${quantityLabel(r.quantity)})`, 260);
+  note(doc, ruleText(r));
+  polarizationTable(doc, r);
+  if (r.polarizationRule === 'each' && r.checks.length) checksByPolarization(doc, r);
+  polarizationCdfs(doc, input);
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analysisThreshold, impliedChoices } from '../../src/limits/impliedChoices.js';
+import { analysisThreshold, impliedChoices, impliedLevelPct } from '../../src/limits/impliedChoices.js';
 import type { LimitCheck } from '../../src/limits/limitSet.js';
 
 const cov: LimitCheck = { kind: 'min-coverage', name: 'c', threshold: 8, minEfficiency: 0.5, toleranceDb: 1 };
@@ -18,5 +18,13 @@ describe('limit-implied choices: one threshold and one level for holes, contour,
     expect(analysisThreshold({ checks: [pct] }, [3])).toEqual({ value: 11.5, source: 'percentile-check', toleranceApplied: false });
     expect(analysisThreshold(null, [3, 4])).toEqual({ value: 3, source: 'requested', toleranceApplied: false });
     expect(analysisThreshold({ checks: [] }, [])).toBeNull();
+  });
+});
+
+describe('impliedLevelPct: the same level from judged checks (the report) as from the limit set (the batch)', () => {
+  it('first percentile check, else 50 %', () => {
+    expect(impliedLevelPct([cov, pct])).toBe(impliedChoices({ checks: [cov, pct] }, []).levelPct);
+    expect(impliedLevelPct([cov, pct])).toBe(20);
+    expect(impliedLevelPct([{ kind: 'min-coverage' }])).toBe(50);
   });
 });
