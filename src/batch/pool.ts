@@ -8,13 +8,14 @@
  * With `jobs` = 'auto' (the default) the work decides: the main thread starts alone, and after
  * each of its tasks (from the third on) the pool estimates the work left (tasks left × the
  * main thread's fastest task, in CPU time); workers (cores − 1) are started only when that is more than WORTH_IT times what a
- * worker costs to start, so a build that one thread finishes sooner never pays for workers.
+ * worker costs to start, so a build that one thread finishes sooner never pays for workers, and
+ * only while the machine has a core to spare (coreToSpare).
  * Tasks are handed out one at a time from a shared counter (the next free lane takes the next
  * task); each worker holds up to two tasks, so it does not sit idle while the main thread is busy
  * with a task of its own and cannot answer at once.
  */
 import { Worker } from 'node:worker_threads';
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { safeRunTask, type TaskInput, type TaskOutput } from './unitTask.js';
@@ -67,6 +68,17 @@ async function taskWithCpu(task: TaskInput): Promise<{ out: TaskOutput; cpuMs: n
   return { out, cpuMs: (c.user + c.system) / 1000 };
 }
 
+/**
+ * 'auto' starts workers only while the machine has a core to spare: with the 1-minute load
+ * average at or above the core count, other processes already keep every core busy, and a worker
+ * adds its start-up without a core to run on (20-unit build with PDFs at load 11 on 2 cores:
+ * 8.5–9.0 s of CPU and 21–23 s wall with a worker, 4.7–5.8 s and 12–16 s with --jobs 1). A
+ * platform without a load average (0) always has one.
+ */
+export function coreToSpare(load1: number, cores: number): boolean {
+  return load1 < cores;
+}
+
 /** `--jobs`: a fixed number of lanes, or 'auto' (up to the machine's cores, decided from the work). */
 export type Jobs = number | 'auto';
 
@@ -116,7 +128,7 @@ export class TaskPool {
         fastestMs = Math.min(fastestMs, cpuMs);
         mainDone++;
         // 'auto': is the work left worth the workers' start-up?
-        if (auto && this.workers.length === 0 && !stop() && mainDone >= 3 && workersPayOff(tasks.length - next, fastestMs, startMs)) startWorkers();
+        if (auto && this.workers.length === 0 && !stop() && mainDone >= 3 && workersPayOff(tasks.length - next, fastestMs, startMs) && coreToSpare(loadavg()[0], wanted)) startWorkers();
       }
     };
 

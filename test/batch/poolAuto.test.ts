@@ -1,6 +1,6 @@
 // The default --jobs ('auto') starts workers only when the work left outweighs their start-up.
 import { describe, expect, it } from 'vitest';
-import { workersPayOff } from '../../src/batch/pool.js';
+import { coreToSpare, workersPayOff } from '../../src/batch/pool.js';
 import { parseJobs } from '../../src/cli/parse.js';
 
 describe("--jobs 'auto'", () => {
@@ -13,6 +13,16 @@ describe("--jobs 'auto'", () => {
     expect(workersPayOff(33, 50, 550)).toBe(false);
     expect(workersPayOff(34, 50, 550)).toBe(true);
     expect(workersPayOff(0, 1e6, 550)).toBe(false);
+  });
+
+  it('starts no worker while other processes keep every core busy', () => {
+    // 1-minute load average against the core count: below it a core is idle part of the time.
+    expect(coreToSpare(0.3, 2)).toBe(true);
+    expect(coreToSpare(1.9, 2)).toBe(true);
+    expect(coreToSpare(2, 2)).toBe(false);
+    expect(coreToSpare(11, 2)).toBe(false);
+    // Platforms without a load average report 0.
+    expect(coreToSpare(0, 2)).toBe(true);
   });
 
   it('is the word auto or a whole number on the command line', () => {
