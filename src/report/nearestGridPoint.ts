@@ -1,10 +1,9 @@
 import type { SphereGrid } from '../types.js';
-import { unitVector, unitVectors } from '../sphere/direction.js';
+import { nearestPointFinder } from '../sphere/nearestPoint.js';
 
 /** Returns the index of the grid point whose cell holds (θ, φ), or −1 if it is not measured. */
 export type NearestLookup = (thetaDeg: number, phiDeg: number) => number;
 
-const RAD = Math.PI / 180;
 
 /** Index of the value in a sorted array nearest to x (ties to the lower index). */
 function nearestSorted(arr: ArrayLike<number>, lo: number, hi: number, x: number): number {
@@ -26,8 +25,8 @@ function nearestSorted(arr: ArrayLike<number>, lo: number, hi: number, x: number
  * the cell; outside the outermost half-steps the direction is unmeasured. The φ seam wraps when
  * the layout says so. Cost: O(log rows + log cols) a query.
  *
- * Scattered grids: nearest point by angular distance, found in θ/φ buckets about one point
- * spacing wide; a direction farther than 0.8·√(median cell solid angle) from every point is
+ * Scattered grids: nearest point by angular distance (src/sphere/nearestPoint.ts, the one
+ * finder); a direction farther than 0.8·√(median cell solid angle) from every point is
  * unmeasured (a square cell's half-diagonal is 0.71·√A, a hexagon's circumradius 0.62·√A).
  * Cost: O(points) to build, about O(1) a query.
  */
@@ -72,39 +71,8 @@ function regularLookup(grid: SphereGrid): NearestLookup {
 }
 
 function scatteredLookup(grid: SphereGrid): NearestLookup {
-  const n = grid.thetaDeg.length;
-  const { x: ux, y: uy, z: uz } = unitVectors(grid.thetaDeg, grid.phiDeg);
   const sortedW = Float64Array.from(grid.weightSr).sort();
-  const maxGapRad = 0.8 * Math.sqrt(sortedW[n >> 1] || 4 * Math.PI);
-  const cosMax = Math.cos(Math.min(Math.PI, maxGapRad));
-  const cellDeg = Math.min(30, Math.max(0.5, maxGapRad / RAD));
-  const nT = Math.ceil(180 / cellDeg);
-  const nP = Math.ceil(360 / cellDeg);
-  const buckets: number[][] = Array.from({ length: nT * nP }, () => []);
-  const bt = (t: number) => Math.min(nT - 1, Math.floor(t / cellDeg));
-  const bp = (p: number) => ((Math.floor(p / cellDeg) % nP) + nP) % nP;
-  for (let i = 0; i < n; i++) buckets[bt(grid.thetaDeg[i]) * nP + bp(grid.phiDeg[i])].push(i);
-  return (thetaDeg, phiDeg) => {
-    const [qx, qy, qz] = unitVector(thetaDeg, phiDeg);
-    let best = -1;
-    let bestDot = cosMax;
-    const r0 = bt(thetaDeg);
-    for (let r = Math.max(0, r0 - 1); r <= Math.min(nT - 1, r0 + 1); r++) {
-      // Near the poles a bucket row spans little arc length: widen the φ search there.
-      const sinRow = Math.max(1e-3, Math.min(Math.sin(r * cellDeg * RAD), Math.sin(Math.min(180, (r + 1) * cellDeg) * RAD)));
-      const span = Math.min(nP, Math.ceil(1 / sinRow) + 1);
-      const c0 = bp(phiDeg);
-      for (let dc = -span; dc <= span; dc++) {
-        if (2 * span + 1 > nP && (dc < 0 || dc >= nP)) continue;
-        for (const i of buckets[r * nP + (((c0 + dc) % nP) + nP) % nP]) {
-          const dot = qx * ux[i] + qy * uy[i] + qz * uz[i];
-          if (dot > bestDot) {
-            bestDot = dot;
-            best = i;
-          }
-        }
-      }
-    }
-    return best;
-  };
+  const maxAngleRad = 0.8 * Math.sqrt(sortedW[grid.weightSr.length >> 1] || 4 * Math.PI);
+  const finder = nearestPointFinder(grid.thetaDeg, grid.phiDeg, { maxAngleRad });
+  return (thetaDeg, phiDeg) => finder.nearest(thetaDeg, phiDeg);
 }
