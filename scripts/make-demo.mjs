@@ -234,7 +234,7 @@ const JOB_FILE = `# Job file of the spherecov demo build (invented device; see R
 # Shipped limit profile plus programme-specific coverage checks of the invented programme.
 limits: 3gpp-fr2-pc3-n257
 checks:
-${PROGRAMME.map((c) => `  - { kind: min-coverage, threshold: ${c.thresholdDbm}, minEfficiency: ${c.minEfficiency}, name: "programme: ${Math.round(c.minEfficiency * 100)} % of sphere ≥ ${c.thresholdDbm} dBm" }`).join('\n')}
+${PROGRAMME.map((c) => `  - { kind: min-coverage, threshold: ${c.thresholdDbm}, min_efficiency: ${c.minEfficiency}, name: "programme: ${Math.round(c.minEfficiency * 100)} % of sphere ≥ ${c.thresholdDbm} dBm" }`).join('\n')}
 reference: RV28-P1-001
 test_info:
   chamber: CATR-2 (invented)

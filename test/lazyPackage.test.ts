@@ -42,7 +42,7 @@ describe('lazyPackage (issue 18: packages load when used)', () => {
     };
     const main = path.join(ROOT, 'dist', 'cli', 'main.js');
     const atStart = run(`await import(${JSON.stringify(main)});`);
-    for (const p of ['yaml', 're2js', 'pngjs', 'pdfkit', 'd3-geo-voronoi', 'd3-geo']) expect(atStart.has(p), p).toBe(false);
+    for (const p of ['yaml', 'zod', 're2js', 'pngjs', 'pdfkit', 'd3-geo-voronoi', 'd3-geo']) expect(atStart.has(p), p).toBe(false);
     expect(atStart.has('commander')).toBe(true);
     // …and on first use (a scattered grid's Voronoi weights, a limit profile).
     const used = run(`
@@ -54,6 +54,6 @@ describe('lazyPackage (issue 18: packages load when used)', () => {
       if (g.regular) throw new Error('expected a scattered grid');
       if (!loadLimitSet('3gpp-fr2-pc3-n257').limitSet) throw new Error('profile not loaded');
     `);
-    for (const p of ['yaml', 'd3-geo-voronoi']) expect(used.has(p), p).toBe(true);
+    for (const p of ['yaml', 'zod', 'd3-geo-voronoi']) expect(used.has(p), p).toBe(true);
   });
 });

@@ -81,6 +81,8 @@ export interface AnalyzePlan {
   reference: ReferencePlan;
   /** Work groups (unit folder or file stem) → absolute files, in discovery order. */
   groups: Map<string, string[]>;
+  /** Configuration keys read in an old spelling (job file, limit set), each naming the new key. */
+  configNotices: string[];
 }
 
 /**
@@ -95,8 +97,9 @@ export async function planAnalyze(opts: AnalyzeOptions): Promise<AnalyzePlan> {
   const problem = await outputDirProblem(input, outDir, opts.force === true);
   if (problem) throw new RunError(problem);
   const discovery = await discover(input, opts.input, [outDir]);
-  const job = await loadJob(opts, discovery.jobFile);
-  const limitSet = planLimits(opts, job);
+  const configNotices: string[] = [];
+  const job = await loadJob(opts, discovery.jobFile, configNotices);
+  const limitSet = planLimits(opts, job, configNotices);
   const metrics = metricLists({
     percentilesPct: opts.percentilesPct ?? job?.percentiles ?? DEFAULT_PERCENTILES_PCT,
     thresholds: opts.thresholds ?? job?.coverageThresholds,
@@ -107,7 +110,7 @@ export async function planAnalyze(opts: AnalyzeOptions): Promise<AnalyzePlan> {
   const groups = groupFiles(discovery, job);
   const reference = await planReference(opts, input, outDir, groups, discovery, job);
   const uncertainty = job?.uncertainty ?? limitSet?.uncertainty ?? null;
-  return { opts, input, discovery, job, limitSet, metrics, uncertainty, output, reference, groups };
+  return { opts, input, discovery, job, limitSet, metrics, uncertainty, output, reference, groups, configNotices };
 }
 
 /**
@@ -148,12 +151,13 @@ async function discover(abs: string, shown: string, exclude: string[]): Promise<
 }
 
 /** The job file: --job, else the input folder's own; the parser loads only when there is one. */
-async function loadJob(opts: AnalyzeOptions, found: string | null): Promise<JobSpec | null> {
+async function loadJob(opts: AnalyzeOptions, found: string | null, notices: string[]): Promise<JobSpec | null> {
   const file = opts.jobFile ?? found;
   if (!file) return null;
   if (opts.jobFile && !existsSync(opts.jobFile)) throw new RunError(`--job: '${opts.jobFile}' does not exist`);
   const { loadJobFile } = await import('../io/jobFile.js');
-  const { job, errors } = loadJobFile(file);
+  const { job, errors, notices: old } = loadJobFile(file);
+  notices.push(...old.map(formatError));
   if (errors.length > 0 || !job) {
     throw new RunError(`the job file could not be used:\n  ${errors.map(formatError).join('\n  ')}`);
   }
@@ -166,12 +170,13 @@ async function loadJob(opts: AnalyzeOptions, found: string | null): Promise<JobS
  * A limit-set path in the job file is relative to the job file, one on the command line to the
  * working directory: the verdict never depends on where the command is run from.
  */
-function planLimits(opts: AnalyzeOptions, job: JobSpec | null): LimitSet | null {
+function planLimits(opts: AnalyzeOptions, job: JobSpec | null, notices: string[]): LimitSet | null {
   const fromJob = opts.limits === undefined;
   const name = opts.limits ?? job?.limits;
   let base: LimitSet | null = null;
   if (name) {
-    const { limitSet, errors } = loadLimitSet(name, fromJob && job ? path.dirname(job.source) : process.cwd());
+    const { limitSet, errors, notices: old } = loadLimitSet(name, fromJob && job ? path.dirname(job.source) : process.cwd());
+    notices.push(...old.map(formatError));
     if (!limitSet) throw new RunError(`${fromJob ? "the job file's limits" : '--limits'}: ${errors.map(formatError).join('; ')}`);
     base = limitSet;
   }

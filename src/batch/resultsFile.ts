@@ -44,7 +44,7 @@ export function assembleResults(plan: AnalyzePlan, analyzed: { outputs: TaskOutp
   const build = units.length + notAnalyzed.length > 0 ? buildStatistics(units, notAnalyzed) : null;
   const sure = buildConfidence(units); // issue 17: only when the units carry a measurement uncertainty
   if (build && sure) build.confidence = sure;
-  const warnings = [...outputs.flatMap((o) => o.warnings).map(warningText), ...(referenceProblem ? [referenceProblem] : [])];
+  const warnings = [...plan.configNotices, ...outputs.flatMap((o) => o.warnings).map(warningText), ...(referenceProblem ? [referenceProblem] : [])];
   const results: ResultsFile = {
     schemaVersion: 1,
     tool: { name: 'spherecov', version: TOOL_VERSION },

@@ -66,6 +66,8 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   if (opts.signal?.aborted === true) throw new InterruptedError(`${interruptName(opts.signal)} before any output was written; the previous run's files are unchanged`);
   const { writer, release } = await openOutput(plan, opts);
   const io = opts.io ?? silentIo;
+  // Configuration keys read in an old spelling: on stderr (and in results.json settings.warnings).
+  if (!opts.quiet) for (const n of plan.configNotices) io.stderr(`spherecov: ${n}\n`);
   const run: Run = {
     plan, io, signal: opts.signal, writer, pool: new TaskPool(), tasks, stage: 'analyzing',
     progress: new Progress(tasks.length, io.stderrIsTTY && !opts.quiet ? io.stderr : null),

@@ -10,16 +10,16 @@
  * value ≤ limit. Coverage kinds judge a fraction of 4π (always a lower bound, margin in fraction).
  *
  * Adding a kind: its name in `CheckKind` (src/types.ts), its shape in `LimitCheck`
- * (limitSet.ts), and its entry here. See DEVELOPERS.md "How to add a check kind".
+ * (limitSet.ts), and its entry here. Its `fields` (a zod shape of the keys a limit file writes, in
+ * snake_case) are the kind's whole validation: src/config/limitSetSchema.ts builds the limit-set
+ * schema and the published JSON Schema from them. See DEVELOPERS.md "How to add a check kind".
  */
+import type { z } from 'zod';
 import type { CheckKind, CheckResult, CoverageMetrics, Quantity } from '../types.js';
-import type { CheckDraft, InterBandBand, LimitCheck } from './limitSet.js';
+import { fraction, frequencyRangeMhz, level, num, percent, text } from '../config/fields.js';
+import { zod } from '../config/zod.js';
+import type { CheckDraft, LimitCheck } from './limitSet.js';
 import { betterByDb, isLowerBetter, quantityLabelInText, quantityUnit, worsenedBy } from '../quantity.js';
-
-/** Key path inside a parsed file, e.g. ['checks', 2, 'limit']. */
-export type KeyPath = (string | number)[];
-/** Records one validation error (key path, the value found, what was expected). */
-export type Fail = (path: KeyPath, found: unknown, expected: string) => void;
 
 /** The check of one kind (a shape shared by several kinds, like PeakCheck, narrowed to K). */
 export type CheckOf<K extends CheckKind> = LimitCheck extends infer C ? (C extends { kind: infer CK } ? (K extends CK ? C & { kind: K } : never) : never) : never;
@@ -42,19 +42,15 @@ export interface CheckNeeds {
 /** What an evaluation found: a value (and extra fields for the result), or why it cannot be judged. */
 export type Evaluation = { value: number; extra?: Partial<CheckResult> } | { notEvaluable: string; extra?: Partial<CheckResult> };
 
-/** Reads one validated field of the raw check; NaN (or undefined) after an error was recorded. */
-export interface FieldReader {
-  num(key: string, lo?: number, hi?: number, what?: string): number;
-  raw(key: string): unknown;
-  fail: (key: string, found: unknown, expected: string) => void;
-}
-
 /** Everything a check kind is made of. */
 export interface CheckKindDef<K extends CheckKind> {
-  /** The kind's own keys in a limit file (beside kind, name, toleranceDb, source). */
-  keys: readonly string[];
-  /** Build the kind's fields from the raw mapping (errors through the reader). */
-  validate(read: FieldReader): Omit<DraftOf<K>, 'kind' | 'toleranceDb' | 'source'>;
+  /**
+   * The kind's own keys in a limit file (beside kind, name, tolerance_db, source), snake_case, with
+   * their validation (src/config/fields.ts builders: each says what it expects). The parsed values,
+   * camelized (src/config/naming.ts), are the kind's fields of `DraftOf<K>`. A function, called
+   * when the limit-set schema is built (zod loads then, not with the registry).
+   */
+  fields: () => Record<string, z.ZodType>;
   /** The quantities the kind means something for. */
   appliesTo(q: Quantity): boolean;
   /** Which side of the limit passes. */
@@ -76,8 +72,7 @@ export interface CheckKindDef<K extends CheckKind> {
 const betterSide = (q: Quantity): 'lower' | 'upper' => (isLowerBetter(q) ? 'upper' : 'lower');
 const opOf = (bound: 'lower' | 'upper'): string => (bound === 'lower' ? '≥' : '≤');
 const tolText = (c: { toleranceDb: number }): string => (c.toleranceDb > 0 ? ` (test tolerance ${c.toleranceDb} dB)` : '');
-const limitField = (read: FieldReader) => ({ limit: read.num('limit') });
-const FRACTION = 'a fraction of the sphere between 0 and 1 (0.5 = 50 %)';
+const limitField = () => ({ limit: level() });
 
 /**
  * The CDF level that a min-coverage check is equivalent to (Eq. L4): (1 − e)·100 % for eirp/gain
@@ -97,9 +92,12 @@ function judgedBeams(m: CoverageMetrics, ids: string[] | undefined): CoverageMet
   return beams as CoverageMetrics['beams'];
 }
 
+const BANDS = 'a list of two bands, each { name, frequency_range_mhz: [low, high], limit }';
+const interBandBand = () => zod().strictObject({ name: text(), frequency_range_mhz: frequencyRangeMhz(), limit: level() }, { error: BANDS });
+
 export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
   'min-peak': {
-    keys: ['limit'], validate: limitField, marginUnit: 'dB', limitOf: (c) => c.limit, needs: () => ({}),
+    fields: limitField, marginUnit: 'dB', limitOf: (c) => c.limit, needs: () => ({}),
     bound: betterSide,
     evaluate: (_c, m) => ({ value: m.peak.value }),
     appliesTo: () => true,
@@ -107,8 +105,7 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     defaultName: (_c, q) => `peak ${quantityLabelInText(q)}`,
   },
   percentile: {
-    keys: ['levelPct', 'limit'],
-    validate: (read) => ({ levelPct: read.num('levelPct', 0, 100, 'a CDF level in percent between 0 and 100'), limit: read.num('limit') }),
+    fields: () => ({ level_pct: percent(), limit: level() }),
     appliesTo: () => true,
     bound: betterSide,
     marginUnit: 'dB',
@@ -125,8 +122,7 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     defaultName: (c, q) => `${quantityLabelInText(q)} at ${c.levelPct} %`,
   },
   'min-coverage': {
-    keys: ['threshold', 'minEfficiency'],
-    validate: (read) => ({ threshold: read.num('threshold'), minEfficiency: read.num('minEfficiency', 0, 1, FRACTION) }),
+    fields: () => ({ threshold: level(), min_efficiency: fraction() }),
     appliesTo: () => true,
     bound: () => 'lower',
     marginUnit: 'fraction',
@@ -160,10 +156,9 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     defaultName: (c, q) => `coverage at ${c.threshold} ${quantityUnit(q)}`,
   },
   'min-relative-coverage': {
-    keys: ['dbBelowPeak', 'minEfficiency'],
-    validate: (read) => ({
-      dbBelowPeak: read.num('dbBelowPeak', 0, 100, 'dB below the TSP peak between 0 and 100 (3 = within 3 dB of the best value)'),
-      minEfficiency: read.num('minEfficiency', 0, 1, FRACTION),
+    fields: () => ({
+      db_below_peak: num('dB below the TSP peak between 0 and 100 (3 = within 3 dB of the best value)', 0, 100),
+      min_efficiency: fraction(),
     }),
     appliesTo: () => true,
     bound: () => 'lower',
@@ -184,16 +179,11 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     defaultName: (c) => `coverage within ${c.dbBelowPeak} dB of peak`,
   },
   'min-beam-peak': {
-    keys: ['limit', 'beams'],
-    validate: (read) => {
-      const out: { limit: number; beams?: string[] } = { limit: read.num('limit') };
-      const b = read.raw('beams');
-      if (b !== undefined) {
-        if (Array.isArray(b) && b.length > 0 && b.every((x) => typeof x === 'string' || (typeof x === 'number' && Number.isFinite(x)))) out.beams = b.map(String);
-        else read.fail('beams', b, 'a non-empty list of beam ids');
-      }
-      return out;
-    },
+    fields: () => ({
+      limit: level(),
+      beams: zod().array(zod().union([zod().string(), zod().number()], { error: 'a beam id' }), { error: 'a non-empty list of beam ids' })
+        .min(1, { error: 'a non-empty list of beam ids' }).transform((b) => b.map(String)).optional(),
+    }),
     appliesTo: () => true,
     bound: betterSide,
     marginUnit: 'dB',
@@ -211,7 +201,7 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     defaultName: (_c, q) => `beam peak ${quantityLabelInText(q)}`,
   },
   'max-trp': {
-    keys: ['limit'], validate: limitField, marginUnit: 'dB', limitOf: (c) => c.limit, needs: () => ({}),
+    fields: limitField, marginUnit: 'dB', limitOf: (c) => c.limit, needs: () => ({}),
     // TRP of a gain pattern is a mean gain (not a power), and EIS has no TRP: eirp only.
     appliesTo: (q) => q === 'eirp',
     bound: () => 'upper',
@@ -226,7 +216,7 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     defaultName: () => 'max TRP',
   },
   'max-peak': {
-    keys: ['limit'], validate: limitField, marginUnit: 'dB', limitOf: (c) => c.limit, needs: () => ({}),
+    fields: limitField, marginUnit: 'dB', limitOf: (c) => c.limit, needs: () => ({}),
     bound: () => 'upper',
     evaluate: (_c, m) => ({ value: m.peak.value }),
     // A maximum EIRP has no EIS meaning.
@@ -237,11 +227,10 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
   // Checks joining two measurements of a unit: one measurement's metrics cannot judge them, so they
   // start not evaluable here and src/batch/jointChecks.ts judges them once the partner is found.
   'beam-correspondence': {
-    keys: ['limit', 'levelPct', 'topSharePct'],
-    validate: (read) => ({
-      limit: read.num('limit', 0, 100, 'a maximum ΔEIRP_BC in dB'),
-      levelPct: read.raw('levelPct') === undefined ? 85 : read.num('levelPct', 0, 100, 'a CDF level in percent between 0 and 100'),
-      topSharePct: read.raw('topSharePct') === undefined ? 50 : read.num('topSharePct', 1, 100, 'a share of the sphere in percent between 1 and 100'),
+    fields: () => ({
+      limit: num('a maximum ΔEIRP_BC in dB', 0, 100),
+      level_pct: percent().default(85),
+      top_share_pct: num('a share of the sphere in percent between 1 and 100', 1, 100).default(50),
     }),
     appliesTo: (q) => q === 'eirp',
     bound: () => 'upper',
@@ -253,29 +242,11 @@ export const CHECK_KIND_DEFS: { [K in CheckKind]: CheckKindDef<K> } = {
     defaultName: (c) => `beam correspondence ΔEIRP_BC at ${c.levelPct} %`,
   },
   'inter-band-coverage': {
-    keys: ['levelPct', 'deltaDb', 'bands'],
-    validate: (read) => {
-      const raw = read.raw('bands');
-      const bands: InterBandBand[] = [];
-      const what = 'a list of two bands, each { name, frequencyRangeMHz: [low, high], limit }';
-      if (!Array.isArray(raw) || raw.length !== 2) read.fail('bands', raw, what);
-      else for (const b of raw) {
-        const o = (b ?? {}) as Record<string, unknown>;
-        const r = o.frequencyRangeMHz;
-        const okRange = Array.isArray(r) && r.length === 2 && r.every((x) => typeof x === 'number' && Number.isFinite(x)) && r[0] < r[1];
-        const okKeys = typeof b === 'object' && b !== null && !Array.isArray(b) && Object.keys(o).every((k) => ['name', 'frequencyRangeMHz', 'limit'].includes(k));
-        if (!okKeys || !okRange || typeof o.name !== 'string' || o.name.trim() === '' || typeof o.limit !== 'number' || !Number.isFinite(o.limit)) {
-          read.fail('bands', b, what);
-          continue;
-        }
-        bands.push({ name: o.name, frequencyRangeMHz: [r[0], r[1]] as [number, number], limit: o.limit });
-      }
-      return {
-        levelPct: read.num('levelPct', 0, 100, 'the percentile rank in percent between 0 and 100'),
-        deltaDb: read.num('deltaDb', 0, 30, 'ΔT_IB,S,n in dB between 0 and 30'),
-        bands: bands as [InterBandBand, InterBandBand],
-      };
-    },
+    fields: () => ({
+      level_pct: percent('the percentile rank in percent between 0 and 100'),
+      delta_db: num('ΔT_IB,S,n in dB between 0 and 30', 0, 30),
+      bands: zod().tuple([interBandBand(), interBandBand()], { error: BANDS }),
+    }),
     appliesTo: (q) => q === 'eirp',
     bound: () => 'lower',
     marginUnit: 'fraction',

@@ -3,7 +3,7 @@ export type { LimitSet, LimitCheck, CheckDraft, PeakCheck, PercentileCheck, Cove
 export { CHECK_KINDS } from './limitSet.js';
 export { checkBound, kindAllowed, defaultCheckName } from './checkSense.js';
 export { quantityUnit } from '../quantity.js';
-export { validateLimitSet, validateChecks, validateExtraChecks, errorSink, formatKeyPath, UNKNOWN_KEY, type KeyPath, type Locate, type Fail } from './validateLimitSet.js';
+export { validateLimitSet, validateExtraChecks, formatKeyPath, UNKNOWN_KEY, type KeyPath, type Locate } from './validateLimitSet.js';
 export { parseLimitSetText } from './parseLimitSet.js';
 export { loadLimitSet } from './loadLimitSet.js';
 export { listProfiles } from './listProfiles.js';

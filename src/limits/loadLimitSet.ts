@@ -16,10 +16,11 @@ const EXTENSIONS = ['.yaml', '.yml', '.json'];
  * directory for --limits. Anything else is a profile name. The file is read across the trust
  * boundary (io/trustedFile.ts: a regular file of at most 1 MiB; no FIFO, device or folder).
  *
+ * Keys in the old camelCase spelling are read, each with a deprecation notice (`notices`).
  * Cost: one file read. Never throws: problems come back as InputError values.
  * @example loadLimitSet('3gpp-fr2-pc3-n257').limitSet?.quantity // 'eirp'
  */
-export function loadLimitSet(nameOrPath: string, baseDir: string = process.cwd()): { limitSet: LimitSet | null; errors: InputError[] } {
+export function loadLimitSet(nameOrPath: string, baseDir: string = process.cwd()): { limitSet: LimitSet | null; errors: InputError[]; notices: InputError[] } {
   const looksLikePath = /[\\/]/.test(nameOrPath) || EXTENSIONS.includes(extname(nameOrPath).toLowerCase());
   const asPath = resolveNamed(nameOrPath, baseDir);
   let file: string;
@@ -30,14 +31,14 @@ export function loadLimitSet(nameOrPath: string, baseDir: string = process.cwd()
   } else {
     file = join(limitTemplatesDir(), `${nameOrPath}.yaml`);
     shown = `templates/limits/${nameOrPath}.yaml`;
-    if (!existsSync(file)) return { limitSet: null, errors: [unknownProfile(nameOrPath)] };
+    if (!existsSync(file)) return { limitSet: null, errors: [unknownProfile(nameOrPath)], notices: [] };
   }
   let text: string;
   try {
     text = readTrustedText(file, 'limit set', shown);
   } catch (e) {
     if (!(e instanceof TrustedFileError)) throw e;
-    return { limitSet: null, errors: [{ file: shown, message: e.message }] };
+    return { limitSet: null, errors: [{ file: shown, message: e.message }], notices: [] };
   }
   const out = parseLimitSetText(text, shown);
   if (out.limitSet) out.limitSet.file = file;

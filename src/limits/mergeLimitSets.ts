@@ -2,7 +2,7 @@ import type { LimitCheck, LimitSet } from './limitSet.js';
 
 /**
  * A profile plus a programme's own checks (e.g. from a job file's `limits.extraChecks`, validated
- * with validateChecks). An extra check whose name equals a profile check's name replaces it in
+ * with validateExtraChecks). An extra check whose name equals a profile check's name replaces it in
  * place (a programme tightening a limit or adding its tolerance); the others are appended in
  * order. The base set is not modified.
  *

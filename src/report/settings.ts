@@ -1,7 +1,8 @@
 import { readFileSync } from 'node:fs';
-import { yamlPackage } from '../io/yamlToJs.js';
-import { clipText } from '../io/inputError.js';
 import type { ReportSections, ReportSettings } from './reportTypes.js';
+import { reportSettingsSchema } from '../config/reportSettingsSchema.js';
+import { loadConfigText, validateConfig } from '../config/validateConfig.js';
+import { fileKeys, internalKey } from '../config/naming.js';
 
 /** A report setting with a wrong type or value; the message names the key and what was expected. */
 export class ReportSettingsError extends Error {
@@ -13,39 +14,31 @@ export type ReportSettingsOverrides = Partial<Omit<ReportSettings, 'sections'>> 
 // templates/ sits two levels above both src/report/ and dist/report/.
 const DEFAULT_PATH = new URL('../../templates/report/default.yaml', import.meta.url);
 
-const fail = (key: string, found: unknown, expected: string): never => {
-  throw new ReportSettingsError(`report settings: ${key}: found '${clipText(String(found))}', expected ${expected}`);
-};
+let defaults: ReportSettings | null = null;
 
-function checkSettings(s: ReportSettings): ReportSettings {
-  if (typeof s.title !== 'string') fail('title', s.title, 'a text');
-  if (typeof s.organisation !== 'string') fail('organisation', s.organisation, 'a text');
-  if (s.logo !== null && typeof s.logo !== 'string') fail('logo', s.logo, 'a file path or null');
-  if (s.pageSize !== 'A4' && s.pageSize !== 'Letter') fail('pageSize', s.pageSize, 'A4 or Letter');
-  if (s.colorMap !== 'lumen' && s.colorMap !== 'grey') fail('colorMap', s.colorMap, 'lumen or grey');
-  if (!Number.isFinite(s.mapCenterPhiDeg)) fail('mapCenterPhiDeg', s.mapCenterPhiDeg, 'a number of degrees');
-  if (!Number.isInteger(s.mapWidthPx) || s.mapWidthPx < 100 || s.mapWidthPx > 4000)
-    fail('mapWidthPx', s.mapWidthPx, 'an integer from 100 to 4000');
-  if (s.creationDate !== null && Number.isNaN(Date.parse(String(s.creationDate))))
-    fail('creationDate', s.creationDate, 'an ISO 8601 date or null');
-  for (const [k, v] of Object.entries(s.sections)) if (typeof v !== 'boolean') fail(`sections.${k}`, v, 'true or false');
-  return s;
+/** The shipped defaults, validated by the same schema as a job file's `report:` block. */
+function defaultSettings(): ReportSettings {
+  if (defaults) return defaults;
+  const { value, errors } = loadConfigText(reportSettingsSchema(), readFileSync(DEFAULT_PATH, 'utf8'), 'templates/report/default.yaml');
+  if (!value) throw new ReportSettingsError(errors.map((e) => e.message).join('; '));
+  defaults = value as ReportSettings;
+  return defaults;
 }
 
 /**
- * Report settings: templates/report/default.yaml, then the overrides (e.g. the job file's
- * `report:` block) key by key; `sections` merges per section.
+ * Report settings: templates/report/default.yaml, then the overrides (a job file's `report:`
+ * block, already validated with file:line:column when the job file was loaded, or settings given
+ * in code) key by key; `sections` merges per section. Overrides given in code are checked by the
+ * same schema (src/config/reportSettingsSchema.ts), without a position.
  * @throws ReportSettingsError when a value has the wrong type or an unknown choice.
  */
 export function loadReportSettings(overrides: ReportSettingsOverrides = {}): ReportSettings {
-  const base = yamlPackage().parse(readFileSync(DEFAULT_PATH, 'utf8')) as ReportSettings;
-  const known = new Set(Object.keys(base));
-  for (const k of Object.keys(overrides)) if (!known.has(k)) fail(k, k, `one of ${[...known].join(', ')}`);
-  const creation = overrides.creationDate ?? base.creationDate;
-  return checkSettings({
-    ...base,
-    ...overrides,
-    creationDate: (creation as unknown) instanceof Date ? (creation as unknown as Date).toISOString() : creation,
-    sections: { ...base.sections, ...(overrides.sections ?? {}) },
-  });
+  const base = defaultSettings();
+  const creation = (overrides.creationDate as unknown) instanceof Date ? (overrides.creationDate as unknown as Date).toISOString() : overrides.creationDate;
+  const given = Object.fromEntries(Object.entries({ ...overrides, creationDate: creation }).filter(([, v]) => v !== undefined));
+  const { value, errors } = validateConfig(reportSettingsSchema(), fileKeys(given), 'report settings');
+  // Settings given in code are named in code's spelling (pageSize), as the caller wrote them.
+  const inCode = (m: string, key = '') => m.replace(`${key}:`, `${key.split('.').map(internalKey).join('.')}:`);
+  if (!value) throw new ReportSettingsError(errors.map((e) => inCode(e.message, e.columnName)).join('; '));
+  return { ...base, ...value, sections: { ...base.sections, ...(value.sections ?? {}) } } as ReportSettings;
 }

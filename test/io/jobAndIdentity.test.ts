@@ -107,8 +107,8 @@ describe('job file', () => {
     expect(Object.keys(job!.testInfo!)).toEqual(['operator', 'chamber', 'date_measured', 'rev', 'lid', 'dut_description', 'blank', 'notes']);
     writeFileSync(p, ['test_info:', '  chamber: [a, b]', '  Operator: X', ''].join('\n'));
     expect(loadJobFile(p).errors.map((e) => e.message)).toEqual([
-      "spherecov.yaml:2:12: test_info.chamber: found '[\"a\",\"b\"]', expected a text (one line, or a YAML block with |)",
-      "spherecov.yaml:3:13: test_info.Operator: found 'Operator', expected a key in snake_case, e.g. chamber, operator, date_measured, notes, dut_description",
+      'spherecov.yaml:2:12: test_info.chamber: found a list, expected a text (one line, or a YAML block with |)',
+      "spherecov.yaml:3:3: test_info.Operator: found 'Operator', expected a key in snake_case, e.g. chamber, operator, date_measured, notes, dut_description",
     ]);
     writeFileSync(p, 'test_info: CATR-2\n');
     expect(loadJobFile(p).errors[0].message).toBe("spherecov.yaml:1:12: test_info: found 'CATR-2', expected a mapping of keys to values");

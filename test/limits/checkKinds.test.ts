@@ -17,11 +17,12 @@ describe('check-kind registry', () => {
     expect(CHECK_KINDS).toEqual(['min-peak', 'percentile', 'min-coverage', 'min-relative-coverage', 'min-beam-peak', 'max-trp', 'max-peak', 'beam-correspondence', 'inter-band-coverage']);
     for (const k of CHECK_KINDS) {
       const d = CHECK_KIND_DEFS[k];
-      for (const part of ['validate', 'appliesTo', 'bound', 'limitOf', 'needs', 'evaluate', 'describe', 'defaultName'] as const) {
+      for (const part of ['appliesTo', 'bound', 'limitOf', 'needs', 'evaluate', 'describe', 'defaultName'] as const) {
         expect(typeof d[part], `${k}.${part}`).toBe('function');
       }
       expect(['dB', 'fraction']).toContain(d.marginUnit);
-      expect(d.keys.length, k).toBeGreaterThan(0);
+      expect(Object.keys(d.fields()).length, k).toBeGreaterThan(0);
+      for (const key of Object.keys(d.fields())) expect(key, `${k}: file keys are snake_case`).toMatch(/^[a-z][a-z0-9_]*$/);
     }
   });
 });
@@ -38,24 +39,24 @@ describe('min-relative-coverage: coverage within d dB of the TSP peak ≥ e', ()
     expect(evaluateCheck({ ...c, dbBelowPeak: 6 }, m, 'eirp', true)).toMatchObject({ status: 'not-evaluable', note: 'coverage within 6 dB of the peak was not computed' });
   });
   it('needs the window as written and widened, reads in words, validates its keys', () => {
-    const ls = parseLimitSetText('name: r\nquantity: eis\nchecks:\n  - { kind: min-relative-coverage, dbBelowPeak: 3, minEfficiency: 0.5, toleranceDb: 0.5 }\n', 'r.yaml');
+    const ls = parseLimitSetText('name: r\nquantity: eis\nchecks:\n  - { kind: min-relative-coverage, db_below_peak: 3, min_efficiency: 0.5, tolerance_db: 0.5 }\n', 'r.yaml');
     expect(ls.errors).toEqual([]);
     const set = ls.limitSet!;
     expect(set.checks[0].name).toBe('coverage within 3 dB of peak');
     expect(metricNeeds(set)).toEqual({ percentilesPct: [], thresholds: [], relativeDb: [3, 3.5] });
     expect(describeCheck(set.checks[0], set)).toBe('share of 4π with TSP within 3 dB of the best (lowest) EIS ≥ 50.0 % (test tolerance 0.5 dB)');
-    const bad = parseLimitSetText('name: r\nquantity: eirp\nchecks:\n  - { kind: min-relative-coverage, dbBelowPeak: -1, minEfficiency: 2, limit: 3 }\n', 'r.yaml');
+    const bad = parseLimitSetText('name: r\nquantity: eirp\nchecks:\n  - { kind: min-relative-coverage, db_below_peak: -1, min_efficiency: 2, limit: 3 }\n', 'r.yaml');
     expect(bad.errors.map((e) => e.message.replace(/^r\.yaml:\d+:\d+: /, ''))).toEqual([
-      'checks[0].limit: found an unknown key, expected one of kind, name, toleranceDb, source, dbBelowPeak, minEfficiency for kind min-relative-coverage',
-      "checks[0].dbBelowPeak: found '-1', expected dB below the TSP peak between 0 and 100 (3 = within 3 dB of the best value)",
-      "checks[0].minEfficiency: found '2', expected a fraction of the sphere between 0 and 1 (0.5 = 50 %)",
+      "checks[0].db_below_peak: found '-1', expected dB below the TSP peak between 0 and 100 (3 = within 3 dB of the best value)",
+      "checks[0].min_efficiency: found '2', expected a fraction of the sphere between 0 and 1 (0.5 = 50 %)",
+      'checks[0].limit: found an unknown key, expected one of the keys known here: kind, name, tolerance_db, source, db_below_peak, min_efficiency (the closest is kind)',
     ]);
   });
   beforeAll(() => ensureBuilt(), 180_000);
   it('end to end: a limit file with the kind makes the batch compute the window and judge it', () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'spherecov-relcov-'));
     const limits = path.join(dir, 'rel.yaml');
-    writeFileSync(limits, 'name: rel\nquantity: eirp\nsource: invented for a test\nchecks:\n  - { kind: min-relative-coverage, dbBelowPeak: 10, minEfficiency: 0.2 }\n');
+    writeFileSync(limits, 'name: rel\nquantity: eirp\nsource: invented for a test\nchecks:\n  - { kind: min-relative-coverage, db_below_peak: 10, min_efficiency: 0.2 }\n');
     const out = path.join(dir, 'out');
     const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', path.join(ROOT, 'fixtures', 'cli', 'pass'), '--out', out,
       '--limits', limits, '--no-pdf', '--quiet'], { encoding: 'utf8' });

@@ -49,13 +49,13 @@ function header(lines) {
   return [...lines,
     `Values copied from ${SPEC}: ${VERIFY}.`,
     'Engineering data for development testing: passing this profile is not a conformance claim.',
-    'Test tolerance is 0 dB in every check: add your own agreed values (toleranceDb) per check.',
+    'Test tolerance is 0 dB in every check: add your own agreed values (tolerance_db) per check.',
   ].map((l) => `# ${l}`).join('\n') + '\n';
 }
 
 function write(name, headLines, body) {
   const doc = new Document(body);
-  doc.get('frequencyRangeMHz', true).flow = true;
+  doc.get('frequency_range_mhz', true).flow = true;
   writeFileSync(`${OUT}${name}.yaml`, header(headLines) + doc.toString({ lineWidth: 100, minContentWidth: 40 }));
 }
 
@@ -86,7 +86,7 @@ for (const [pc, [pct, bands]] of Object.entries(TX)) {
     const coverageText = `minimum EIRP at the ${pct} %-tile of the CDF of total EIRP over the full sphere`;
     const peakCheck = (limit, extra = '') => ({ kind: 'min-peak', name: 'minimum peak EIRP', limit,
       source: `${clause}, ${txTable(pc, 1)}${extra}; ${VERIFY}` });
-    const coverageCheck = (limit, extra = '') => ({ kind: 'percentile', name: `spherical coverage EIRP (${pct} %-tile)`, levelPct: pct, limit,
+    const coverageCheck = (limit, extra = '') => ({ kind: 'percentile', name: `spherical coverage EIRP (${pct} %-tile)`, level_pct: pct, limit,
       source: `${clause}, ${txTable(pc, 3)}${extra}: ${coverageText}; ${VERIFY}` });
     const maxChecks = maxTrp === null ? [] : [
       { kind: 'max-trp', name: 'maximum TRP', limit: maxTrp, source: `${clause}, ${txTable(pc, 2)}; ${VERIFY}` },
@@ -109,7 +109,7 @@ for (const [pc, [pct, bands]] of Object.entries(TX)) {
       source: `${clause}; ${VERIFY}`,
       quantity: 'eirp',
       band,
-      frequencyRangeMHz: BANDS[band],
+      frequency_range_mhz: BANDS[band],
       checks: [peakCheck(minPeak), coverageCheck(sph), ...maxChecks],
     });
     if (hasIa) {
@@ -122,7 +122,7 @@ for (const [pc, [pct, bands]] of Object.entries(TX)) {
         source: `${clause}; ${VERIFY}`,
         quantity: 'eirp',
         band,
-        frequencyRangeMHz: BANDS[band],
+        frequency_range_mhz: BANDS[band],
         checks: [coverageCheck(dec(sph - INITIAL_ACCESS_DB), `, minus ${INITIAL_ACCESS_DB} dB for initial access and RRC_INACTIVE (clause 6.2.1.${pc})`), ...maxChecks],
       });
     }
@@ -138,7 +138,7 @@ for (const [pc, [pct, bands]] of Object.entries(TX)) {
         source: `${clause}; ${VERIFY}`,
         quantity: 'eirp',
         band,
-        frequencyRangeMHz: BANDS[band],
+        frequency_range_mhz: BANDS[band],
         checks: [
           peakCheck(dec(minPeak - dPeak), ` minus the ${dPeak} dB multi-band relaxation of ${mbTable}`),
           coverageCheck(dec(sph - dCov), ` minus the ${dCov} dB multi-band relaxation of ${mbTable}`),
@@ -161,11 +161,11 @@ for (const [band, [refsens, sph]] of Object.entries(RX)) {
       source: `${SPEC}, clauses 7.3.2 and 7.3.4; ${VERIFY}`,
       quantity: 'eis',
       band,
-      frequencyRangeMHz: BANDS[band],
+      frequency_range_mhz: BANDS[band],
       checks: [
         { kind: 'min-peak', name: 'REFSENS (peak EIS)', limit: refsens[i],
           source: `${SPEC}, clause 7.3.2, Table 7.3.2.3-1 (${bw} MHz); ${VERIFY}` },
-        { kind: 'percentile', name: 'EIS spherical coverage (50 %-tile)', levelPct: 50, limit: sph[i],
+        { kind: 'percentile', name: 'EIS spherical coverage (50 %-tile)', level_pct: 50, limit: sph[i],
           source: `${SPEC}, clause 7.3.4, Table 7.3.4.3-1 (${bw} MHz): maximum EIS at the 50 %-tile of the CCDF of EIS over the full sphere; ${VERIFY}` },
       ],
     });
@@ -187,9 +187,9 @@ for (const [band, maxDb] of Object.entries(BC)) {
     source: `${SPEC}, clause 6.6.4; ${VERIFY}`,
     quantity: 'eirp',
     band,
-    frequencyRangeMHz: BANDS[band],
+    frequency_range_mhz: BANDS[band],
     checks: [
-      { kind: 'beam-correspondence', name: 'beam correspondence ΔEIRP_BC (85 %-tile)', limit: maxDb, levelPct: 85, topSharePct: 50,
+      { kind: 'beam-correspondence', name: 'beam correspondence ΔEIRP_BC (85 %-tile)', limit: maxDb, level_pct: 85, top_share_pct: 50,
         source: `${SPEC}, clause 6.6.4, Table 6.6.4.2-1: 85th percentile of ΔEIRP_BC over the upper 50 % of EIRP2 ≤ ${maxDb.toFixed(1)} dB; ${VERIFY}` },
     ],
   });
@@ -200,7 +200,7 @@ for (const [band, maxDb] of Object.entries(BC)) {
 // must be at least (100 − 50) %.
 for (const [a, b] of [['n257', 'n259'], ['n260', 'n261']]) {
   const name = `3gpp-fr2-pc3-ca-${a}-${b}`;
-  const bandOf = (x) => ({ name: x, frequencyRangeMHz: BANDS[x], limit: TX[3][1][x][3] });
+  const bandOf = (x) => ({ name: x, frequency_range_mhz: BANDS[x], limit: TX[3][1][x][3] });
   write(name, [`3GPP FR2 UE power class 3 (handheld), inter-band CA_${a}A-${b}A: joint spherical coverage.`], {
     name,
     description: `Power class 3 (handheld) UE, inter-band uplink CA_${a}A-${b}A. Per band the region where EIRP ≥ that band's `
@@ -208,9 +208,9 @@ for (const [a, b] of [['n257', 'n259'], ['n260', 'n261']]) {
       + 'at least 50 %. Needs the unit measured in both bands (the same unit, two frequencies).',
     source: `${SPEC}, clause 6.2A.1; ${VERIFY}`,
     quantity: 'eirp',
-    frequencyRangeMHz: [BANDS[a][0], Math.max(BANDS[a][1], BANDS[b][1])].sort((x, y) => x - y),
+    frequency_range_mhz: [BANDS[a][0], Math.max(BANDS[a][1], BANDS[b][1])].sort((x, y) => x - y),
     checks: [
-      { kind: 'inter-band-coverage', name: `inter-band coverage CA_${a}A-${b}A`, levelPct: 50, deltaDb: 6.0, bands: [bandOf(a), bandOf(b)],
+      { kind: 'inter-band-coverage', name: `inter-band coverage CA_${a}A-${b}A`, level_pct: 50, delta_db: 6.0, bands: [bandOf(a), bandOf(b)],
         source: `${SPEC}, clause 6.2A.1 (ΔT_IB,S,n = 6.0 dB for CA_${a}A-${b}A, PC3; levels from Table 6.2.1.3-3); ${VERIFY}` },
     ],
   });

@@ -1,5 +1,4 @@
 import type { DecisionRule, Quantity, ResolvedUncertainty } from '../../types.js';
-import { QUANTITIES } from '../../quantity.js';
 
 export type { DecisionRule };
 export const DECISION_RULES: readonly DecisionRule[] = ['shared-risk', 'guarded', 'non-binary'];
@@ -15,7 +14,11 @@ export interface QuantityUncertaintyInput {
   perDirectionDb: number;
 }
 
-/** The `uncertainty:` block of a job file or limit set. Nothing here has a default that stands for a standard's value. */
+/**
+ * The `uncertainty:` block of a job file or limit set, as code holds it (the file form and its
+ * validation: src/config/uncertaintySchema.ts). Nothing here has a default that stands for a
+ * standard's value.
+ */
 export interface UncertaintySpec {
   decisionRule: DecisionRule;
   /** guarded only: the guard band w, dB; default the quantity's U. */
@@ -66,69 +69,4 @@ export function resolveUncertainty(spec: UncertaintySpec | null | undefined, qua
     draws: spec.draws ?? (points > LARGE_GRID_POINTS ? LARGE_GRID_DRAWS : DEFAULT_DRAWS),
     seed: spec.seed ?? 1,
   };
-}
-
-type Fail = (path: (string | number)[], found: unknown, expected: string) => void;
-const TOP = ['decisionRule', 'guardBandDb', 'draws', 'seed', 'powerClass', ...QUANTITIES];
-const Q_KEYS = ['expandedDb', 'perDirectionDb'];
-
-/**
- * Validate a raw `uncertainty:` block (parsed YAML/JSON). Strict: unknown keys are errors. The
- * decision rule must be named (no silent default), and every quantity block gives U and u_r.
- * Errors go to `fail` with the key path under `base`; returns null when anything is wrong.
- * Cost O(keys).
- * @example validateUncertainty({ decisionRule: 'guarded', eirp: { expandedDb: 2, perDirectionDb: 0.3 } }, ['uncertainty'], fail)
- */
-export function validateUncertainty(raw: unknown, base: (string | number)[], fail: Fail): UncertaintySpec | null {
-  let ok = true;
-  const bad: Fail = (p, f, e) => { ok = false; fail(p, f, e); };
-  if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
-    bad(base, raw, 'a mapping with decisionRule and per-quantity uncertainties (eirp: {expandedDb, perDirectionDb})');
-    return null;
-  }
-  const o = raw as Record<string, unknown>;
-  for (const k of Object.keys(o)) if (!TOP.includes(k)) bad([...base, k], k, `one of the keys ${TOP.join(', ')}`);
-  const rule = o.decisionRule;
-  if (!DECISION_RULES.includes(rule as DecisionRule)) bad([...base, 'decisionRule'], rule, `one of ${DECISION_RULES.join(', ')}`);
-  const num = (v: unknown, p: (string | number)[], lo: number, hi: number, what: string): number | undefined => {
-    if (typeof v === 'number' && Number.isFinite(v) && v >= lo && v <= hi) return v;
-    bad(p, v, what);
-    return undefined;
-  };
-  const spec: UncertaintySpec = { decisionRule: rule as DecisionRule, quantities: {} };
-  if (o.guardBandDb !== undefined) {
-    spec.guardBandDb = num(o.guardBandDb, [...base, 'guardBandDb'], 0, 30, 'a guard band in dB between 0 and 30');
-    if (rule !== 'guarded') bad([...base, 'guardBandDb'], o.guardBandDb, 'no guard band unless decisionRule is guarded');
-  }
-  if (o.draws !== undefined) {
-    const d = num(o.draws, [...base, 'draws'], 20, 1e6, 'a whole number of Monte-Carlo draws between 20 and 1000000');
-    if (d !== undefined && !Number.isInteger(d)) bad([...base, 'draws'], d, 'a whole number of draws');
-    spec.draws = d;
-  }
-  if (o.seed !== undefined) {
-    const s = num(o.seed, [...base, 'seed'], 0, 2 ** 32 - 1, 'a whole-number seed between 0 and 4294967295');
-    if (s !== undefined && !Number.isInteger(s)) bad([...base, 'seed'], s, 'a whole-number seed');
-    spec.seed = s;
-  }
-  if (o.powerClass !== undefined) {
-    const pc = num(o.powerClass, [...base, 'powerClass'], 1, 7, 'a 3GPP FR2 power class 1 to 7');
-    if (pc !== undefined && !Number.isInteger(pc)) bad([...base, 'powerClass'], pc, 'a whole-number power class');
-    spec.powerClass = pc;
-  }
-  for (const q of QUANTITIES) {
-    const v = o[q];
-    if (v === undefined) continue;
-    const p = [...base, q];
-    if (v === null || typeof v !== 'object' || Array.isArray(v)) { bad(p, v, 'a mapping {expandedDb, perDirectionDb}'); continue; }
-    const qo = v as Record<string, unknown>;
-    for (const k of Object.keys(qo)) if (!Q_KEYS.includes(k)) bad([...p, k], k, `one of the keys ${Q_KEYS.join(', ')}`);
-    const U = num(qo.expandedDb, [...p, 'expandedDb'], 0, 30, 'the expanded uncertainty U (95 %) in dB, between 0 and 30');
-    const ur = num(qo.perDirectionDb, [...p, 'perDirectionDb'], 0, 30, 'the per-direction standard uncertainty u_r in dB, between 0 and 30');
-    if (U !== undefined && ur !== undefined) {
-      if (ur > U / K95 + 1e-12) bad([...p, 'perDirectionDb'], ur, `at most U/1.96 = ${+(U / K95).toFixed(4)} dB (the per-direction part cannot exceed the whole)`);
-      else spec.quantities[q] = { expandedDb: U, perDirectionDb: ur };
-    }
-  }
-  if (Object.keys(spec.quantities).length === 0 && ok) bad(base, raw, 'at least one of eirp, eis, gain with {expandedDb, perDirectionDb}');
-  return ok ? spec : null;
 }

@@ -23,10 +23,10 @@ function writeUnit(dir: string, unit: string, stepDeg: number, powerDbm = 13): v
 }
 
 const CHECKS = `checks:
-  - { kind: percentile, name: cov50, levelPct: 50, limit: 4, toleranceDb: 0.5 }
+  - { kind: percentile, name: cov50, level_pct: 50, limit: 4, tolerance_db: 0.5 }
   - { kind: min-peak, name: peak, limit: 15 }
-  - { kind: min-coverage, name: cov4, threshold: 4, minEfficiency: 0.5 }
-  - { kind: min-relative-coverage, name: within 15 dB, dbBelowPeak: 15, minEfficiency: 0.5 }
+  - { kind: min-coverage, name: cov4, threshold: 4, min_efficiency: 0.5 }
+  - { kind: min-relative-coverage, name: within 15 dB, db_below_peak: 15, min_efficiency: 0.5 }
 `;
 
 async function run(job: string, stepDeg = 5, pdf = false) {
@@ -40,7 +40,7 @@ async function run(job: string, stepDeg = 5, pdf = false) {
 describe('uncertainty through runAnalyze', () => {
   it('without an uncertainty block nothing about the verdict changes; with shared-risk the checks only gain a decision', async () => {
     const plain = (await run(CHECKS)).results.units[0];
-    const mu = (await run(`${CHECKS}uncertainty:\n  decisionRule: shared-risk\n  draws: 200\n  eirp: { expandedDb: 2, perDirectionDb: 0.3 }\n`)).results;
+    const mu = (await run(`${CHECKS}uncertainty:\n  decision_rule: shared-risk\n  draws: 200\n  eirp: { expanded_db: 2, per_direction_db: 0.3 }\n`)).results;
     const u = mu.units[0];
     expect(plain.confidence).toBeUndefined();
     expect(plain.checks.every((c) => c.decision === undefined)).toBe(true);
@@ -56,7 +56,7 @@ describe('uncertainty through runAnalyze', () => {
     expect(plain.gridAdequacy!.percentiles.find((p) => p.levelPct === 50)!.adequacyDb).toBeGreaterThanOrEqual(0);
   });
   it('guarded with a large guard band fails a unit that passes shared-risk, and a 15° grid is warned about', async () => {
-    const r = await run(`${CHECKS}uncertainty:\n  decisionRule: guarded\n  guardBandDb: 20\n  draws: 100\n  eirp: { expandedDb: 2, perDirectionDb: 0.3 }\n`, 15, true);
+    const r = await run(`${CHECKS}uncertainty:\n  decision_rule: guarded\n  guard_band_db: 20\n  draws: 100\n  eirp: { expanded_db: 2, per_direction_db: 0.3 }\n`, 15, true);
     const u = r.results.units[0];
     expect(u.verdict).toBe('fail');
     expect(r.exitCode).toBe(1);
@@ -79,17 +79,22 @@ describe('uncertainty through runAnalyze', () => {
   it('rejects a bad block with the key path and position', () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-job-'));
     const f = path.join(dir, 'spherecov.yaml');
-    writeFileSync(f, 'uncertainty:\n  decisionRule: lenient\n  eirp: { expandedDb: 1, perDirectionDb: 0.9 }\n');
-    const { errors } = loadJobFile(f);
-    expect(errors.map((e) => e.message)).toEqual([
-      "spherecov.yaml:2:17: uncertainty.decisionRule: found 'lenient', expected one of shared-risk, guarded, non-binary",
-      "spherecov.yaml:3:42: uncertainty.eirp.perDirectionDb: found '0.9', expected at most U/1.96 = 0.5102 dB (the per-direction part cannot exceed the whole)",
+    writeFileSync(f, 'uncertainty:\n  decision_rule: lenient\n  eirp: { expanded_db: 1, per_direction_db: 0.5 }\n');
+    expect(loadJobFile(f).errors.map((e) => e.message)).toEqual([
+      "spherecov.yaml:2:18: uncertainty.decision_rule: found 'lenient', expected one of shared-risk, guarded, non-binary",
+    ]);
+    // The rule across keys (u_r ≤ U/1.96) is judged once every key has the right form.
+    writeFileSync(f, 'uncertainty:\n  decision_rule: guarded\n  eirp: { expanded_db: 1, per_direction_db: 0.9 }\n');
+    expect(loadJobFile(f).errors.map((e) => e.message)).toEqual([
+      "spherecov.yaml:3:45: uncertainty.eirp.per_direction_db: found '0.9', expected at most U/1.96 = 0.5102 dB (the per-direction part cannot exceed the whole)",
     ]);
   });
   it('a limit set may carry the block too (strict keys, located errors)', () => {
-    const ok = parseLimitSetText('name: x\nquantity: eirp\nchecks: []\nuncertainty: { decisionRule: non-binary, eirp: { expandedDb: 1.5, perDirectionDb: 0.2 } }\n', 'x.yaml');
+    const ok = parseLimitSetText('name: x\nquantity: eirp\nchecks: []\nuncertainty: { decision_rule: non-binary, eirp: { expanded_db: 1.5, per_direction_db: 0.2 } }\n', 'x.yaml');
     expect(ok.limitSet?.uncertainty).toEqual({ decisionRule: 'non-binary', quantities: { eirp: { expandedDb: 1.5, perDirectionDb: 0.2 } } });
-    const bad = parseLimitSetText('name: x\nquantity: eirp\nchecks: []\nuncertainty: { decisionRule: guarded, guardBandDb: 1, eirp: { expandedDb: 1.5, perDirectionDb: 0.2, k: 2 } }\n', 'x.yaml');
-    expect(bad.errors.map((e) => e.message)).toEqual(["uncertainty.eirp.k: found 'k', expected one of the keys expandedDb, perDirectionDb"]);
+    const bad = parseLimitSetText('name: x\nquantity: eirp\nchecks: []\nuncertainty: { decision_rule: guarded, guard_band_db: 1, eirp: { expanded_db: 1.5, per_direction_db: 0.2, k: 2 } }\n', 'x.yaml');
+    expect(bad.errors.map((e) => e.message)).toEqual([
+      'x.yaml:4:107: uncertainty.eirp.k: found an unknown key, expected one of the keys known here: expanded_db, per_direction_db (the closest is expanded_db)',
+    ]);
   });
 });
