@@ -18,6 +18,7 @@ import { ensureBuilt, ROOT } from './buildOnce.js';
 import type { ResultsFile } from '../../src/types.js';
 import { expectClose } from '../helpers/expectClose.js';
 import { pdfPages } from '../report/pdfText.js';
+import { resultsSchemaProblems } from '../helpers/resultsSchemaProblems.js';
 
 const DIR = path.join(ROOT, 'fixtures', 'cli', 'eis-pol');
 const RAD = Math.PI / 180;
@@ -45,7 +46,9 @@ function analyze(...extra: string[]): { status: number | null; res: ResultsFile;
   const out = mkdtempSync(path.join(tmpdir(), 'spherecov-eispol-'));
   const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', DIR, '--out', out,
     '--limits', '3gpp-fr2-pc3-n257-eis-100mhz', '--quiet', ...extra], { encoding: 'utf8' });
-  return { out, status: r.status, stderr: r.stderr, res: JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8')), csv: readFileSync(path.join(out, 'summary.csv'), 'utf8') };
+  const res = JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8'));
+  expect(resultsSchemaProblems(res), 'results.json matches schemas/results.schema.json').toEqual([]);
+  return { out, status: r.status, stderr: r.stderr, res, csv: readFileSync(path.join(out, 'summary.csv'), 'utf8') };
 }
 
 beforeAll(() => ensureBuilt(), 180_000);

@@ -15,6 +15,7 @@ import { ensureBuilt, ROOT } from './buildOnce.js';
 import type { ResultsFile } from '../../src/types.js';
 import { expectClose } from '../helpers/expectClose.js';
 import { pdfPages } from '../report/pdfText.js';
+import { resultsSchemaProblems } from '../helpers/resultsSchemaProblems.js';
 
 const RAD = Math.PI / 180;
 
@@ -22,7 +23,9 @@ function run(dir: string, limits: string, pdf = false): { status: number | null;
   const out = mkdtempSync(path.join(tmpdir(), 'spherecov-joint-'));
   const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', path.join(ROOT, 'fixtures', 'cli', dir), '--out', out,
     '--limits', limits, '--quiet', ...(pdf ? [] : ['--no-pdf'])], { encoding: 'utf8' });
-  return { status: r.status, stderr: r.stderr, out, res: JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8')) };
+  const res = JSON.parse(readFileSync(path.join(out, 'results.json'), 'utf8'));
+  expect(resultsSchemaProblems(res), 'results.json matches schemas/results.schema.json').toEqual([]);
+  return { status: r.status, stderr: r.stderr, out, res };
 }
 
 /** Independent oracle for the joint share: TSP per direction from the file, 10° grid weights with polar caps. */

@@ -11,6 +11,7 @@ import { runAnalyze } from '../../../src/batch/runAnalyze.js';
 import { loadJobFile } from '../../../src/io/jobFile.js';
 import { parseLimitSetText } from '../../../src/limits/parseLimitSet.js';
 import { handsetModule, regularGrid, simulateBeams } from '../../../src/sim/index.js';
+import { resultsSchemaProblems } from '../../helpers/resultsSchemaProblems.js';
 
 /** One invented handset unit on a constant-step grid, long layout. */
 function writeUnit(dir: string, unit: string, stepDeg: number, powerDbm = 13): void {
@@ -34,7 +35,9 @@ async function run(job: string, stepDeg = 5, pdf = false) {
   writeUnit(input, 'PX-1', stepDeg);
   writeFileSync(path.join(input, 'spherecov.yaml'), job);
   const out = mkdtempSync(path.join(tmpdir(), 'spherecov-mu-out-'));
-  return { out, ...(await runAnalyze({ input, outDir: out, pdf, jobs: 1 })) };
+  const r = await runAnalyze({ input, outDir: out, pdf, jobs: 1 });
+  expect(resultsSchemaProblems(r.results), 'results.json matches schemas/results.schema.json').toEqual([]);
+  return { out, ...r };
 }
 
 describe('uncertainty through runAnalyze', () => {
