@@ -91,6 +91,8 @@ const unit = obj({
   sources: z.array(obj({ path: z.string(), sha256: z.string() })),
   limitSet: obj({ name: z.string(), source: z.string() }).nullable(),
   holes: z.array(obj({ ...direction, solidAngleSr: num(), worst: num(), nearestBeam: z.string() })).optional(),
+  analysisThreshold: obj({ value: num(), source: z.enum(['min-coverage-check', 'percentile-check', 'requested']), toleranceApplied: z.boolean() })
+    .nullable().optional().describe('The one threshold holes and the map contour are found at, and where it comes from'),
   subset: obj({ levelPct: num(), toleranceDb: num(), beams: z.array(z.string()), curve: z.array(obj({ count: num(), value: opt() })) }).nullable().optional(),
   reference: obj({ unit: z.string(), deltas: z.record(z.string(), opt()) }).nullable().optional(),
   frequencyTrend: z.array(z.looseObject({ frequencyHz: num() }).catchall(opt())).nullable().optional(),
@@ -143,6 +145,7 @@ export const resultsSchema = obj({
   schemaVersion: z.literal(1),
   tool: obj({ name: z.literal('spherecov'), version: z.string() }),
   generatedAt: z.string(),
+  testInfo: z.record(z.string(), z.string()).nullable().describe("The job file's test_info block as written (key → text)"),
   settings: obj({
     input: z.string(),
     percentilesPct: z.array(num()),
