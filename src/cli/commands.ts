@@ -38,7 +38,9 @@ export async function runLimits(name: string | undefined, io: BatchIo): Promise<
     io.stdout(lines.join('\n') + '\n');
     return 0;
   }
-  const { limitSet, errors } = loadLimitSet(name);
+  const { limitSet, errors, notices } = loadLimitSet(name);
+  // Keys in an old spelling: the set is read, and the notice says which key to rename.
+  for (const n of notices) io.stderr(`spherecov: ${formatInputError(n)}\n`);
   if (!limitSet) {
     for (const e of errors) io.stderr(`spherecov: ${formatInputError(e)}\n`);
     return 2;

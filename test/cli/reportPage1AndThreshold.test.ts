@@ -25,8 +25,8 @@ beforeAll(() => {
   const dir = tmp();
   // The fixture limits with a test tolerance on the coverage check: the verdict is judged at
   // 10 − 1.5 = 8.5 dBm, while holes and contour must stay at the 10 dBm written.
-  const limits = readFileSync(path.join(FIX, 'limits-fixture.yaml'), 'utf8').replace('    minEfficiency: 0.8', '    minEfficiency: 0.8\n    toleranceDb: 1.5');
-  expect(limits).toContain('toleranceDb: 1.5');
+  const limits = readFileSync(path.join(FIX, 'limits-fixture.yaml'), 'utf8').replace('    min_efficiency: 0.8', '    min_efficiency: 0.8\n    tolerance_db: 1.5');
+  expect(limits).toContain('tolerance_db: 1.5');
   writeFileSync(path.join(dir, 'limits.yaml'), limits);
   const input = path.join(dir, 'build');
   cpSync(path.join(FIX, 'fail'), input, { recursive: true });

@@ -91,3 +91,22 @@ describe('limit set', () => {
     expect(b.notices.map((n) => n.columnName)).toEqual(['frequencyRangeMHz', 'checks[0].minEfficiency', 'checks[0].toleranceDb']);
   });
 });
+
+describe('deprecation notices reach the user', () => {
+  it('an old-spelling limit file: the run goes on, the notice is on stderr and in results.json settings.warnings', async () => {
+    const { runAnalyze } = await import('../../src/batch/runAnalyze.js');
+    const dir = mkdtempSync(path.join(tmpdir(), 'spherecov-old-limits-'));
+    const limits = path.join(dir, 'old.yaml');
+    writeFileSync(limits, 'name: old\nquantity: eirp\nchecks:\n  - { kind: percentile, levelPct: 50, limit: -50 }\n');
+    const stderr: string[] = [];
+    const { results } = await runAnalyze({
+      input: path.resolve(__dirname, '../../fixtures/cli/pass'), outDir: path.join(dir, 'out'), limits, pdf: false, jobs: 1,
+      io: { stdout: () => undefined, stderr: (s: string) => void stderr.push(s), stderrIsTTY: false },
+    });
+    const notice = `${limits}:4:25: checks[0].levelPct: found 'levelPct', expected level_pct (the old spelling is still read but deprecated: configuration keys are snake_case)`;
+    expect(results.units.length).toBeGreaterThan(0);
+    expect(results.units[0].checks[0]).toMatchObject({ kind: 'percentile', levelPct: 50, limit: -50 });
+    expect(results.settings.warnings).toEqual([notice]);
+    expect(stderr.join('')).toContain(`spherecov: ${notice}\n`);
+  });
+});
