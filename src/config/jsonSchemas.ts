@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import type { z } from 'zod';
+import { zod } from './zod.js';
 import { jobFileSchema } from './jobFileSchema.js';
 import { limitSetSchema } from './limitSetSchema.js';
 import { resultsSchema } from './resultsSchema.js';
@@ -14,16 +15,16 @@ import { resultsSchema } from './resultsSchema.js';
  */
 export function publishedSchemas(): Record<string, Record<string, unknown>> {
   const make = (schema: z.ZodType, io: 'input' | 'output', title: string, description: string) => ({
-    ...z.toJSONSchema(schema, { io, target: 'draft-2020-12' }),
+    ...zod().toJSONSchema(schema, { io, target: 'draft-2020-12' }),
     title,
     description,
   });
   return {
-    'job-file.schema.json': make(jobFileSchema, 'input', 'spherecov job file',
+    'job-file.schema.json': make(jobFileSchema(), 'input', 'spherecov job file',
       'spherecov.yaml / spherecov.json in an input folder (or --job): column mapping, identity patterns, calibration, limits, checks, report settings, uncertainty. Every key is optional; keys are snake_case.'),
-    'limit-set.schema.json': make(limitSetSchema, 'input', 'spherecov limit set',
+    'limit-set.schema.json': make(limitSetSchema(), 'input', 'spherecov limit set',
       'A limit-set file (--limits, or limits: in a job file): a named list of checks for one quantity. Keys are snake_case.'),
-    'results.schema.json': make(resultsSchema, 'output', 'spherecov results.json',
+    'results.schema.json': make(resultsSchema(), 'output', 'spherecov results.json',
       'results.json written by spherecov analyze (schemaVersion 1).'),
   };
 }

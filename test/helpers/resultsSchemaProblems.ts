@@ -6,6 +6,6 @@ import { resultsSchema } from '../../src/config/resultsSchema.js';
  * polarizations, joint checks) call it so the schema cannot drift from the writer.
  */
 export function resultsSchemaProblems(results: unknown): string[] {
-  const r = resultsSchema.safeParse(JSON.parse(JSON.stringify(results)));
+  const r = resultsSchema().safeParse(JSON.parse(JSON.stringify(results)));
   return r.success ? [] : r.error.issues.slice(0, 10).map((i) => `${i.path.join('.')}: ${i.message}`);
 }
