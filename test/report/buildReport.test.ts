@@ -86,3 +86,32 @@ describe('the CDF overlay identifies every unit', () => {
     expect(new Set(LINE_COLORS).size).toBe(LINE_COLORS.length);
   });
 });
+
+describe('a build with EIRP and EIS results (a unit measured both ways)', () => {
+  it('draws one overlay per quantity (CDF for EIRP, CCDF for EIS) and names the quantity in the table and keys', async () => {
+    const units = [];
+    const thumbnails = new Map();
+    const cdfs: Record<string, ReturnType<typeof cdfCurve>> = {};
+    for (const quantity of ['eirp', 'eis'] as const) {
+      const m = makeMeasurement({ unit: 'QX-30', quantity });
+      const tsp = makeTsp(m);
+      const r = makeResult(m, tsp);
+      units.push(r);
+      thumbnails.set(unitKey(r.unit, r.frequencyHz, r.quantity), unitMapThumbnail(m, tsp));
+      cdfs[unitKey(r.unit, r.frequencyHz, r.quantity)] = cdfCurve(tsp.values, m.grid.weightSr, r.quantity);
+    }
+    const input: BuildReportInput = { units, thumbnails, cdfs, build: buildStatistics(units), generatedAt: DATE, toolVersion: '0.1.0-test', limitSetName: null };
+    const pages = await pdfPages(await renderBuildPdf(input, loadReportSettings({ creationDate: DATE })));
+    const all = pages.join(' ');
+    expect(pages[0]).toContain('1 QX-30 (EIRP) 28 GHz');
+    expect(pages[0]).toContain('2 QX-30 (EIS) 28 GHz');
+    const eirp = all.slice(all.indexOf('CDF of every unit (EIRP)'), all.indexOf('CCDF of every unit (EIS)'));
+    const eis = all.slice(all.indexOf('CCDF of every unit (EIS)'));
+    // Each overlay keys only its own quantity's unit, by the units table's row number.
+    expect(eirp).toContain('1 QX-30 (EIRP) · 28 GHz');
+    expect(eirp).not.toContain('QX-30 (EIS)');
+    expect(eis).toContain('2 QX-30 (EIS) · 28 GHz');
+    expect(all).toContain('Total scan pattern of every unit (EIRP, one colour scale)');
+    expect(all).toContain('Total scan pattern of every unit (EIS, one colour scale)');
+  });
+});

@@ -3,12 +3,12 @@ import { fmtFrequencyShort, quantityLabel, verdictText } from '../format.js';
 import { contentWidth, ensureSpace, heading, INK, MARGIN, note, oneLine, type Doc } from '../pdfDoc.js';
 import { drawCdfPlot } from '../plots.js';
 import { DISTINCT_LINE_STYLES } from '../lineStyles.js';
-import type { SummaryCurve, SummaryModel } from '../buildReportModel.js';
+import type { QuantityGroup, SummaryCurve } from '../buildReportModel.js';
 
 const LEGEND_ROW_PT = 10.5;
 
-/** One legend entry: the row number of the units table, a sample of the line, unit · frequency · verdict. */
-function legendEntry(doc: Doc, c: SummaryCurve, x: number, y: number, width: number): void {
+/** One legend entry: the row number of the units table, a sample of the line, unit · frequency, and the verdict in a right-aligned slot. */
+function legendEntry(doc: Doc, c: SummaryCurve, x: number, y: number, width: number, verdictW: number): void {
   const u = c.row.result;
   const failed = u.verdict === 'fail';
   doc.font('B').fontSize(7).fillColor(INK);
@@ -18,8 +18,8 @@ function legendEntry(doc: Doc, c: SummaryCurve, x: number, y: number, width: num
   doc.lineWidth(failed ? 1.3 : 0.9).strokeColor(c.color).stroke().undash();
   const f = u.frequencyHz === null ? '' : ` · ${fmtFrequencyShort(u.frequencyHz)}`;
   doc.font(failed ? 'B' : 'R').fontSize(7).fillColor(INK);
-  oneLine(doc, `${u.unit}${f}`, x + 39, y, width - 73);
-  oneLine(doc, verdictText(u.verdict), x + width - 34, y, 30, 'right');
+  oneLine(doc, `${c.row.name}${f}`, x + 39, y, width - 39 - verdictW - 6);
+  oneLine(doc, verdictText(u.verdict), x + width - verdictW - 4, y, verdictW, 'right');
 }
 
 /** The key under the plot, row by row (so a long build breaks cleanly onto the next page). */
@@ -27,24 +27,28 @@ function legend(doc: Doc, curves: SummaryCurve[]): void {
   const w = contentWidth(doc);
   const cols = curves.length > 45 ? 4 : 3;
   const cw = w / cols;
+  // The verdict slot fits the longest verdict word of this key (NOT JUDGED is the longest), in bold.
+  doc.font('B').fontSize(7);
+  const verdictW = Math.max(...curves.map((c) => doc.widthOfString(verdictText(c.row.result.verdict)))) + 2;
   for (let k = 0; k < curves.length; k += cols) {
     ensureSpace(doc, LEGEND_ROW_PT + 2);
     const y = doc.y;
-    curves.slice(k, k + cols).forEach((c, j) => legendEntry(doc, c, MARGIN.left + j * cw, y, cw));
+    curves.slice(k, k + cols).forEach((c, j) => legendEntry(doc, c, MARGIN.left + j * cw, y, cw, verdictW));
     doc.y = y + LEGEND_ROW_PT;
   }
   doc.y += 4;
 }
 
 /**
- * Every unit's TSP CDF (CCDF for EIS) on one plot with the distinct limits; each curve has its own
- * colour and dash pattern, and the key below names it by its row number in the units table.
+ * Every unit's TSP CDF (CCDF for EIS) of one quantity on one plot with their distinct limits; each
+ * curve has its own colour and dash pattern, and the key below names it by its row number in the
+ * units table.
  */
-export function summaryCdfOverlay(doc: Doc, model: SummaryModel): void {
-  const { quantity: q, valueUnit: vu, curves, limits } = model;
+export function summaryCdfOverlay(doc: Doc, group: QuantityGroup): void {
+  const { quantity: q, valueUnit: vu, curves, limits } = group;
   if (curves.length === 0) return;
   doc.addPage();
-  heading(doc, isLowerBetter(q) ? 'CCDF of every unit (EIS)' : `CDF of every unit (${quantityLabel(q)})`, 250);
+  heading(doc, isLowerBetter(q) ? `CCDF of every unit (${quantityLabel(q)})` : `CDF of every unit (${quantityLabel(q)})`, 250);
   const w = contentWidth(doc);
   const box = { x: MARGIN.left + 44, y: doc.y + 6, w: w - 44 - 120, h: 220 };
   drawCdfPlot(doc, box, q, vu, curves.map((c) => ({ curve: c.curve, color: c.color, dash: c.dash, width: c.row.result.verdict === 'fail' ? 1.3 : 0.9 })), [], [], limits);

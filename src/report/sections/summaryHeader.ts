@@ -26,7 +26,7 @@ export function summaryHeader(doc: Doc, input: BuildReportInput, model: SummaryM
     ['Verdicts', `${b.passed} passed, ${b.failed} failed, ${b.notJudged} not judged, ${errored} error` + (partial ? `; ${partial} result(s) on a partial sphere` : '')],
     ['Passed', `${share(b.passed, inBuild)} units in the build; ${share(b.passed, b.passed + b.failed)} units judged`],
     ...(b.confidence ? [['How sure', expectedConformingText(b.confidence)] as [string, string]] : []), // issue 17
-    ['Quantity', `${quantityLabel(model.quantity)} (${model.valueUnit})`],
+    ['Quantity', model.groups.map((g) => `${quantityLabel(g.quantity)} (${g.valueUnit})`).join(', ')],
     ['Limit set', input.limitSetName ?? 'none (not judged)'],
     ['Generated', input.generatedAt],
     ['Tool', `spherecov ${input.toolVersion}`],

@@ -11,7 +11,7 @@ function rowCells(row: SummaryRow): string[] {
     return [`${row.number}`, e.unit, fmtFrequencyShort(e.frequencyHz), 'ERROR', '—', `not analyzed: ${errorLocation(e.error)}`, '—', '—'];
   }
   return [
-    `${row.number}`, u.unit, fmtFrequencyShort(u.frequencyHz), verdictWord(u.verdict),
+    `${row.number}`, row.name, fmtFrequencyShort(u.frequencyHz), verdictWord(u.verdict),
     `${u.checks.filter((c) => c.status === 'pass').length} / ${u.checks.length}`, u.worstCheck?.name ?? '—', worstMarginText(u),
     u.grid.fullSphere ? 'full' : `partial: ${fmt((100 * u.solidAngleSr) / (4 * Math.PI), 1)} % measured`,
   ];
@@ -23,7 +23,7 @@ export function summaryUnits(doc: Doc, rows: SummaryRow[]): void {
   const w = contentWidth(doc);
   const cols: Column[] = [
     { header: '#', width: 20, align: 'right' },
-    { header: 'Unit', width: w - 428 }, { header: 'Freq.', width: 46 }, { header: 'Verdict', width: 58 },
+    { header: 'Unit', width: w - 434 }, { header: 'Freq.', width: 46 }, { header: 'Verdict', width: 64 },
     { header: 'Passed', width: 40, align: 'right' }, { header: 'Worst check', width: 106 }, { header: 'Worst margin', width: 82, align: 'right' },
     { header: 'Sphere', width: 76 },
   ];
