@@ -1,6 +1,6 @@
 /**
- * No long functions in the orchestration code (issue 15: "no function over about 60 lines in
- * batch or report"). Lengths come from scripts/function-lengths.mjs (TypeScript's own parser:
+ * No long functions in the orchestration and report code (issue 15: "no function over about 60
+ * lines in batch or report"). Lengths come from scripts/function-lengths.mjs (TypeScript's own parser:
  * declarations, methods, arrow functions; first line of the signature to the closing brace).
  * Run `node scripts/function-lengths.mjs --over 60 <folder>` to see what a change made long.
  */
@@ -22,7 +22,7 @@ const CHECKED = ['src/batch', 'src/report'];
  * allowed for now. The list may only shrink.
  */
 const PENDING: Record<string, { lines: number; why: string }> = {
-  'src/batch/pool.ts run': { lines: 95, why: 'the task pool belongs to the speed work (issue 18), which is changing it' },
+  'src/batch/pool.ts run': { lines: 94, why: 'the task pool belongs to the speed work (issue 18), which is changing it' },
 };
 
 interface Fn { file: string; name: string; line: number; lines: number }
