@@ -4,8 +4,9 @@
  * the true sum regardless of the order or magnitude spread of the terms (Eq. 1:
  * t = s + x; c += |s| ≥ |x| ? (s − t) + x : (x − t) + s; result s + c).
  * Source: A. Neumaier, Z. Angew. Math. Mech. 54 (1974) 39–51.
- * Used for solid angles (weights), TRP and CDF steps. This file is the one place that writes
- * Eq. 1: `neumaierSum` for an array, `NeumaierAccumulator` for a loop that adds as it goes,
+ * Used for solid angles (weights), TRP and CDF steps. This file owns Eq. 1 (the one exception:
+ * TRP's loop in src/coverage/trp.ts writes it out, measured faster, and its test holds it to
+ * neumaierSum bit for bit): `neumaierSum` for an array, `NeumaierAccumulator` for a loop that adds as it goes,
  * `neumaierAddAt` for many running sums kept in two parallel arrays (one per bin), and
  * `neumaierError` (the correction term alone) for a loop that keeps s and c in local variables.
  * Cost O(1) an addition, no allocation.
@@ -13,8 +14,8 @@
  */
 
 /**
- * The rounding error of t = s + x, the term Eq. 1 adds to the correction. For the hottest loops
- * (TRP: one exponential a point) that keep s and c in local variables.
+ * The rounding error of t = s + x, the term Eq. 1 adds to the correction, for a loop that keeps
+ * s and c in local variables.
  * @example let s = 0, c = 0; for (const x of xs) { const t = s + x; c += neumaierError(s, x, t); s = t; } // s + c
  */
 export function neumaierError(s: number, x: number, t: number): number {
