@@ -492,9 +492,11 @@ export interface UnitResult {
   pointingDrift?: { beam: string; driftDeg: number; flagged: boolean; betweenHz: [number, number] | null }[] | null;
 }
 
-/** Per frequency and metric across the units of a build. */
+/** Per frequency, quantity and metric across the units of a build. */
 export interface BuildMetricStats {
   frequencyHz: number | null;
+  /** The quantity of the units pooled in this row (EIRP and EIS results are never pooled). */
+  quantity: Quantity;
   metric: string;
   /** What mean/std/min/max/limits are in: dB (dBm, dBi, dB margins) or a fraction of 4π. */
   valueKind?: 'dB' | 'fraction';

@@ -100,17 +100,17 @@ export function summaryCsv(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] =
 }
 
 /**
- * build-stats.csv: one row per frequency and metric of the build summary, numbers at the
+ * build-stats.csv: one row per frequency, quantity and metric of the build summary, numbers at the
  * resolution of csvResolution.ts (shares and yields 1e-4, dB 0.01, Cpk 0.01). `yield` is passed /
  * judged; `yield_in_build` is passed / units in the build (a unit that could not be read counts).
  */
 export function buildStatsCsv(build: BuildSummary | null): string {
-  const header = ['frequency_hz', 'metric', 'count', 'mean', 'std', 'min', 'max', 'yield', 'lower_limit', 'upper_limit', 'cpk',
+  const header = ['frequency_hz', 'quantity', 'metric', 'count', 'mean', 'std', 'min', 'max', 'yield', 'lower_limit', 'upper_limit', 'cpk',
     'passed', 'judged', 'in_build', 'yield_in_build'];
   const rows: CsvCell[][] = (build?.stats ?? []).map((s) => {
     const v = s.valueKind === 'fraction' ? 'fraction' : 'dB';
     return [
-      r(s.frequencyHz, 'hz'), s.metric, s.count, r(s.mean, v), r(s.std, v), r(s.min, v), r(s.max, v), r(s.yield, 'fraction'),
+      r(s.frequencyHz, 'hz'), s.quantity, s.metric, s.count, r(s.mean, v), r(s.std, v), r(s.min, v), r(s.max, v), r(s.yield, 'fraction'),
       r(s.lowerLimit, v), r(s.upperLimit, v), r(s.cpk, 'cpk'),
       s.passedCount ?? null, s.judged ?? null, s.inBuild ?? null, r(s.yieldInBuild, 'fraction'),
     ];

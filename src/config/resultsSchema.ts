@@ -126,7 +126,7 @@ export const resultsSchema = lazySchema(() => {
   const location = { file: zod().string(), line: num().optional(), column: num().optional() };
 
   const stats = obj({
-    frequencyHz: opt(), metric: zod().string(), valueKind: marginUnit.optional(), count: num(), mean: opt(), std: opt(), min: opt(), max: opt(),
+    frequencyHz: opt(), quantity, metric: zod().string(), valueKind: marginUnit.optional(), count: num(), mean: opt(), std: opt(), min: opt(), max: opt(),
     yield: opt(), passedCount: opt().optional(), judged: opt().optional(), inBuild: opt().optional(), yieldInBuild: opt().optional(),
     lowerLimit: opt(), upperLimit: opt(), cpk: opt(),
   });

@@ -1,5 +1,6 @@
 import { mean as ssMean, sampleStandardDeviation } from 'simple-statistics';
 import type { BuildMetricStats, BuildSummary, UnitNotAnalyzed, UnitResult } from '../types.js';
+import { QUANTITIES, type Quantity } from '../quantity.js';
 import { processCapability } from './processCapability.js';
 import { coverageMetricValues, FAMILY_ORDER, judgementMetricValues, metricsOfUnit, metricUnit, statsKey, statsOnlyWhenDefined, type MetricInstance } from '../metrics/catalogue.js';
 
@@ -14,7 +15,9 @@ interface Series {
 }
 
 /**
- * Statistics across the units of a build, per frequency and metric.
+ * Statistics across the units of a build, per frequency, quantity and metric: the EIRP and the
+ * EIS results of one frequency are separate rows (a mean over dBm of transmit power and of
+ * receive sensitivity would mean nothing).
  *
  * Metrics: the metric catalogue's statistics metrics (src/metrics/catalogue.ts), by name:
  * `peak`, `p<level>` per percentile, `coverage@<threshold>` per absolute coverage
@@ -39,49 +42,54 @@ interface Series {
  *   not be read or analyzed is "errored"; otherwise it fails if any of its frequencies fails,
  *   passes if all its frequencies pass, else is not judged. passed + failed + notJudged +
  *   errored = unitsInBuild.
- * Rows are ordered by frequency (ascending, no-frequency last), then by the metric order above.
+ * Rows are ordered by frequency (ascending, no-frequency last), then quantity (the order of
+ * QUANTITIES), then by the metric order above.
  *
  * Cost O(units × metrics).
  * @example buildStatistics([]) // { units: 0, unitsInBuild: 0, passed: 0, failed: 0, notJudged: 0, errored: 0, stats: [] }
  */
 export function buildStatistics(units: UnitResult[], notAnalyzed: UnitNotAnalyzed[] = []): BuildSummary {
-  const byFreq = new Map<number | null, Map<string, Series>>();
-  const series = (f: number | null, metric: MetricInstance): Series => {
+  const groups = new Map<string, { frequencyHz: number | null; quantity: Quantity; series: Map<string, Series> }>();
+  const series = (u: UnitResult, metric: MetricInstance): Series => {
     const key = statsKey(metric) as string;
-    let m = byFreq.get(f);
-    if (!m) byFreq.set(f, (m = new Map()));
-    let s = m.get(key);
-    if (!s) m.set(key, (s = { metric, values: [], judged: [], limits: new Set(), kind: metricUnit(metric) === 'fraction' ? 'fraction' : 'dB' }));
+    const gk = `${u.frequencyHz}|${u.quantity}`;
+    let g = groups.get(gk);
+    if (!g) groups.set(gk, (g = { frequencyHz: u.frequencyHz, quantity: u.quantity, series: new Map() }));
+    let s = g.series.get(key);
+    if (!s) g.series.set(key, (s = { metric, values: [], judged: [], limits: new Set(), kind: metricUnit(metric) === 'fraction' ? 'fraction' : 'dB' }));
     return s;
   };
   for (const u of units) {
-    const f = u.frequencyHz;
     for (const { metric, value } of coverageMetricValues(metricsOfUnit(u), u.quantity)) {
       if (statsKey(metric) === null || (value === null && statsOnlyWhenDefined(metric))) continue;
-      const s = series(f, metric); // created even when the value is null so the row shows count 0
+      const s = series(u, metric); // created even when the value is null so the row shows count 0
       if (value !== null && Number.isFinite(value)) s.values.push(value);
     }
     const judgement = judgementMetricValues(u);
     u.checks.forEach((c, k) => {
-      const s = series(f, judgement[k].metric);
+      const s = series(u, judgement[k].metric);
       if (judgement[k].value !== null) s.values.push(judgement[k].value as number);
       s.judged.push(c.status === 'pass');
       s.limits.add(c.effectiveLimit);
       s.bound ??= c.bound;
     });
     const margin = judgement[judgement.length - 1];
-    const s = series(f, margin.metric);
+    const s = series(u, margin.metric);
     if (margin.value !== null && Number.isFinite(margin.value)) s.values.push(margin.value);
   }
   const stats: BuildMetricStats[] = [];
-  const freqs = [...byFreq.keys()].sort((a, b) => (a === null ? 1 : b === null ? -1 : a - b));
-  for (const f of freqs) {
-    const rows = [...(byFreq.get(f) as Map<string, Series>)];
-    rows.sort((a, b) => outputOrder(a[1].metric, b[1].metric));
-    const errored = new Set(notAnalyzed.filter((e) => e.frequencyHz === null || e.frequencyHz === f).map((e) => e.unit)).size;
-    for (const [key, s] of rows) stats.push(row(f, key, s, errored));
+  const ordered = [...groups.values()].sort((a, b) => frequencyOrder(a.frequencyHz, b.frequencyHz) || QUANTITIES.indexOf(a.quantity) - QUANTITIES.indexOf(b.quantity));
+  for (const g of ordered) {
+    const rows = [...g.series].sort((a, b) => outputOrder(a[1].metric, b[1].metric));
+    const errored = new Set(notAnalyzed.filter((e) => e.frequencyHz === null || e.frequencyHz === g.frequencyHz).map((e) => e.unit)).size;
+    for (const [key, s] of rows) stats.push(row(g.frequencyHz, g.quantity, key, s, errored));
   }
   return { ...countUnits(units, notAnalyzed), stats };
+}
+
+/** Ascending frequency, the rows without a frequency last. */
+function frequencyOrder(a: number | null, b: number | null): number {
+  return a === b ? 0 : a === null ? 1 : b === null ? -1 : a - b;
 }
 
 /** Catalogue order of the families; inside a numeric family by parameter; checks keep the limit-set order (stable sort). */
@@ -91,7 +99,7 @@ function outputOrder(a: MetricInstance, b: MetricInstance): number {
   return typeof a.param === 'number' && typeof b.param === 'number' ? a.param - b.param : 0;
 }
 
-function row(frequencyHz: number | null, metric: string, s: Series, errored: number): BuildMetricStats {
+function row(frequencyHz: number | null, quantity: Quantity, metric: string, s: Series, errored: number): BuildMetricStats {
   const n = s.values.length;
   const mean = n ? ssMean(s.values) : null;
   const std = n >= 2 ? sampleStandardDeviation(s.values) : null;
@@ -101,7 +109,7 @@ function row(frequencyHz: number | null, metric: string, s: Series, errored: num
   const passed = s.judged.filter(Boolean).length;
   const inBuild = s.judged.length + errored;
   return {
-    frequencyHz, metric, valueKind: s.kind ?? 'dB', count: n, mean, std,
+    frequencyHz, quantity, metric, valueKind: s.kind ?? 'dB', count: n, mean, std,
     min: n ? Math.min(...s.values) : null,
     max: n ? Math.max(...s.values) : null,
     yield: isCheck && s.judged.length ? passed / s.judged.length : null,

@@ -19,7 +19,7 @@ export async function renderBuildPdf(input: BuildReportInput, settings: ReportSe
   const doc = createDoc(settings, input.generatedAt, `${settings.title}: build summary`, `Spherical coverage of ${input.units.length} unit results`);
   summaryHeader(doc, input, model, settings);
   summaryUnits(doc, model.rows);
-  summaryStatistics(doc, input.build, input.units, model.groups[0].valueUnit);
+  summaryStatistics(doc, input.build, input.units);
   for (const g of model.groups) summaryCdfOverlay(doc, g);
   for (const g of model.groups) summaryMaps(doc, g, settings, model.groups.length > 1);
   addFooters(doc, 'Build summary');

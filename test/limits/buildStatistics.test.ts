@@ -105,3 +105,16 @@ describe('buildStatistics (hand-computed)', () => {
     expectClose(processCapability(12, 0.5, 11.5, 'lower') as number, 1 / 3, EPS, '0.5 / 1.5');
   });
 });
+
+describe('buildStatistics keeps quantities apart', () => {
+  it('EIRP and EIS results of one frequency are separate rows (a pooled mean of dBm transmit power and receive sensitivity means nothing)', () => {
+    const eis = (id: string, peak: number): UnitResult => ({ ...unit(id, 28e9, peak, null, null, 'none'), quantity: 'eis', checks: [], worstCheck: null });
+    const mixed = buildStatistics([unit('A', 28e9, 22.0, 11.0, 15.0, 'fail'), unit('C', 28e9, 24.5, 12.0, 16.0, 'fail'), eis('A', -90), eis('C', -94)]);
+    const peaks = mixed.stats.filter((x) => x.metric === 'peak');
+    expect(peaks.map((x) => [x.quantity, x.count, x.mean])).toEqual([['eirp', 2, 23.25], ['eis', 2, -92]]); // hand means: (22 + 24.5)/2, (−90 − 94)/2
+    // Rows: every EIRP row of 28 GHz comes before the EIS rows (QUANTITIES order), none mixes both.
+    const firstEis = mixed.stats.findIndex((x) => x.quantity === 'eis');
+    expect(mixed.stats.slice(firstEis).every((x) => x.quantity === 'eis')).toBe(true);
+    expect(s.stats.every((x) => x.quantity === 'eirp')).toBe(true);
+  });
+});
