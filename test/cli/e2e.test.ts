@@ -99,7 +99,7 @@ describe('analyze, passing build', () => {
     expect(csv).toHaveLength(3);
     expect(csv[0].startsWith('unit,frequency_hz,quantity,value_unit,beams,points,measured_solid_angle_sr')).toBe(true);
     expect(csv[1].startsWith('U-01,28000000000,eirp,dBm,4,')).toBe(true);
-    expect(readFileSync(path.join(out, 'build-stats.csv'), 'utf8').startsWith('\uFEFFfrequency_hz,metric,count,mean,std')).toBe(true);
+    expect(readFileSync(path.join(out, 'build-stats.csv'), 'utf8').startsWith('\uFEFFfrequency_hz,quantity,metric,count,mean,std')).toBe(true);
   });
 });
 
