@@ -15,7 +15,7 @@
  * with a task of its own and cannot answer at once.
  */
 import { Worker } from 'node:worker_threads';
-import { availableParallelism, loadavg } from 'node:os';
+import { availableParallelism, cpus } from 'node:os';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { safeRunTask, type TaskInput, type TaskOutput } from './unitTask.js';
@@ -69,14 +69,40 @@ async function taskWithCpu(task: TaskInput): Promise<{ out: TaskOutput; cpuMs: n
 }
 
 /**
- * 'auto' starts workers only while the machine has a core to spare: with the 1-minute load
- * average at or above the core count, other processes already keep every core busy, and a worker
- * adds its start-up without a core to run on (20-unit build with PDFs at load 11 on 2 cores:
- * 8.5–9.0 s of CPU and 21–23 s wall with a worker, 4.7–5.8 s and 12–16 s with --jobs 1). A
- * platform without a load average (0) always has one.
+ * 'auto' starts workers only while the machine has a core to spare: `idleCores` is the idle CPU
+ * of the whole machine, in cores, measured over the main thread's first tasks (cpuIdleCores). At
+ * least half a core idle means a worker gets a core to run on; with every core kept busy by other
+ * processes a worker only adds its start-up (20-unit build with PDFs at load 11 on 2 cores:
+ * 8.5–9.0 s of CPU and 21–23 s wall with a worker, 4.7–5.8 s and 12–16 s with --jobs 1).
+ * Measured over the same window rather than read from the 1-minute load average, which lags by
+ * a minute: right after another heavy job it kept a quiet machine's builds on one thread
+ * (bench, build with PDFs: 1.00 of --jobs 1 instead of 0.89).
  */
-export function coreToSpare(load1: number, cores: number): boolean {
-  return load1 < cores;
+export function coreToSpare(idleCores: number): boolean {
+  return idleCores >= 0.5;
+}
+
+/** Idle and total CPU time summed over the machine's cores (os.cpus(), ms). */
+export interface CpuTimes { idleMs: number; totalMs: number }
+
+export function cpuTimes(): CpuTimes {
+  let idleMs = 0, totalMs = 0;
+  for (const c of cpus()) {
+    idleMs += c.times.idle;
+    totalMs += c.times.user + c.times.nice + c.times.sys + c.times.idle + c.times.irq;
+  }
+  return { idleMs, totalMs };
+}
+
+/**
+ * Idle cores between two readings: idle share of all CPU time × core count (2 cores, one busy
+ * with this run and the other idle → 1). No time passed (or a platform reporting none) → the
+ * core count minus the one this run uses, so that such a platform behaves as before.
+ */
+export function cpuIdleCores(from: CpuTimes, to: CpuTimes, cores: number): number {
+  const total = to.totalMs - from.totalMs;
+  if (!(total > 0)) return Math.max(0, cores - 1);
+  return ((to.idleMs - from.idleMs) / total) * cores;
 }
 
 /** `--jobs`: a fixed number of lanes, or 'auto' (up to the machine's cores, decided from the work). */
@@ -101,85 +127,22 @@ export class TaskPool {
     const wanted = auto ? availableParallelism() : Math.floor(jobs) || 1;
     const lanes = Math.max(1, Math.min(wanted, tasks.length));
     if (lanes === 1 || script === null) return this.runInProcess(tasks, hooks);
-    const outputs: TaskOutput[] = new Array(tasks.length);
-    let next = 0;
-    let failed = false;
-    const stop = () => failed || hooks.aborted?.() === true;
-    const take = (): number | null => (stop() || next >= tasks.length ? null : next++);
-    const finish = (i: number, out: TaskOutput) => {
-      outputs[i] = out;
-      hooks.onDone?.(tasks[i], out);
-    };
-
+    const q = new TaskQueue(tasks, hooks, lanes);
     const workerLanes: Promise<void>[] = [];
     const startWorkers = () => {
       this.workers = Array.from({ length: lanes - 1 }, () => new Worker(script));
-      workerLanes.push(...this.workers.map(workerLane));
+      workerLanes.push(...this.workers.map((w) => workerLane(w, q)));
     };
     const startMs = tasks[0].report ? WORKER_START_MS.pdf : WORKER_START_MS.plain;
-    // The fastest task so far (CPU time, taskWithCpu): the first ones also pay JIT warm-up, 3–5×
-    // a warm task on the bench build, which would overstate the work left; decide from the third.
-    let fastestMs = Infinity, mainDone = 0;
-    const mainLane = async (): Promise<void> => {
-      for (let i = take(); i !== null; i = take()) {
-        hooks.onStart?.(tasks[i]);
-        const { out, cpuMs } = await taskWithCpu(tasks[i]);
-        finish(i, out);
-        fastestMs = Math.min(fastestMs, cpuMs);
-        mainDone++;
-        // 'auto': is the work left worth the workers' start-up?
-        if (auto && this.workers.length === 0 && !stop() && mainDone >= 3 && workersPayOff(tasks.length - next, fastestMs, startMs) && coreToSpare(loadavg()[0], wanted)) startWorkers();
-      }
+    const cpuAtStart = cpuTimes();
+    // 'auto': after each main-thread task, is the work left worth the workers' start-up?
+    const afterMainTask = (fastestMs: number, mainDone: number) => {
+      if (auto && this.workers.length === 0 && !q.stopped() && mainDone >= 3 &&
+        workersPayOff(q.left(), fastestMs, startMs) && coreToSpare(cpuIdleCores(cpuAtStart, cpuTimes(), cpus().length))) startWorkers();
     };
-
-    const workerLane = (worker: Worker): Promise<void> =>
-      new Promise((resolve, reject) => {
-        const held = new Map<number, TaskInput>();
-        const fail = (e: TaskFailure) => {
-          failed = true;
-          worker.off('message', onMessage);
-          worker.off('error', onError);
-          worker.off('exit', onExit);
-          reject(e);
-        };
-        const refill = () => {
-          // Hold two tasks while the others can still be shared out, one near the end, so the
-          // last tasks are not queued behind each other on one worker while another lane idles.
-          const depth = tasks.length - next > lanes ? WORKER_DEPTH : 1;
-          while (held.size < depth) {
-            const i = take();
-            if (i === null) break;
-            held.set(i, tasks[i]);
-            hooks.onStart?.(tasks[i]);
-            worker.postMessage({ id: i, task: tasks[i] });
-          }
-          if (held.size === 0) {
-            worker.off('message', onMessage);
-            worker.off('error', onError);
-            worker.off('exit', onExit);
-            resolve();
-          }
-        };
-        const onMessage = (msg: Reply) => {
-          const task = held.get(msg.id);
-          if (!task) return;
-          held.delete(msg.id);
-          if (!msg.ok || !msg.out) return fail(new TaskFailure(`analysis of '${task.key}' failed: ${msg.message ?? 'unknown error'}`));
-          finish(msg.id, msg.out);
-          refill();
-        };
-        const first = () => [...held.values()][0]?.key ?? '(no task)';
-        const onError = (e: Error) => fail(new TaskFailure(`analysis of '${first()}' failed: ${e.message}`));
-        const onExit = (code: number) => fail(new TaskFailure(`worker for '${first()}' stopped (exit ${code})`));
-        worker.on('message', onMessage);
-        worker.on('error', onError);
-        worker.on('exit', onExit);
-        refill();
-      });
-
     if (!auto) startWorkers();
     try {
-      const main = await Promise.allSettled([mainLane()]);
+      const main = await Promise.allSettled([mainLane(q, afterMainTask)]);
       // The main lane is done taking tasks, so no worker starts after this point.
       const settled = [...main, ...(await Promise.allSettled(workerLanes))];
       const rejected = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
@@ -187,7 +150,7 @@ export class TaskPool {
     } finally {
       await this.terminate();
     }
-    return outputs;
+    return q.outputs;
   }
 
   private async runInProcess(tasks: TaskInput[], hooks: PoolHooks): Promise<TaskOutput[]> {
@@ -201,4 +164,95 @@ export class TaskPool {
     }
     return outputs;
   }
+}
+
+/** The tasks of one run: hands out indices in order, keeps outputs in task order, and stops handing out after a failure or an abort. */
+class TaskQueue {
+  readonly outputs: TaskOutput[];
+  private next = 0;
+  private failed = false;
+  constructor(readonly tasks: TaskInput[], readonly hooks: PoolHooks, readonly lanes: number) {
+    this.outputs = new Array(tasks.length);
+  }
+  stopped(): boolean {
+    return this.failed || this.hooks.aborted?.() === true;
+  }
+  take(): number | null {
+    return this.stopped() || this.next >= this.tasks.length ? null : this.next++;
+  }
+  /** Tasks not yet handed out. */
+  left(): number {
+    return this.tasks.length - this.next;
+  }
+  finish(i: number, out: TaskOutput): void {
+    this.outputs[i] = out;
+    this.hooks.onDone?.(this.tasks[i], out);
+  }
+  fail(): void {
+    this.failed = true;
+  }
+}
+
+/**
+ * The main thread's lane. `afterTask` gets the fastest task's CPU time so far (taskWithCpu) and
+ * how many tasks this lane finished: the first ones also pay JIT warm-up, 3–5× a warm task on the
+ * bench build, which would overstate the work left, so the decision to start workers waits.
+ */
+async function mainLane(q: TaskQueue, afterTask: (fastestMs: number, done: number) => void): Promise<void> {
+  let fastestMs = Infinity, done = 0;
+  for (let i = q.take(); i !== null; i = q.take()) {
+    q.hooks.onStart?.(q.tasks[i]);
+    const { out, cpuMs } = await taskWithCpu(q.tasks[i]);
+    q.finish(i, out);
+    fastestMs = Math.min(fastestMs, cpuMs);
+    afterTask(fastestMs, ++done);
+  }
+}
+
+/** One worker's lane: keeps the worker fed from the queue until it is empty; rejects (and stops the queue) on a failed task or a dead worker. */
+function workerLane(worker: Worker, q: TaskQueue): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const held = new Map<number, TaskInput>();
+    const detach = () => {
+      worker.off('message', onMessage);
+      worker.off('error', onError);
+      worker.off('exit', onExit);
+    };
+    const fail = (e: TaskFailure) => {
+      q.fail();
+      detach();
+      reject(e);
+    };
+    const refill = () => {
+      // Hold two tasks while the others can still be shared out, one near the end, so the
+      // last tasks are not queued behind each other on one worker while another lane idles.
+      const depth = q.left() > q.lanes ? WORKER_DEPTH : 1;
+      while (held.size < depth) {
+        const i = q.take();
+        if (i === null) break;
+        held.set(i, q.tasks[i]);
+        q.hooks.onStart?.(q.tasks[i]);
+        worker.postMessage({ id: i, task: q.tasks[i] });
+      }
+      if (held.size === 0) {
+        detach();
+        resolve();
+      }
+    };
+    const onMessage = (msg: Reply) => {
+      const task = held.get(msg.id);
+      if (!task) return;
+      held.delete(msg.id);
+      if (!msg.ok || !msg.out) return fail(new TaskFailure(`analysis of '${task.key}' failed: ${msg.message ?? 'unknown error'}`));
+      q.finish(msg.id, msg.out);
+      refill();
+    };
+    const first = () => [...held.values()][0]?.key ?? '(no task)';
+    const onError = (e: Error) => fail(new TaskFailure(`analysis of '${first()}' failed: ${e.message}`));
+    const onExit = (code: number) => fail(new TaskFailure(`worker for '${first()}' stopped (exit ${code})`));
+    worker.on('message', onMessage);
+    worker.on('error', onError);
+    worker.on('exit', onExit);
+    refill();
+  });
 }

@@ -1,6 +1,6 @@
 // The default --jobs ('auto') starts workers only when the work left outweighs their start-up.
 import { describe, expect, it } from 'vitest';
-import { coreToSpare, workersPayOff } from '../../src/batch/pool.js';
+import { coreToSpare, cpuIdleCores, cpuTimes, workersPayOff } from '../../src/batch/pool.js';
 import { parseJobs } from '../../src/cli/parse.js';
 
 describe("--jobs 'auto'", () => {
@@ -16,13 +16,27 @@ describe("--jobs 'auto'", () => {
   });
 
   it('starts no worker while other processes keep every core busy', () => {
-    // 1-minute load average against the core count: below it a core is idle part of the time.
-    expect(coreToSpare(0.3, 2)).toBe(true);
-    expect(coreToSpare(1.9, 2)).toBe(true);
-    expect(coreToSpare(2, 2)).toBe(false);
-    expect(coreToSpare(11, 2)).toBe(false);
-    // Platforms without a load average report 0.
-    expect(coreToSpare(0, 2)).toBe(true);
+    // Idle CPU in cores over the decision window: at least half a core idle is a core to spare.
+    expect(coreToSpare(1)).toBe(true);
+    expect(coreToSpare(0.5)).toBe(true);
+    expect(coreToSpare(0.49)).toBe(false);
+    expect(coreToSpare(0)).toBe(false);
+  });
+
+  it('measures idle cores from two CPU-time readings', () => {
+    // Hand-worked: 2 cores over 1 s = 2000 ms of CPU time; 1000 ms idle → one idle core.
+    expect(cpuIdleCores({ idleMs: 500, totalMs: 4000 }, { idleMs: 1500, totalMs: 6000 }, 2)).toBe(1);
+    // Both cores busy for the whole window: no idle time.
+    expect(cpuIdleCores({ idleMs: 500, totalMs: 4000 }, { idleMs: 500, totalMs: 6000 }, 2)).toBe(0);
+    // No time between the readings: assume the other cores are free (the old behaviour).
+    expect(cpuIdleCores({ idleMs: 1, totalMs: 2 }, { idleMs: 1, totalMs: 2 }, 2)).toBe(1);
+    // A real reading: totals only grow, and the idle share lies within 0..cores.
+    const a = cpuTimes();
+    const b = cpuTimes();
+    expect(b.totalMs).toBeGreaterThanOrEqual(a.totalMs);
+    const idle = cpuIdleCores(a, b, 2);
+    expect(idle).toBeGreaterThanOrEqual(0);
+    expect(idle).toBeLessThanOrEqual(2);
   });
 
   it('is the word auto or a whole number on the command line', () => {
