@@ -1,6 +1,6 @@
 // Limits stage: limit-set files and profiles, judging metrics, build statistics.
 export type { LimitSet, LimitCheck, CheckDraft, PeakCheck, PercentileCheck, CoverageCheck, BeamPeakCheck, ProfileInfo } from './limitSet.js';
-export { CHECK_KINDS } from './limitSet.js';
+export { CHECK_KINDS } from './checkKinds.js';
 export { checkBound, kindAllowed, defaultCheckName } from './checkSense.js';
 export { quantityUnit } from '../quantity.js';
 export { validateLimitSet, validateExtraChecks, formatKeyPath, UNKNOWN_KEY, type KeyPath, type Locate } from './validateLimitSet.js';

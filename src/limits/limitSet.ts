@@ -129,5 +129,3 @@ export interface ProfileInfo {
   file: string;
 }
 
-/** Every check kind (owned by the registry, checkKinds.ts). */
-export { CHECK_KINDS } from './checkKinds.js';

@@ -101,3 +101,21 @@ export interface LayoutReader {
   /** Plan a header of this layout; null when the header is not of this layout (the next is tried). */
   plan(cells: string[], ctx: PlanContext): PlanResult | null;
 }
+
+/** Long layout: num slots 0,1 = angles (θ,φ or el,az), 2(,3) = value(s), then frequency. */
+export interface LongPlan extends PlanFacts {
+  layout: 'long';
+  pairValues: boolean;
+  freqSlot: number;
+  /** Multiply the frequency column by this to get Hz; null when the unit was assumed per value. */
+  freqFactor: number | null;
+  unitKey: number;
+  beamKey: number;
+  polKey: number;
+}
+
+/** Matrix layout: every field is a number; field 0 the row angle, the rest values at colAngles. */
+export interface MatrixPlan extends PlanFacts {
+  layout: 'matrix';
+  colAnglesRaw: number[];
+}

@@ -10,22 +10,10 @@ import { addField, fieldPlan, KEY, NUM, SKIP } from '../fieldPlan.js';
 import { assumedFrequencyHz } from '../frequencyText.js';
 import { inputError } from '../inputError.js';
 import type { ColumnInfo, ColumnRole, JobSpec, RawBeam } from '../types.js';
-import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
+import type { BeamContext, LayoutReader, LayoutSink, LongPlan, PlanContext, PlanResult } from './layoutTypes.js';
 import { LongSink, type LongGroup } from './longSink.js';
 import { polarizationBeams } from '../polarizationBeams.js';
 import { angleColumns, assumedValueUnit, checkValueUnit, fail, FREQ_FACTORS, headerRoles, metadataQuantity, quantityOfFile, rolesForDetection, VALUE_ROLES } from './planParts.js';
-
-/** Long layout: num slots 0,1 = angles (θ,φ or el,az), 2(,3) = value(s), then frequency. */
-export interface LongPlan extends PlanFacts {
-  layout: 'long';
-  pairValues: boolean;
-  freqSlot: number;
-  /** Multiply the frequency column by this to get Hz; null when the unit was assumed per value. */
-  freqFactor: number | null;
-  unitKey: number;
-  beamKey: number;
-  polKey: number;
-}
 
 const UNKNOWN_LAYOUT =
   'theta and phi (or azimuth and elevation) columns for the long layout, or a matrix header ' +

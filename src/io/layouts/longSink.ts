@@ -1,6 +1,6 @@
 import { levelToDb } from './levelToDb.js';
 import { pairComponent } from '../columnRoles.js';
-import type { LongPlan } from './longLayout.js';
+import type { LongPlan } from './layoutTypes.js';
 import type { DropoutLog } from './dropoutLog.js';
 import { RowAngles } from './rowAngles.js';
 import { ErrorList, inputError } from '../inputError.js';

@@ -9,15 +9,9 @@ import { parseHeaderCell } from '../headerCell.js';
 import { inputError } from '../inputError.js';
 import { parseNumberText } from '../numberText.js';
 import type { ColumnInfo, RawBeam } from '../types.js';
-import type { BeamContext, LayoutReader, LayoutSink, PlanContext, PlanFacts, PlanResult } from './layoutTypes.js';
+import type { BeamContext, LayoutReader, LayoutSink, MatrixPlan, PlanContext, PlanResult } from './layoutTypes.js';
 import { MatrixSink } from './matrixSink.js';
 import { assumedValueUnit, checkValueUnit, fail, metadataQuantity, quantityOfFile } from './planParts.js';
-
-/** Matrix layout: every field is a number; field 0 the row angle, the rest values at colAngles. */
-export interface MatrixPlan extends PlanFacts {
-  layout: 'matrix';
-  colAnglesRaw: number[];
-}
 
 /** Row-angle name of a matrix corner cell ('theta', 'el', 'elevation', also 'theta\\phi'), or null. */
 function cornerName(cell: string): 'theta' | 'el' | 'elevation' | null {

@@ -1,5 +1,5 @@
 import { levelToDb } from './levelToDb.js';
-import type { MatrixPlan } from './matrixLayout.js';
+import type { MatrixPlan } from './layoutTypes.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { RowLocator, RowSink } from '../rowSink.js';
 import { SampleAccumulator } from '../sampleAccumulator.js';
