@@ -1,7 +1,8 @@
 // Readers: chamber exports → raw beams → Measurements; job file; inspect.
 export { readExportFile } from './readExportFile.js';
 export { assembleMeasurements, MAX_RESAMPLE_DISTANCE_DEG, type AssembleOptions } from './assembleMeasurements.js';
-export { loadJobFile, findJobFile, JOB_FILE_NAMES } from './jobFile.js';
+export { loadJobFile } from './jobFile.js';
+export { findJobFile, JOB_FILE_NAMES } from './findJobFile.js';
 export { inspectInput, formatInspect, type InspectOptions } from './inspectInput.js';
 export { findExportFiles } from './findExportFiles.js';
 export { calibrationOffsetDb } from './calibrationOffset.js';

@@ -1,4 +1,3 @@
-import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { InputError } from '../types.js';
 import { readTrustedText, TrustedFileError } from './trustedFile.js';
@@ -7,17 +6,6 @@ import { jobFileSchema } from '../config/jobFileSchema.js';
 import { validateConfig } from '../config/validateConfig.js';
 import { parseConfigText } from '../config/yamlSource.js';
 
-/** Job-file names looked for in an input folder, in this order. */
-export const JOB_FILE_NAMES = ['spherecov.yaml', 'spherecov.yml', 'spherecov.json'];
-
-/** The job file of an input folder, or null. */
-export function findJobFile(inputDir: string): string | null {
-  for (const name of JOB_FILE_NAMES) {
-    const p = path.join(inputDir, name);
-    if (existsSync(p)) return p;
-  }
-  return null;
-}
 
 /**
  * Load and validate a job file (YAML or JSON) against the one job-file schema

@@ -1,7 +1,8 @@
 import path from 'node:path';
 import { assembleMeasurements } from '../../src/io/assembleMeasurements.js';
 import { findExportFiles } from '../../src/io/findExportFiles.js';
-import { findJobFile, loadJobFile } from '../../src/io/jobFile.js';
+import { loadJobFile } from '../../src/io/jobFile.js';
+import { findJobFile } from '../../src/io/findJobFile.js';
 import { readExportFile } from '../../src/io/readExportFile.js';
 import type { FileReadResult, ReadContext } from '../../src/io/types.js';
 
