@@ -39,7 +39,7 @@ async function findFiles(input: string, report: InspectReport): Promise<ExportFi
  * the grid; all warnings and errors. Never throws for bad input.
  */
 export async function inspectInput(input: string, opts: InspectOptions = {}): Promise<InspectReport> {
-  const report: InspectReport = { input, job: { path: null, errors: [] }, files: [], skippedLinks: [], measurements: [], errors: [], warnings: [] };
+  const report: InspectReport = { input, job: { path: null, errors: [], notices: [] }, files: [], skippedLinks: [], measurements: [], errors: [], warnings: [] };
   const found = await findFiles(input, report);
   if (!found) return report;
   report.skippedLinks = found.skippedLinks.map(toPosix);
@@ -49,7 +49,7 @@ export async function inspectInput(input: string, opts: InspectOptions = {}): Pr
   let job: JobSpec | undefined;
   if (jobPath) {
     const loaded = loadJobFile(jobPath);
-    report.job = { path: jobPath, errors: loaded.errors };
+    report.job = { path: jobPath, errors: loaded.errors, notices: loaded.notices };
     report.errors.push(...loaded.errors);
     job = loaded.job ?? undefined;
   }
@@ -110,6 +110,7 @@ function decimalText(d: DecimalSeparatorSeen | null | undefined): string {
 export function formatInspect(r: InspectReport): string {
   const out: string[] = [`input: ${r.input}`, `job file: ${r.job.path ?? 'none'}`];
   for (const e of r.job.errors) out.push(`  error: ${e.message}`);
+  for (const n of r.job.notices) out.push(`  notice: ${n.message}`);
   for (const l of r.skippedLinks) out.push(`skipped link: ${l} (broken, or pointing outside the input folder; not read)`);
   const delimName: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
   for (const f of r.files) {

@@ -174,7 +174,8 @@ export interface InspectMeasurement {
 
 export interface InspectReport {
   input: string;
-  job: { path: string | null; errors: InputError[] };
+  /** The job file: its errors, and its deprecation notices (keys in an old spelling, read; analyze prints the same on stderr). */
+  job: { path: string | null; errors: InputError[]; notices: InputError[] };
   /** Symbolic links not followed (broken, or pointing outside the input folder), relative POSIX paths; analyze lists the same in results.json settings.skippedLinks. */
   skippedLinks: string[];
   files: (FileReadResult['info'] & {

@@ -6,7 +6,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { inspectInput } from '../../src/io/inspectInput.js';
+import { formatInspect, inspectInput } from '../../src/io/inspectInput.js';
 import { runAnalyze } from '../../src/batch/runAnalyze.js';
 
 const sandbox = mkdtempSync(path.join(tmpdir(), 'spherecov-inspect-'));
@@ -36,5 +36,26 @@ describe('inspect and analyze name units alike', () => {
     expect(fromInspect).toEqual(fromAnalyze);
     expect(fromInspect.map((m) => m.unit)).toEqual([nfc, 'U-02']);
     expect(fromInspect[0].beams).toEqual(['1', '2']);
+  });
+});
+
+describe('inspect shows what analyze would say about the job file', () => {
+  it('a key in the old spelling: inspect lists the same deprecation notice analyze prints, and reads the job', async () => {
+    const input = path.join(sandbox, 'old-job');
+    mkdirSync(input, { recursive: true });
+    writeFileSync(path.join(input, 'U-01_beam1.csv'), exportText(10));
+    writeFileSync(path.join(input, 'spherecov.yaml'), 'coverageThresholds: [8]\n');
+    const seen = await inspectInput(input);
+    const notice = "spherecov.yaml:1:1: coverageThresholds: found 'coverageThresholds', expected coverage_thresholds (the old spelling is still read but deprecated: configuration keys are snake_case)";
+    expect(seen.job.errors).toEqual([]);
+    expect(seen.job.notices.map((n) => n.message)).toEqual([notice]);
+    expect(formatInspect(seen).split('\n')).toContain(`  notice: ${notice}`);
+    const stderr: string[] = [];
+    const { results } = await runAnalyze({
+      input, outDir: path.join(sandbox, 'out-old-job'), pdf: false, jobs: 1,
+      io: { stdout: () => undefined, stderr: (s: string) => void stderr.push(s), stderrIsTTY: false },
+    });
+    expect(results.settings.warnings.some((w) => w.endsWith(notice))).toBe(true);
+    expect(results.settings.coverageThresholds).toEqual([8]);
   });
 });
