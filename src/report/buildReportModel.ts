@@ -5,7 +5,7 @@ import { distinctLimitMarks } from './cdfLimitMarks.js';
 import { lineStyle } from './lineStyles.js';
 import type { LimitMark } from './plots.js';
 import { getKeyed, unitKey, type BuildReportInput, type MapThumbnail } from './reportTypes.js';
-import { valueScale, type ValueScale } from './unitMaps.js';
+import { valueScale, type ValueScale } from './valueScale.js';
 
 /** One row of the summary's units table; `number` is the key the CDF overlay's legend uses. */
 export interface SummaryRow {

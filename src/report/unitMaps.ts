@@ -1,34 +1,14 @@
 import type { Measurement, Quantity, TotalScanPattern } from '../types.js';
 import { CATEGORICAL, colorMapLut, DIVERGING_LUT, lutIndex, type ColorMapName, type Rgb } from './colorMap.js';
-import { niceRange } from './format.js';
 import { classBoundaries, type MapRaster } from './mapRaster.js';
 import { colorTable, paintMapPng } from './paintMap.js';
 import { cachedRaster } from './rasterCache.js';
 import { rememberUnitRaster } from './thumbnail.js';
-import { isAtOrBetter, isLowerBetter } from '../quantity.js';
+import { isAtOrBetter } from '../quantity.js';
+import { deltaScaleMaxDb, finiteRange, scaleT, valueScale, type ValueScale } from './valueScale.js';
 
-/** A value → colour scale with best at t = 1 (top of the bar) for every quantity. */
 /** Differences to the reference beyond ± this many dB are outlined on the difference map. */
 export const DELTA_OUTLINE_DB = 1;
-
-export interface ValueScale {
-  lo: number;
-  hi: number;
-  step: number;
-  ticks: number[];
-  invert: boolean;
-}
-
-export function valueScale(lo: number, hi: number, q: Quantity): ValueScale {
-  const r = niceRange(lo, hi, 6);
-  return { lo: r.lo, hi: r.hi, step: r.step, ticks: r.ticks, invert: isLowerBetter(q) };
-}
-
-/** Position on the colour bar, 0 … 1, of a value (best at 1). */
-export function scaleT(s: ValueScale, v: number): number {
-  const t = (v - s.lo) / (s.hi - s.lo);
-  return s.invert ? 1 - t : t;
-}
 
 export const better = (q: Quantity, v: number, t: number): boolean => isAtOrBetter(q, v, t);
 
@@ -47,18 +27,6 @@ export interface UnitMaps {
 
 export const beamColor = (b: number): Rgb => CATEGORICAL[b % CATEGORICAL.length];
 
-function finiteRange(values: ArrayLike<number>): [number, number] {
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (let i = 0; i < values.length; i++) {
-    const v = values[i];
-    if (Number.isFinite(v)) {
-      if (v < lo) lo = v;
-      if (v > hi) hi = v;
-    }
-  }
-  return Number.isFinite(lo) ? [lo, hi] : [0, 1];
-}
 
 /** Per grid point: the colour-table entry of its value, or −1 when the value is not finite. */
 function pointColors(values: ArrayLike<number>, entry: (v: number) => number): Int16Array {
@@ -109,8 +77,7 @@ export function buildUnitMaps(
   let deltaEdges: number[] = [];
   const delta = opts.delta;
   if (delta && delta.length === m.grid.thetaDeg.length) {
-    const [dlo, dhi] = finiteRange(delta);
-    const dMax = niceRange(0, Math.max(Math.abs(dlo), Math.abs(dhi), 0.5), 4).hi;
+    const dMax = deltaScaleMaxDb(delta);
     deltaMaxDb = dMax;
     deltaPng = paintMapPng(width, height, point, pointColors(delta, (d) => lutIndex(0.5 + d / (2 * dMax))), DIVERGING_LUT);
     // Outline where the units differ by more than the repeatability of an OTA measurement

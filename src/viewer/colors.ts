@@ -1,40 +1,25 @@
 /**
  * Colours of the page's maps and sphere: the report's own colour maps (src/report/colorMap.ts),
- * scales as in src/report/unitMaps.ts (nice range over the finite values; best at the top of the
+ * scales from src/report/valueScale.ts (nice range over the finite values; best at the top of the
  * bar for every quantity; a symmetric diverging scale for differences).
  */
 import type { Quantity } from '../types.js';
 import { CATEGORICAL, colorMapLut, DIVERGING_LUT, lutIndex, type ColorMapName } from '../report/colorMap.js';
-import { niceRange } from '../report/format.js';
+import { deltaScaleMaxDb, finiteRange, scaleT, valueScale, type ValueScale } from '../report/valueScale.js';
 
-export interface Scale { lo: number; hi: number; ticks: number[]; invert: boolean; diverging: boolean }
+/** A map scale of the page: the PDF's value scale (src/report/valueScale.ts), or its symmetric difference scale. */
+export interface Scale extends ValueScale { diverging: boolean }
 
-export function finiteRange(values: ArrayLike<number>): [number, number] {
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 0; i < values.length; i++) {
-    const v = values[i];
-    if (Number.isFinite(v)) { if (v < lo) lo = v; if (v > hi) hi = v; }
-  }
-  return Number.isFinite(lo) ? [lo, hi] : [0, 1];
-}
-
-/** The value scale of the PDF's TSP map (unitMaps.valueScale): a nice range, best at t = 1. */
-export function valueScale(values: ArrayLike<number>, q: Quantity): Scale {
+/** The value scale of the PDF's TSP map over the finite values, best at t = 1. */
+export function valueScaleOf(values: ArrayLike<number>, q: Quantity): Scale {
   const [lo, hi] = finiteRange(values);
-  const r = niceRange(lo, hi, 6);
-  return { lo: r.lo, hi: r.hi, ticks: r.ticks, invert: q === 'eis', diverging: false };
+  return { ...valueScale(lo, hi, q), diverging: false };
 }
 
-/** The PDF's difference scale: symmetric about 0, at least ±0.5 dB. */
+/** The PDF's difference scale: symmetric about 0, at least ±0.5 dB (deltaScaleMaxDb). */
 export function diffScale(delta: ArrayLike<number>): Scale {
-  const [lo, hi] = finiteRange(delta);
-  const r = niceRange(0, Math.max(Math.abs(lo), Math.abs(hi), 0.5), 4);
-  return { lo: -r.hi, hi: r.hi, ticks: [-r.hi, 0, r.hi], invert: false, diverging: true };
-}
-
-export function scaleT(s: Scale, v: number): number {
-  const t = (v - s.lo) / (s.hi - s.lo);
-  return s.invert ? 1 - t : t;
+  const hi = deltaScaleMaxDb(delta);
+  return { lo: -hi, hi, step: hi, ticks: [-hi, 0, hi], invert: false, diverging: true };
 }
 
 /** RGBA per grid point (alpha 0 for a non-finite value). */

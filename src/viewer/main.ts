@@ -10,7 +10,7 @@ import type { ViewerBuild, ViewerUnit } from './viewerData.js';
 import { unpackMeasurement } from './unpack.js';
 import { beamsAt, recompute, type Computed } from './compute.js';
 import { el, freqText, num, pctText } from './dom.js';
-import { beamColors, beamCss, cssColorAt, diffScale, pointColors, valueScale, type Scale } from './colors.js';
+import { beamColors, beamCss, cssColorAt, diffScale, pointColors, valueScaleOf, type Scale } from './colors.js';
 import { MapView } from './mapView.js';
 import { Plot } from './plots.js';
 import { SphereView, webglAvailable } from './sphere3d.js';
@@ -281,7 +281,7 @@ function paintViews(): void {
   if (!c) { colors = new Uint8ClampedArray(4 * n); scale = null; }
   else if (state.mode === 'best') { colors = beamColors(c.tsp.bestBeam); scale = null; }
   else if (state.mode === 'diff' && state.diff) { scale = diffScale(state.diff); colors = pointColors(state.diff, scale, data.colorMap); }
-  else { scale = valueScale(L.fullTsp, u.quantity); colors = pointColors(c.tsp.values, scale, data.colorMap); }
+  else { scale = valueScaleOf(L.fullTsp, u.quantity); colors = pointColors(c.tsp.values, scale, data.colorMap); }
   mapView.paint(colors);
   sphere?.paint(colors);
   renderColorBar(u);

@@ -5,7 +5,7 @@ import { insideEllipse, OUTSIDE } from '../mapRaster.js';
 import { paintMapPng } from '../paintMap.js';
 import { contentWidth, ensureSpace, heading, INK, MARGIN, note, oneLine, type Doc } from '../pdfDoc.js';
 import type { MapThumbnail, ReportSettings } from '../reportTypes.js';
-import { scaleT, type ValueScale } from '../unitMaps.js';
+import { scaleT, type ValueScale } from '../valueScale.js';
 import type { QuantityGroup } from '../buildReportModel.js';
 import { quantityLabel } from '../../quantity.js';
 

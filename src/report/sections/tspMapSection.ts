@@ -5,7 +5,8 @@ import { fmt } from '../format.js';
 import { heading, INK, MARGIN, note, type Doc } from '../pdfDoc.js';
 import type { ReportSettings } from '../reportTypes.js';
 import { thresholdSourceText } from '../thresholdText.js';
-import { scaleT, type UnitMaps } from '../unitMaps.js';
+import type { UnitMaps } from '../unitMaps.js';
+import { scaleT } from '../valueScale.js';
 import type { UnitReportModel } from '../unitReportModel.js';
 import { clearOfPhiLabels, mapBoxFor } from './mapBox.js';
 
