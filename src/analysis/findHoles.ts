@@ -36,7 +36,7 @@ export function findHoles(
   beamIds: string[],
   threshold: number,
   quantity: Quantity,
-  adjacency: GridAdjacency = gridNeighbors(grid),
+  adjacency?: GridAdjacency,
 ): CoverageHole[] {
   return findHolesWithLabels(grid, tsp, beams, beamIds, threshold, quantity, adjacency).holes;
 }
@@ -44,6 +44,8 @@ export function findHoles(
 /**
  * `findHoles` plus the membership of every grid point: holeOf[i] is the index in `holes` of the
  * hole that point i belongs to, or −1 (for outlining holes on a map). Same rules and cost.
+ * The neighbour graph is built only when some point is in a hole (when not given): on a pattern
+ * without holes it was most of the cost (about 20 ms of 25 on a 1° grid of 64,442 points).
  * @example findHolesWithLabels(grid, tsp, beams, ids, 10, 'eirp').holeOf[42] // 0: in the largest hole
  */
 export function findHolesWithLabels(
@@ -53,19 +55,22 @@ export function findHolesWithLabels(
   beamIds: string[],
   threshold: number,
   quantity: Quantity,
-  adjacency: GridAdjacency = gridNeighbors(grid),
+  adjacency?: GridAdjacency,
 ): { holes: CoverageHole[]; holeOf: Int32Array } {
   if (beams.length !== beamIds.length) throw new Error(`findHoles: ${beams.length} beams but ${beamIds.length} ids`);
   const n = grid.thetaDeg.length;
   const values = tsp.values;
   const lowerIsBetter = isLowerBetter(quantity);
   const inHole = new Uint8Array(n);
+  let any = false;
   for (let i = 0; i < n; i++) {
     const v = values[i];
     inHole[i] = Number.isNaN(v) || (lowerIsBetter ? v > threshold : v < threshold) ? 1 : 0;
+    any ||= inHole[i] === 1;
   }
-  const { offsets, neighbors } = adjacency;
   const holeOf = new Int32Array(n).fill(-1);
+  if (!any) return { holes: [], holeOf };
+  const { offsets, neighbors } = adjacency ?? gridNeighbors(grid);
   const seen = new Uint8Array(n);
   const queue = new Int32Array(n);
   const found: (CoverageHole & { first: number })[] = [];

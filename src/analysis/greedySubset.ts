@@ -1,5 +1,6 @@
-import type { BeamSubset, Quantity, SphereGrid } from '../types.js';
+import type { BeamSubset, Quantity, SphereGrid, TotalScanPattern } from '../types.js';
 import { createPercentileSelector } from './percentileSelector.js';
+import { createPatchedPercentile } from './patchedPercentile.js';
 import { isLowerBetter, worstValue } from '../quantity.js';
 
 /**
@@ -28,6 +29,12 @@ import { isLowerBetter, worstValue } from '../quantity.js';
  * that reach T and are not reached yet, summed in point order (the same sum as a recount from
  * scratch, bit for bit). Each beam's list of points that reach T is compacted as points get
  * reached.
+ * The subset's percentile after each step is read by `createPatchedPercentile`'s whole-array
+ * evaluation (the selector's rule, bit for bit) on bins between the previous step's value and P:
+ * the running pattern only gets better, so P(subset) never goes back and never passes P.
+ * The full pattern is the total scan pattern; a caller that has it (`tsp`, from
+ * `totalScanPattern` of the same beams) saves one pass over every beam, used only when it holds
+ * no NaN (where a beam has none, NaN never wins here but stays in the TSP from beam 0).
  * Cost: O(B·n) to list the points, then per step O(n) for the percentile plus the compaction of
  * the lists re-evaluated (O(B·n) over the whole search); memory ≤ B·n int32, shrinking.
  * Units: values and tolerance in dB (dBm/dBi).
@@ -43,6 +50,7 @@ export function greedySubset(
   quantity: Quantity,
   levelPct: number,
   toleranceDb = 0.5,
+  tsp?: TotalScanPattern,
 ): BeamSubset {
   if (beams.length !== ids.length) throw new Error(`greedySubset: ${beams.length} beams but ${ids.length} ids`);
   if (!(toleranceDb >= 0)) throw new Error(`greedySubset: tolerance ${toleranceDb} dB must be ≥ 0`);
@@ -50,23 +58,56 @@ export function greedySubset(
   const lowerIsBetter = isLowerBetter(quantity);
   const select = createPercentileSelector(weightSr, quantity, levelPct);
   const finite = (v: number | null): number | null => (v === null || !Number.isFinite(v) ? null : v);
-  const running = new Float64Array(n).fill(worstValue(quantity));
-  const bestBeam = new Int32Array(n).fill(-1);
-  for (let k = 0; k < B; k++) mergeBeam(running, beams[k], lowerIsBetter, bestBeam, k);
+  const { running, bestBeam } = fullPattern(beams, n, quantity, tsp);
   const full = finite(select(running));
   const within = (v: number | null): boolean => full !== null && v !== null && Math.abs(full - v) <= toleranceDb + 1e-12;
   running.fill(worstValue(quantity));
-  const order = full === null ? shareOrder(bestBeam, weightSr, B) : coverageOrder(beams, weightSr, lowerIsBetter ? full + toleranceDb : full - toleranceDb, lowerIsBetter);
+  const order = full === null ? shareOrder(bestBeam(), weightSr, B) : coverageOrder(beams, weightSr, lowerIsBetter ? full + toleranceDb : full - toleranceDb, lowerIsBetter);
   const subset: string[] = [];
   const curve: { count: number; value: number | null }[] = [];
+  const patched = createPatchedPercentile(weightSr, quantity, levelPct); // running never holds NaN
+  let previous: number | null = null;
   for (const k of order) {
     subset.push(ids[k]);
     mergeBeam(running, beams[k], lowerIsBetter);
-    const value = finite(select(running));
+    const value = finite(previous === null || full === null ? select(running) : stepPercentile(patched, running, previous, full));
     curve.push({ count: subset.length, value });
+    previous = value;
     if (within(value)) break;
   }
   return { levelPct, toleranceDb, beams: subset, curve };
+}
+
+/**
+ * The full codebook's pattern (each point's best value, NaN never better, worst where no beam has
+ * a value) as a fresh array, and, on demand, each point's best beam (−1: none better than worst).
+ * From `tsp` when it has no NaN: there its values are the same maxima (minima for eis), bit for bit.
+ */
+function fullPattern(beams: Float64Array[], n: number, quantity: Quantity, tsp: TotalScanPattern | undefined):
+  { running: Float64Array; bestBeam: () => Int32Array } {
+  const lowerIsBetter = isLowerBetter(quantity);
+  const merged = (): { running: Float64Array; bestBeam: Int32Array } => {
+    const running = new Float64Array(n).fill(worstValue(quantity));
+    const bestBeam = new Int32Array(n).fill(-1);
+    for (let k = 0; k < beams.length; k++) mergeBeam(running, beams[k], lowerIsBetter, bestBeam, k);
+    return { running, bestBeam };
+  };
+  if (tsp !== undefined && tsp.values.length === n && !tsp.values.some((v) => v !== v)) {
+    return { running: Float64Array.from(tsp.values), bestBeam: () => merged().bestBeam };
+  }
+  const m = merged();
+  return { running: m.running, bestBeam: () => m.bestBeam };
+}
+
+/**
+ * P(subset) after a step, knowing it lies between the previous step's value and P (both
+ * finite): bins over that range, padded (any range gives the same answer; a close one keeps the
+ * crossing bin small). undefined never comes back: no below/above bounds are passed.
+ */
+function stepPercentile(patched: ReturnType<typeof createPatchedPercentile>, running: Float64Array, previous: number, full: number): number | null {
+  const lo = Math.min(previous, full), hi = Math.max(previous, full);
+  const pad = 0.1 * (hi - lo) + 1e-9 * Math.max(1, Math.abs(lo), Math.abs(hi));
+  return patched.evaluateWhole(running, lo - pad, hi + pad) ?? null;
 }
 
 /**

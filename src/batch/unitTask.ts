@@ -191,7 +191,7 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     limitSet: ls ? { name: ls.name, source: ls.source } : null,
     analysisThreshold: threshold,
     holes: hT === null || !extras ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
-    subset: extras ? greedySubset(m.grid, beamValues, beamIds, m.quantity, level) : null,
+    subset: extras ? greedySubset(m.grid, beamValues, beamIds, m.quantity, level, undefined, tsp) : null,
     gridAdequacy: extras ? gridAdequacy(m.grid, tsp.values, m.quantity, input.percentilesPct, input.thresholds) : null,
     ...(confidence ? { confidence } : {}),
   };

@@ -8,6 +8,7 @@ import { beamRemoval } from '../../src/analysis/beamRemoval.js';
 import { greedySubset } from '../../src/analysis/greedySubset.js';
 import { createPatchedPercentile } from '../../src/analysis/patchedPercentile.js';
 import { createPercentileSelector } from '../../src/analysis/percentileSelector.js';
+import { totalScanPattern } from '../../src/coverage/totalScanPattern.js';
 import type { Quantity, SphereGrid } from '../../src/types.js';
 import { fullGrid, gaussianBeam, regularGrid, steps } from './fixtures.js';
 import { straightBeamRemoval, straightGreedySubset } from './straightforward.js';
@@ -66,6 +67,21 @@ describe('greedySubset fast path = straightforward evaluation (bit for bit)', ()
         expect(greedySubset(grid, beams, ids, quantity, levelPct, toleranceDb)).toEqual(straightGreedySubset(grid, beams, ids, quantity, levelPct, toleranceDb));
       }),
       { seed: 4711, numRuns: 150 },
+    );
+  });
+
+  it('given the total scan pattern (the batch passes computeMetrics\' one), the same answer; NaN samples too', () => {
+    fc.assert(
+      fc.property(caseArb, fc.boolean(), ({ g, count, seed, levelPct, quantity, toleranceDb }, withNaN) => {
+        const grid = grids[g], rnd = lcg(seed);
+        const beams = codebook(grid, count, rnd, quantity);
+        // A NaN in beam 0 stays in the TSP (no beam is better than NaN there) but never wins in the search.
+        if (withNaN) for (const b of beams) if (rnd() < 0.5) b[Math.floor(rnd() * b.length)] = NaN;
+        const ids = beams.map((_, k) => `b${k}`);
+        const tsp = totalScanPattern(beams, quantity);
+        expect(greedySubset(grid, beams, ids, quantity, levelPct, toleranceDb, tsp)).toEqual(straightGreedySubset(grid, beams, ids, quantity, levelPct, toleranceDb));
+      }),
+      { seed: 4712, numRuns: 150 },
     );
   });
 
