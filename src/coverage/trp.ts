@@ -4,6 +4,31 @@ import { sphereNormSr } from './sphereNormSr.js';
 const LN10_OVER_10 = Math.LN10 / 10;
 
 /**
+ * Exponentials of dB values written with at most two decimals (v = k/100 exactly as parsed, the
+ * usual chamber export): entry k + POWER_MEMO_OFFSET holds Math.exp(v·ln10/10) of that very v,
+ * computed on first use (0 = not yet: an exponential of |v| ≤ 300 is never 0). A value is looked
+ * up only when k/100 reproduces it bit for bit, so each term is the same double the exponential
+ * gives — only fewer exponentials are taken (a 64-beam 1° unit has 4.12 M samples but a few
+ * thousand distinct values; the exponential was over half of the metrics' time). Other values
+ * take the exponential directly. Module scratch, valid forever (a pure function of k).
+ */
+const POWER_MEMO_OFFSET = 30000;
+const powerMemo = new Float64Array(2 * POWER_MEMO_OFFSET + 1);
+
+/** Math.exp(v·ln10/10) (Eq. 1's 10^(v/10)), through powerMemo when v has two decimals. */
+function powerOf(v: number): number {
+  const k = Math.round(v * 100);
+  const j = k + POWER_MEMO_OFFSET;
+  if (k / 100 !== v || !(j >= 0 && j < powerMemo.length)) return Math.exp(v * LN10_OVER_10);
+  let e = powerMemo[j];
+  if (e === 0) {
+    e = Math.exp(v * LN10_OVER_10);
+    powerMemo[j] = e;
+  }
+  return e;
+}
+
+/**
  * Total radiated power of one beam: TRP = (1/4π) Σ w_i · 10^(EIRP_i/10), back to dBm (Eq. 1;
  * DESIGN.md "TRP"; TS 38.521-2 Annex M.4.3 for Voronoi weights on constant-density grids).
  * For gain patterns the same sum gives the sphere-average gain in dBi (radiation efficiency;
@@ -13,7 +38,7 @@ const LN10_OVER_10 = Math.LN10 / 10;
  * `weightSumSr` is that Σw when the caller already has it (grid.solidAngleSr, the same
  * Neumaier sum in the same order, so the result is bit-identical); omitted, it is summed here.
  * Neumaier-compensated sums, no allocation. Not defined for EIS (the caller passes null).
- * Cost O(n): one exponential a point.
+ * Cost O(n): one exponential a point, or a table look-up for values with two decimals (powerOf).
  * @throws RangeError when the lengths differ.
  * @example beamTrpDbm(new Float64Array(n).fill(10), grid.weightSr, true) // 10
  */
@@ -33,7 +58,7 @@ export function beamTrpDbm(
   let sum = 0;
   let comp = 0;
   for (let i = 0; i < n; i++) {
-    const x = weightSr[i] * Math.exp(values[i] * LN10_OVER_10); // Eq. 1
+    const x = weightSr[i] * powerOf(values[i]); // Eq. 1
     const t = sum + x;
     comp += Math.abs(sum) >= Math.abs(x) ? sum - t + x : x - t + sum;
     sum = t;

@@ -37,7 +37,8 @@ const POLE_S = 180 * STEPS_PER_DEG;
  *    beside unmeasured regions found by the local rule (voronoiWeights, unmeasuredRule).
  * 4. solidAngleSr = Σ weights (Neumaier); `unmeasured` lists the regions (Σ = 4π − Σw).
  * `forceScattered` skips step 3's regular path (for tests and comparisons).
- * Cost O(n log n) (one index sort; Voronoi for scattered grids).
+ * Cost O(n) for samples already in canonical order, else O(n log n) (one sort of the keys);
+ * Voronoi for scattered grids.
  * @throws RangeError when the arrays differ in length, an angle is not finite, θ lies outside
  *   [0, 180], or a scattered set has fewer than 4 distinct directions.
  * @example buildSphereGrid(theta, phi).grid.solidAngleSr // 4π for a full 5° grid
@@ -63,25 +64,40 @@ export function buildSphereGrid(
     if (ts === 0 || ts === POLE_S) ps = 0;
     key[i] = ts * PHI_STEPS + ps; // < 2^53: exact
   }
-  const order = new Uint32Array(n);
-  for (let i = 0; i < n; i++) order[i] = i;
-  order.sort((a, b) => key[a] - key[b]);
-
+  // Point p is the p-th distinct key in ascending order. Exports written θ-major then φ (and the
+  // sub-grids of a canonical grid) arrive with their keys already in order: one pass numbers
+  // them. Otherwise the distinct keys are sorted natively and each sample finds its rank by
+  // binary search (an index sort with a comparator was most of this function's time).
+  let sorted = true;
+  for (let i = 1; i < n && sorted; i++) if (key[i] < key[i - 1]) sorted = false;
   const pointOf = new Int32Array(n);
+  let uniq: Float64Array;
   let m = 0;
-  for (let k = 0; k < n; k++) {
-    if (k > 0 && key[order[k]] !== key[order[k - 1]]) m++;
-    pointOf[order[k]] = m;
+  if (sorted) {
+    for (let i = 0; i < n; i++) {
+      if (i > 0 && key[i] !== key[i - 1]) m++;
+      pointOf[i] = m;
+    }
+    m++;
+    uniq = new Float64Array(m);
+    for (let i = 0; i < n; i++) uniq[pointOf[i]] = key[i];
+  } else {
+    uniq = Float64Array.from(key).sort();
+    for (let k = 0; k < n; k++) if (k === 0 || uniq[k] !== uniq[m - 1]) uniq[m++] = uniq[k];
+    for (let i = 0; i < n; i++) {
+      const v = key[i];
+      let lo = 0, hi = m - 1;
+      while (lo < hi) { const mid = (lo + hi) >> 1; if (uniq[mid] < v) lo = mid + 1; else hi = mid; }
+      pointOf[i] = lo;
+    }
   }
-  m++;
   const thetaU = new Float64Array(m);
   const phiU = new Float64Array(m);
-  for (let k = 0; k < n; k++) {
-    const i = order[k];
-    const kk = key[i];
+  for (let p = 0; p < m; p++) {
+    const kk = uniq[p];
     const ts = Math.floor(kk / PHI_STEPS);
-    thetaU[pointOf[i]] = ts / STEPS_PER_DEG;
-    phiU[pointOf[i]] = (kk - ts * PHI_STEPS) / STEPS_PER_DEG;
+    thetaU[p] = ts / STEPS_PER_DEG;
+    phiU[p] = (kk - ts * PHI_STEPS) / STEPS_PER_DEG;
   }
 
   const regular = opts.forceScattered ? null : detectRegularLayout(thetaU, phiU);

@@ -37,6 +37,39 @@ export function rawOrderKind(build: GridBuild): 0 | 1 | 2 {
   return k as 0 | 1 | 2;
 }
 
+const segmentsOf = new WeakMap<GridBuild, Int32Array>();
+
+/**
+ * The raw samples of a build with non-decreasing pointOf, cut into segments in point order,
+ * triples (first sample, length, first point): a run of points holding one sample each has a
+ * negative length (−points), a point holding several samples a positive one (its samples).
+ * One O(n) scan cached per build: the beams of a unit share their build, so each beam's merge
+ * is a few block copies plus the merged points (a 1° export: two pole groups).
+ */
+function sortedSegments(build: GridBuild): Int32Array {
+  let seg = segmentsOf.get(build);
+  if (seg !== undefined) return seg;
+  const p = build.pointOf;
+  const n = p.length;
+  const out: number[] = [];
+  let i = 0;
+  while (i < n) {
+    let j = i + 1;
+    while (j < n && p[j] === p[i]) j++;
+    if (j - i > 1) {
+      out.push(i, j - i, p[i]);
+    } else if (out.length > 0 && out[out.length - 2] < 0 && out[out.length - 3] - out[out.length - 2] === i) {
+      out[out.length - 2]--; // extends the run of single-sample points that ends at i
+    } else {
+      out.push(i, -1, p[i]);
+    }
+    i = j;
+  }
+  seg = Int32Array.from(out);
+  segmentsOf.set(build, seg);
+  return seg;
+}
+
 /** Scratch for the unordered route, reused across calls (grown, never shrunk; single-threaded). */
 let scratchCount = new Int32Array(0);
 let scratchLo = new Float64Array(0);
@@ -60,8 +93,9 @@ let scratchSum = new Float64Array(0);
  * first m entries of `rawValues` and returned as a view of it (`inPlace`), so no second copy of
  * the beam exists; `rawValues` is then consumed. Entry p is only written by samples of point
  * p, all at indices ≥ p, so raw entry p has been read before; no unread sample is overwritten.
- * Cost O(n), exponentials only for coincident samples; the sorted route needs no scratch, the
- * other reuses module scratch; each allocates only the output, and only when not in place.
+ * Cost O(n), exponentials only for coincident samples; the sorted route copies runs of
+ * single-sample points as blocks (sortedSegments, cached per build), the other reuses module
+ * scratch; each allocates only the output, and only when not in place.
  * @throws RangeError when rawValues does not have one value per raw sample.
  * @example mergeSamples(build, [0, 10] /* one point *\/) // 7.404 dB, spread 10 dB
  */
@@ -78,14 +112,32 @@ export function mergeSamples(build: GridBuild, rawValues: Float64Array, reuseInp
     const values = inPlace ? rawValues.subarray(0, m) : new Float64Array(m);
     let maxSpreadDb = 0;
     let missing = 0;
-    let i = 0;
-    while (i < n) {
-      const p = pointOf[i];
+    const seg = sortedSegments(build);
+    for (let s = 0; s < seg.length; s += 3) {
+      const start = seg[s];
+      const p = seg[s + 2];
+      if (seg[s + 1] < 0) {
+        // A run of points with one sample each: copied as they are (the memmove runs before
+        // anything past it is written, so in place it only moves samples down), then a
+        // non-finite sample leaves its point missing.
+        const len = -seg[s + 1];
+        if (inPlace) rawValues.copyWithin(p, start, start + len);
+        else values.set(rawValues.subarray(start, start + len), p);
+        for (let q = p; q < p + len; q++) {
+          const v = values[q];
+          if (v - v !== 0) {
+            values[q] = NaN;
+            missing++;
+          }
+        }
+        continue;
+      }
+      const end = start + seg[s + 1];
       let count = 0;
       let lo = Infinity;
       let hi = -Infinity;
       let sumLin = 0;
-      for (; i < n && pointOf[i] === p; i++) {
+      for (let i = start; i < end; i++) {
         const v = rawValues[i];
         if (!Number.isFinite(v)) continue;
         // Linear power only where samples coincide: a single sample keeps its dB value untouched.

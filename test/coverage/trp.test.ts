@@ -20,4 +20,20 @@ describe('beamTrpDbm sums like the compensated-sum owner', () => {
         expect(Object.is(beamTrpDbm(v, w, true, sumW), want)).toBe(true);
       }), { seed: 15, numRuns: 200 });
   });
+
+  it('takes the same terms for values with two decimals (the memoized exponentials) as for any other value', () => {
+    // Values v = k/100 go through trp.ts's table of exponentials; the oracle takes Math.exp of
+    // every term. Includes values outside the table (|v| > 300 dB), repeats (table hits) and −0.
+    const L = Math.LN10 / 10;
+    fc.assert(fc.property(
+      fc.array(fc.tuple(fc.integer({ min: -40000, max: 40000 }), fc.double({ min: 1e-9, max: 1, noNaN: true })), { minLength: 1, maxLength: 200 }),
+      (pairs) => {
+        const v = Float64Array.from(pairs, (p) => (p[0] === 0 ? -0 : p[0] / 100));
+        const w = Float64Array.from(pairs, (p) => p[1]);
+        const sumW = neumaierSum(w);
+        const want = 10 * Math.log10(neumaierSum(Array.from(v, (x, i) => w[i] * Math.exp(x * L))) / sphereNormSr(sumW));
+        expect(Object.is(beamTrpDbm(v, w, true, sumW), want)).toBe(true);
+        expect(Object.is(beamTrpDbm(v, w, true, sumW), want)).toBe(true); // second call: every term from the table
+      }), { seed: 18, numRuns: 200 });
+  });
 });

@@ -113,6 +113,26 @@ describe('buildSphereGrid: regular grids', () => {
     expect(b.merged).toBe(3);
   });
 
+  it('any sample order gives the grid of the canonical order (sorted keys numbered in one pass, others ranked after a sort)', () => {
+    // Oracle: the same samples in θ-major order (keys already ascending). A fixed shuffle
+    // (LCG) must give bit-identical points and weights, and pointOf must follow each sample.
+    const a = stepGrid(15, { seam: true });
+    const sorted = buildSphereGrid(a.theta, a.phi);
+    const n = a.theta.length;
+    const perm = Array.from({ length: n }, (_, i) => i);
+    let s = 18;
+    for (let i = n - 1; i > 0; i--) {
+      s = (s * 1103515245 + 12345) % 2 ** 31;
+      const j = s % (i + 1);
+      [perm[i], perm[j]] = [perm[j], perm[i]];
+    }
+    const shuffled = buildSphereGrid(Float64Array.from(perm, (i) => a.theta[i]), Float64Array.from(perm, (i) => a.phi[i]));
+    for (const k of ['thetaDeg', 'phiDeg', 'weightSr'] as const) expect(shuffled.grid[k]).toEqual(sorted.grid[k]);
+    expect(shuffled.grid.solidAngleSr).toBe(sorted.grid.solidAngleSr);
+    expect(Array.from(perm, (_, k) => shuffled.pointOf[k])).toEqual(perm.map((i) => sorted.pointOf[i]));
+    expect(shuffled.merged).toBe(sorted.merged);
+  });
+
   it('rejects θ outside [0, 180] and mismatched lengths', () => {
     expect(() => buildSphereGrid(Float64Array.of(-5, 10), Float64Array.of(0, 0))).toThrow(RangeError);
     expect(() => buildSphereGrid(Float64Array.of(5), Float64Array.of(0, 0))).toThrow(RangeError);

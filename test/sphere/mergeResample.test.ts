@@ -120,6 +120,28 @@ describe('mergeSamples routes agree bit for bit', () => {
     });
   }
 
+  it('θ-major export with a repeated row and infinite samples: the block-copy route equals the reference', () => {
+    // A repeated sample right after its first keeps pointOf non-decreasing (route 2) and puts a
+    // merged point between two runs of single-sample points; ±∞ samples count as missing.
+    const a = stepGrid(10);
+    const dup = 400;
+    const theta = Float64Array.from([...a.theta.subarray(0, dup + 1), a.theta[dup], ...a.theta.subarray(dup + 1)]);
+    const phi = Float64Array.from([...a.phi.subarray(0, dup + 1), a.phi[dup], ...a.phi.subarray(dup + 1)]);
+    const b = buildSphereGrid(theta, phi);
+    expect(rawOrderKind(b)).toBe(2);
+    const raw = noisy(theta.length, 5);
+    raw[dup + 1] = raw[dup] + 3;
+    raw[dup + 50] = Infinity;
+    raw[dup + 60] = -Infinity;
+    const ref = referenceMerge(b.pointOf, b.grid.thetaDeg.length, raw);
+    for (const reuse of [false, true]) {
+      const got = mergeSamples(b, raw.slice(), reuse);
+      expect(got.inPlace).toBe(reuse);
+      expect(same(got.values, ref.values)).toBe(true);
+      expect([got.maxSpreadDb, got.missing]).toEqual([ref.maxSpreadDb, ref.missing]);
+    }
+  });
+
   it('other orders (φ-major export): reused scratch gives the reference on repeated calls, never in place', () => {
     const a = stepGrid(10, { seam: true });
     const order = Array.from(a.theta.keys()).sort((i, j) => a.phi[i] - a.phi[j] || a.theta[i] - a.theta[j]);
