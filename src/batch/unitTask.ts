@@ -26,7 +26,7 @@ import { qualityWarnings } from '../coverage/qualityWarnings.js';
 import { collapseWarnings } from './collapseWarnings.js';
 import { resolveUncertainty, type UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js';
 import { assessConfidence } from '../analysis/uncertainty/assessConfidence.js';
-import { gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
+import { GRID_ADEQUACY_CALIBRATION, gridAdequacy } from '../analysis/gridAdequacy/gridAdequacy.js';
 import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js';
 import { applyJointChecks, type JointMaps } from './jointChecks.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView, type MeasuredUnit } from './polarizationUnits.js';
@@ -192,7 +192,7 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
     analysisThreshold: threshold,
     holes: hT === null || !extras ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
     subset: extras ? greedySubset(m.grid, beamValues, beamIds, m.quantity, level, undefined, tsp) : null,
-    gridAdequacy: extras ? gridAdequacy(m.grid, tsp.values, m.quantity, input.percentilesPct, input.thresholds) : null,
+    gridAdequacy: extras ? gridAdequacy(m.grid, tsp.values, m.quantity, input.percentilesPct, input.thresholds, GRID_ADEQUACY_CALIBRATION, computed.cdf) : null,
     ...(confidence ? { confidence } : {}),
   };
   return { result, tsp };

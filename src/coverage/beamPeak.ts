@@ -13,11 +13,23 @@ import { isLowerBetter } from '../quantity.js';
 export function beamPeak(values: ArrayLike<number>, grid: Pick<SphereGrid, 'thetaDeg' | 'phiDeg'>, quantity: Quantity): PeakValue {
   const n = values.length;
   if (n === 0 || n !== grid.thetaDeg.length) throw new RangeError(`beamPeak: ${n} values for ${grid.thetaDeg.length} grid points`);
-  let best = 0;
-  if (isLowerBetter(quantity)) {
-    for (let i = 1; i < n; i++) if (values[i] < values[best]) best = i;
-  } else {
-    for (let i = 1; i < n; i++) if (values[i] > values[best]) best = i;
-  }
+  const best = peakIndex(values, quantity);
   return { value: values[best], thetaDeg: grid.thetaDeg[best], phiDeg: grid.phiDeg[best] };
+}
+
+/**
+ * Index of the peak (beamPeak's rule: the best value, the first in canonical order among ties);
+ * 0 for an empty pattern. For callers that need the peak's point too (beamPointing). Cost O(n).
+ */
+export function peakIndex(values: ArrayLike<number>, quantity: Quantity): number {
+  const n = values.length;
+  if (n === 0) return 0;
+  let best = 0;
+  let bestValue = values[0];
+  if (isLowerBetter(quantity)) {
+    for (let i = 1; i < n; i++) if (values[i] < bestValue) { best = i; bestValue = values[i]; }
+  } else {
+    for (let i = 1; i < n; i++) if (values[i] > bestValue) { best = i; bestValue = values[i]; }
+  }
+  return best;
 }

@@ -1,6 +1,6 @@
 import type { CoverageMetrics, LevelLimit, Measurement, TotalScanPattern } from '../types.js';
 import { isFullSphere } from '../sphere/isFullSphere.js';
-import { beamPeak } from './beamPeak.js';
+import { beamPeak, peakIndex } from './beamPeak.js';
 import { beamPointing, gridVectors } from './beamPointing.js';
 import { bestShares } from './bestShares.js';
 import { coverageAt, coverageEfficiency, relativeCoverage } from './coverageEfficiency.js';
@@ -8,7 +8,7 @@ import { coverageCurve } from './coverageCurve.js';
 import { percentile } from './percentile.js';
 import { totalScanPattern } from './totalScanPattern.js';
 import { beamTrpDbm } from './trp.js';
-import { weightedCdf } from './weightedCdf.js';
+import { rankedCdf, type RankedCdf } from './weightedCdf.js';
 import { hasTrp } from '../quantity.js';
 
 export interface MetricOptions {
@@ -29,14 +29,16 @@ export interface MetricOptions {
  * (weighted CDF, percentiles, coverage efficiency absolute/relative/curve, peak, per-beam
  * peak, TRP on a full sphere for eirp/gain, best share; with `levelLimit`, the coverage
  * efficiency at the limit set's percentile limit). Definitions in the called functions.
- * Cost O(points·beams + points·log points); the CDF sort is the only sort.
+ * Cost O(points·beams + points·log points); the CDF sort is the only sort. The TSP's CDF is
+ * returned (`cdf`, ranked) for the later readers of the same pattern (gridAdequacy), so it is
+ * sorted once per unit.
  * @throws RangeError for a level outside [0, 100] (from percentile).
  * @example computeMetrics(m, { percentilesPct: [50], thresholds: [10], relativeDb: [3] }).metrics.peak
  */
-export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: TotalScanPattern; metrics: CoverageMetrics } {
+export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: TotalScanPattern; metrics: CoverageMetrics; cdf: RankedCdf } {
   const { grid, quantity } = m;
   const tsp = totalScanPattern(m.beams.map((b) => b.values), quantity);
-  const cdf = weightedCdf(tsp.values, grid.weightSr);
+  const cdf = rankedCdf(tsp.values, grid.weightSr);
   const full = isFullSphere(grid);
   const shares = bestShares(tsp.bestBeam, grid.weightSr, m.beams.length, grid.solidAngleSr);
   let vec: ReturnType<typeof gridVectors> | null = null;
@@ -50,21 +52,15 @@ export function computeMetrics(m: Measurement, opts: MetricOptions): { tsp: Tota
     curve: coverageCurve(cdf, quantity, opts.curveStepDb),
     solidAngleSr: grid.solidAngleSr,
     beams: m.beams.map((b, k) => {
-      const peak = beamPeak(b.values, grid, quantity);
+      const at = peakIndex(b.values, quantity);
       return {
         id: b.id,
-        peak,
+        peak: { value: b.values[at], thetaDeg: grid.thetaDeg[at], phiDeg: grid.phiDeg[at] }, // beamPeak's rule (peakIndex)
         trpDbm: !hasTrp(quantity) ? null : beamTrpDbm(b.values, grid.weightSr, full, grid.solidAngleSr),
         bestShare: shares[k],
-        pointing: beamPointing(b.values, grid, vectors(), quantity, peakIndexOf(b.values, peak.value)),
+        pointing: beamPointing(b.values, grid, vectors(), quantity, at),
       };
     }),
   };
-  return { tsp, metrics };
-}
-
-/** Index of the first sample equal to the peak value (beamPeak's tie rule: first in canonical order). */
-function peakIndexOf(values: Float64Array, peak: number): number {
-  for (let i = 0; i < values.length; i++) if (values[i] === peak) return i;
-  return 0;
+  return { tsp, metrics, cdf };
 }

@@ -25,6 +25,28 @@ export interface WeightedCdf {
  * @example weightedCdf([3, 1, 3], [1, 2, 1]) // values [1, 3], cumulativeSr [2, 4]
  */
 export function weightedCdf(values: ArrayLike<number>, weightSr: ArrayLike<number>): WeightedCdf {
+  return sortedSteps(values, weightSr, false);
+}
+
+/** A weighted CDF that also keeps, per input value, the index of its step (for subsetCdf). */
+export interface RankedCdf extends WeightedCdf {
+  /** stepOf[i]: index in `values` of input value i. */
+  stepOf: Int32Array;
+}
+
+/**
+ * weightedCdf (same definition, same bits) keeping each input value's step index, so the CDF of
+ * any subset of the points (subsetCdf) needs no second sort.
+ * Cost O(n log n), five typed arrays.
+ * @throws RangeError when the lengths differ or a value is NaN.
+ * @example rankedCdf([3, 1, 3], [1, 2, 1]).stepOf // [1, 0, 1]
+ */
+export function rankedCdf(values: ArrayLike<number>, weightSr: ArrayLike<number>): RankedCdf {
+  return sortedSteps(values, weightSr, true) as RankedCdf;
+}
+
+/** weightedCdf's work, with the step index of each value kept when asked (rankedCdf). */
+function sortedSteps(values: ArrayLike<number>, weightSr: ArrayLike<number>, keepSteps: boolean): WeightedCdf | RankedCdf {
   const n = values.length;
   if (weightSr.length !== n) throw new RangeError(`weightedCdf: ${n} values but ${weightSr.length} weights`);
   const sorted = Float64Array.from(values).sort();
@@ -34,17 +56,59 @@ export function weightedCdf(values: ArrayLike<number>, weightSr: ArrayLike<numbe
   const distinct = sorted.slice(0, m);
   const stepSr = new Float64Array(m);
   const stepComp = new Float64Array(m);
+  const stepOf = keepSteps ? new Int32Array(n) : null;
   for (let i = 0; i < n; i++) {
     const v = values[i];
     let lo = 0, hi = m - 1;
     while (lo < hi) { const mid = (lo + hi) >> 1; if (distinct[mid] < v) lo = mid + 1; else hi = mid; }
+    if (stepOf !== null) stepOf[i] = lo;
     neumaierAddAt(stepSr, stepComp, lo, weightSr[i]);
+  }
+  const cdf = accumulate(distinct, stepSr, stepComp, null);
+  return stepOf === null ? cdf : { ...cdf, stepOf };
+}
+
+/**
+ * The weighted CDF of a subset of a ranked CDF's points: point j of the subset is point
+ * index[j] of the parent, with weight weightSr[j] (a sub-grid re-weights its points). Equal,
+ * bit for bit, to weightedCdf(values at index, weightSr): the subset's distinct values are the
+ * parent's steps that it uses, in the same order, and each step's weights are added in j order
+ * as weightedCdf adds them. No sort.
+ * Cost O(k + m) for k subset points and m parent steps; four typed arrays of m.
+ * @throws RangeError when index and weightSr differ in length.
+ * @example subsetCdf(rankedCdf([3, 1, 3], [1, 2, 1]), Int32Array.of(0, 2), [5, 5]) // values [3], cumulativeSr [10]
+ */
+export function subsetCdf(parent: RankedCdf, index: Int32Array, weightSr: ArrayLike<number>): WeightedCdf {
+  const k = index.length;
+  if (weightSr.length !== k) throw new RangeError(`subsetCdf: ${k} points but ${weightSr.length} weights`);
+  const m = parent.values.length;
+  const used = new Uint8Array(m);
+  const stepSr = new Float64Array(m);
+  const stepComp = new Float64Array(m);
+  for (let j = 0; j < k; j++) {
+    const s = parent.stepOf[index[j]];
+    used[s] = 1;
+    neumaierAddAt(stepSr, stepComp, s, weightSr[j]);
+  }
+  return accumulate(parent.values, stepSr, stepComp, used);
+}
+
+/** Running compensated sum of the steps (those marked `used`, or all), Eq. 1's numerator. */
+function accumulate(steps: Float64Array, stepSr: Float64Array, stepComp: Float64Array, used: Uint8Array | null): WeightedCdf {
+  let m = steps.length;
+  let distinct = steps;
+  if (used !== null) {
+    m = 0;
+    for (let k = 0; k < steps.length; k++) if (used[k] === 1) m++;
+    distinct = new Float64Array(m);
   }
   const cumulativeSr = new Float64Array(m);
   const running = new NeumaierAccumulator();
-  for (let k = 0; k < m; k++) {
+  for (let k = 0, out = 0; k < steps.length; k++) {
+    if (used !== null && used[k] === 0) continue;
     running.add(stepSr[k] + stepComp[k]);
-    cumulativeSr[k] = running.total(); // Eq. 1 (numerator)
+    distinct[out] = steps[k];
+    cumulativeSr[out++] = running.total(); // Eq. 1 (numerator)
   }
   const measuredSr = m > 0 ? cumulativeSr[m - 1] : 0;
   return { values: distinct, cumulativeSr, measuredSr, sphereSr: sphereNormSr(measuredSr) };

@@ -1,5 +1,5 @@
 import type { GridAdequacy, Quantity, SphereGrid } from '../../types.js';
-import { weightedCdf } from '../../coverage/weightedCdf.js';
+import { rankedCdf, subsetCdf, type RankedCdf, type WeightedCdf } from '../../coverage/weightedCdf.js';
 import { percentile } from '../../coverage/percentile.js';
 import { coverageEfficiency } from '../../coverage/coverageEfficiency.js';
 import { subGrids } from './subGrids.js';
@@ -26,15 +26,19 @@ export const GRID_ADEQUACY_CALIBRATION = { atStep: 0.7, at1p5: 1.6, at2: 1.8 };
  * Boundary rule: a value is estimated from the sub-grids where it is evaluable; fewer than two
  * gives null. The total scan pattern of a sub-grid is the parent's at its points (it is
  * pointwise), so no beam is re-combined.
- * Cost: four sub-grid builds and CDFs, O(n log n).
+ * `tspCdf` is the TSP's ranked CDF when the caller has it (computeMetrics returns it; it must be
+ * rankedCdf(tspValues, grid.weightSr)); the sub-grids' CDFs are read from it (subsetCdf, the
+ * same bits as sorting each sub-grid's values), so the pattern is sorted once.
+ * Cost: four sub-grid builds (no sort: a sub-grid keeps canonical order) and CDFs, O(n) with
+ * `tspCdf`, else one O(n log n) sort.
  * @example gridAdequacy(grid, tsp.values, 'eirp', [50], []).percentiles[0].adequacyDb // ±x dB
  */
 export function gridAdequacy(grid: SphereGrid, tspValues: Float64Array, quantity: Quantity, levelsPct: number[],
-  thresholds: number[], cal = GRID_ADEQUACY_CALIBRATION): GridAdequacy {
+  thresholds: number[], cal = GRID_ADEQUACY_CALIBRATION, tspCdf: RankedCdf = rankedCdf(tspValues, grid.weightSr)): GridAdequacy {
   const subs = subGrids(grid);
-  const full = weightedCdf(tspValues, grid.weightSr);
-  const cdfs = subs.map((s) => weightedCdf(pick(tspValues, s.parentIndex), s.grid.weightSr));
-  const spread = (read: (c: ReturnType<typeof weightedCdf>) => number | null): number | null => {
+  const full = tspCdf;
+  const cdfs = subs.map((s) => subsetCdf(full, s.parentIndex, s.grid.weightSr));
+  const spread = (read: (c: WeightedCdf) => number | null): number | null => {
     const v = read(full);
     if (v === null) return null;
     let ss = 0, k = 0;
@@ -60,13 +64,6 @@ export function gridAdequacy(grid: SphereGrid, tspValues: Float64Array, quantity
     }),
     coarser: [1.5, 2].map((f) => ({ stepFactor: f, pointsSavedShare: pointsSaved(grid, f) })),
   };
-}
-
-/** values[index[j]] for each j (a plain loop: Float64Array.from with a mapping function is several times slower). */
-function pick(values: Float64Array, index: Int32Array): Float64Array {
-  const out = new Float64Array(index.length);
-  for (let j = 0; j < index.length; j++) out[j] = values[index[j]];
-  return out;
 }
 
 function pointsSaved(grid: SphereGrid, f: number): number {
