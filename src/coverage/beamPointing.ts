@@ -21,12 +21,13 @@ export function gridVectors(grid: Pick<SphereGrid, 'thetaDeg' | 'phiDeg'>): Grid
  * on a coarse grid it moves smoothly with the beam
  * where the peak sample jumps a whole step, which is what a pointing-drift comparison across
  * frequencies needs. Common practice (centroid of the −3 dB region); no single standard source.
- * Cost O(n), no allocation.
+ * Cost O(n), no allocation; on a grid in canonical order (θ ascending) only the points whose θ
+ * lies within radiusDeg of the peak's are visited (thetaBand).
  * @example beamPointing(values, grid, gridVectors(grid), 'eirp', peakIndex) // { thetaDeg, phiDeg }
  */
 export function beamPointing(
   values: ArrayLike<number>,
-  grid: Pick<SphereGrid, 'weightSr'>,
+  grid: Pick<SphereGrid, 'weightSr' | 'thetaDeg'>,
   vec: GridVectors,
   quantity: Quantity,
   peakIndex: number,
@@ -43,7 +44,8 @@ export function beamPointing(
   let sx = 0;
   let sy = 0;
   let sz = 0;
-  for (let i = 0; i < values.length; i++) {
+  const [from, to] = thetaBand(grid.thetaDeg, values.length, peakIndex, radiusDeg);
+  for (let i = from; i < to; i++) {
     const below = sign * (peak - values[i]);
     if (below > windowDb) continue;
     if (vec.x[i] * px + vec.y[i] * py + vec.z[i] * pz < cosR) continue;
@@ -56,4 +58,37 @@ export function beamPointing(
   const thetaDeg = (Math.acos(Math.max(-1, Math.min(1, sz / r))) * 180) / Math.PI;
   const phiDeg = ((Math.atan2(sy, sx) * 180) / Math.PI + 360) % 360;
   return { thetaDeg, phiDeg: thetaDeg < 1e-9 || thetaDeg > 180 - 1e-9 ? 0 : phiDeg };
+}
+
+/** Grids whose θ was checked to ascend (canonical order), by their θ array. */
+const ascendingTheta = new WeakMap<ArrayLike<number>, boolean>();
+
+/**
+ * Index range [from, to) that holds every point within radiusDeg of the peak, when θ ascends:
+ * a point farther than radiusDeg in θ alone is farther on the sphere, so its unit-vector test
+ * fails; the range's edge is widened by 1e-6° so that no point the test would keep is left out
+ * by rounding (its cosine is then ~1e-8 below the limit, rounding ~1e-16). Otherwise [0, n).
+ */
+function thetaBand(thetaDeg: ArrayLike<number>, n: number, peakIndex: number, radiusDeg: number): [number, number] {
+  if (thetaDeg.length !== n || !(radiusDeg < 180)) return [0, n];
+  let up = ascendingTheta.get(thetaDeg);
+  if (up === undefined) {
+    up = true;
+    for (let i = 1; i < n && up; i++) if (!(thetaDeg[i] >= thetaDeg[i - 1])) up = false;
+    ascendingTheta.set(thetaDeg, up);
+  }
+  if (!up) return [0, n];
+  const t = thetaDeg[peakIndex];
+  const reach = radiusDeg + 1e-6;
+  return [firstAbove(thetaDeg, n, t - reach, false), firstAbove(thetaDeg, n, t + reach, true)];
+}
+
+/** First index of an ascending array whose value is > bound (strict) or ≥ bound (not strict); n when none. */
+function firstAbove(a: ArrayLike<number>, n: number, bound: number, strict: boolean): number {
+  let lo = 0, hi = n;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (strict ? a[mid] <= bound : a[mid] < bound) lo = mid + 1; else hi = mid;
+  }
+  return lo;
 }

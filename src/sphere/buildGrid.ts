@@ -51,7 +51,16 @@ export function buildSphereGrid(
   const n = thetaDeg.length;
   if (phiDeg.length !== n) throw new RangeError(`buildSphereGrid: ${n} θ values but ${phiDeg.length} φ values`);
   if (n === 0) throw new RangeError('buildSphereGrid: no directions');
+  // Point p is the p-th distinct key in ascending order. Exports written θ-major then φ (and the
+  // sub-grids of a canonical grid) arrive with their keys already in order: the pass that makes
+  // the keys numbers them too. Otherwise the distinct keys are sorted natively and each sample
+  // finds its rank by binary search (an index sort with a comparator was most of this
+  // function's time).
   const key = new Float64Array(n);
+  const pointOf = new Int32Array(n);
+  let sorted = true;
+  let m = 0;
+  let prev = -1;
   for (let i = 0; i < n; i++) {
     const t = thetaDeg[i];
     const p = phiDeg[i];
@@ -62,27 +71,21 @@ export function buildSphereGrid(
     let ps = Math.round((((p % 360) + 360) % 360) * STEPS_PER_DEG);
     if (ps >= PHI_STEPS) ps -= PHI_STEPS;
     if (ts === 0 || ts === POLE_S) ps = 0;
-    key[i] = ts * PHI_STEPS + ps; // < 2^53: exact
+    const k = ts * PHI_STEPS + ps; // < 2^53: exact
+    key[i] = k;
+    if (k < prev) sorted = false;
+    else if (k > prev && i > 0) m++;
+    pointOf[i] = m;
+    prev = k;
   }
-  // Point p is the p-th distinct key in ascending order. Exports written θ-major then φ (and the
-  // sub-grids of a canonical grid) arrive with their keys already in order: one pass numbers
-  // them. Otherwise the distinct keys are sorted natively and each sample finds its rank by
-  // binary search (an index sort with a comparator was most of this function's time).
-  let sorted = true;
-  for (let i = 1; i < n && sorted; i++) if (key[i] < key[i - 1]) sorted = false;
-  const pointOf = new Int32Array(n);
   let uniq: Float64Array;
-  let m = 0;
   if (sorted) {
-    for (let i = 0; i < n; i++) {
-      if (i > 0 && key[i] !== key[i - 1]) m++;
-      pointOf[i] = m;
-    }
     m++;
     uniq = new Float64Array(m);
     for (let i = 0; i < n; i++) uniq[pointOf[i]] = key[i];
   } else {
     uniq = Float64Array.from(key).sort();
+    m = 0;
     for (let k = 0; k < n; k++) if (k === 0 || uniq[k] !== uniq[m - 1]) uniq[m++] = uniq[k];
     for (let i = 0; i < n; i++) {
       const v = key[i];

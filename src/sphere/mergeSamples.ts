@@ -117,15 +117,15 @@ export function mergeSamples(build: GridBuild, rawValues: Float64Array, reuseInp
       const start = seg[s];
       const p = seg[s + 2];
       if (seg[s + 1] < 0) {
-        // A run of points with one sample each: copied as they are (the memmove runs before
-        // anything past it is written, so in place it only moves samples down), then a
-        // non-finite sample leaves its point missing.
-        const len = -seg[s + 1];
-        if (inPlace) rawValues.copyWithin(p, start, start + len);
-        else values.set(rawValues.subarray(start, start + len), p);
-        for (let q = p; q < p + len; q++) {
-          const v = values[q];
-          if (v - v !== 0) {
+        // A run of points with one sample each: copied as they are (in place the copy only
+        // moves samples down, p ≤ start, reading ahead of what it writes); a non-finite
+        // sample leaves its point missing (v − v is NaN only for NaN and ±∞).
+        const shift = start - p;
+        const end = p - seg[s + 1];
+        for (let q = p; q < end; q++) {
+          const v = rawValues[q + shift];
+          if (v - v === 0) values[q] = v;
+          else {
             values[q] = NaN;
             missing++;
           }

@@ -87,7 +87,11 @@ function crossPole(layout: RegularLayout, r: number, next: number, poleDeg: numb
   }
 }
 
-/** Symmetric, de-duplicated CSR from an undirected edge list (self-loops dropped). */
+/**
+ * Symmetric, de-duplicated CSR from an undirected edge list (self-loops dropped). Each point's
+ * slice is sorted in place (insertion sort: slices are short, except a pole's ring) and
+ * compacted into one typed array: no per-point sort call, no growing list.
+ */
 function toCsr(n: number, edges: number[]): GridAdjacency {
   const degree = new Int32Array(n + 1);
   for (let e = 0; e < edges.length; e += 2) {
@@ -105,11 +109,27 @@ function toCsr(n: number, edges: number[]): GridAdjacency {
     raw[fill[b]++] = a;
   }
   const offsets = new Int32Array(n + 1);
-  const out: number[] = [];
+  let out = 0;
   for (let i = 0; i < n; i++) {
-    const slice = raw.subarray(degree[i], degree[i + 1]).sort();
-    for (let k = 0; k < slice.length; k++) if (k === 0 || slice[k] !== slice[k - 1]) out.push(slice[k]);
-    offsets[i + 1] = out.length;
+    const lo = degree[i], hi = degree[i + 1];
+    if (hi - lo > 64) raw.subarray(lo, hi).sort();
+    else {
+      for (let k = lo + 1; k < hi; k++) {
+        const x = raw[k];
+        let j = k - 1;
+        while (j >= lo && raw[j] > x) { raw[j + 1] = raw[j]; j--; }
+        raw[j + 1] = x;
+      }
+    }
+    // Compact in place: out ≤ k always, so each entry is read before anything overwrites it;
+    // the previous entry is kept in a local (its slot may already hold a compacted value).
+    let last = -1;
+    for (let k = lo; k < hi; k++) {
+      const x = raw[k];
+      if (x !== last) raw[out++] = x;
+      last = x;
+    }
+    offsets[i + 1] = out;
   }
-  return { offsets, neighbors: Int32Array.from(out) };
+  return { offsets, neighbors: raw.slice(0, out) };
 }

@@ -45,4 +45,21 @@ describe('beamPointing', () => {
     const k = grid.thetaDeg.findIndex((t, i) => t === best.thetaDeg && grid.phiDeg[i] === best.phiDeg);
     expect(angularDistanceDeg(beamPointing(v, grid, gridVectors(grid), 'eis', k), axis)).toBeLessThan(0.5);
   });
+
+  it('visits only the θ band within the radius and gives the bits of the full scan', () => {
+    // Oracle: the same call on a grid view whose θ array does not match the values (length 0),
+    // which makes beamPointing scan every point. Wide lobes (window wider than the 45° radius)
+    // and peaks at θ 0/45/90/180 put points exactly 45° away, on the unit-vector test's edge.
+    const { grid } = buildSphereGrid(...(Object.values(stepGrid(5)) as [Float64Array, Float64Array]));
+    const vec = gridVectors(grid);
+    const fullScan = { weightSr: grid.weightSr, thetaDeg: new Float64Array(0) };
+    for (const [axis, width] of [[{ thetaDeg: 45, phiDeg: 0 }, 150], [{ thetaDeg: 0, phiDeg: 0 }, 200], [{ thetaDeg: 90, phiDeg: 90 }, 120], [{ thetaDeg: 180, phiDeg: 0 }, 60], [{ thetaDeg: 33, phiDeg: 7 }, 30]] as const) {
+      const v = lobe(grid.thetaDeg, grid.phiDeg, axis, width);
+      const peak = beamPeak(v, grid, 'eirp');
+      const k = grid.thetaDeg.findIndex((t, i) => t === peak.thetaDeg && grid.phiDeg[i] === peak.phiDeg);
+      const band = beamPointing(v, grid, vec, 'eirp', k);
+      const all = beamPointing(v, fullScan, vec, 'eirp', k);
+      expect(Object.is(band.thetaDeg, all.thetaDeg) && Object.is(band.phiDeg, all.phiDeg)).toBe(true);
+    }
+  });
 });

@@ -118,3 +118,31 @@ describe('gridNeighbors on grids built by the core (buildSphereGrid)', () => {
     expect(isSymmetric(adj, grid.thetaDeg.length)).toBe(true);
   });
 });
+
+describe('gridNeighbors: the CSR layout', () => {
+  it('each slice ascends strictly (sorted, no repeats), the pole rings beyond the short-slice sort too', () => {
+    // 5° grid: pole rings of 72 (sorted natively), interior slices of 4 (sorted in place);
+    // the 15° grid's rings of 24 take the in-place sort. Oracle: the documented CSR contract.
+    for (const grid of [fullGrid(5), fullGrid(15)]) {
+      const adj = gridNeighbors(grid);
+      const n = grid.thetaDeg.length;
+      expect(adj.offsets.length).toBe(n + 1);
+      expect(adj.offsets[n]).toBe(adj.neighbors.length);
+      for (let i = 0; i < n; i++) {
+        const s = neighboursOf(adj, i);
+        for (let k = 1; k < s.length; k++) expect(s[k]).toBeGreaterThan(s[k - 1]);
+      }
+      expect(isSymmetric(adj, n)).toBe(true);
+      const north = indexOf(grid, 0, 0);
+      expect(neighboursOf(adj, north)).toEqual(Array.from({ length: 360 / (n === 2 + 35 * 72 ? 5 : 15) }, (_, c) => north + 1 + c));
+    }
+  });
+
+  it('an edge listed twice is kept once (two φ columns: each is the other\'s left and right neighbour)', () => {
+    const grid = regularGrid(steps(0, 180, 30), [0, 180]);
+    const adj = gridNeighbors(grid);
+    // Row θ = 90: the two columns, the points above and below, nothing twice.
+    const i = indexOf(grid, 90, 0);
+    expect(neighboursOf(adj, i)).toEqual([indexOf(grid, 60, 0), indexOf(grid, 90, 180), indexOf(grid, 120, 0)]);
+  });
+});
