@@ -5,11 +5,14 @@
  * With `jobs` = N the main thread is one of the N lanes and N − 1 workers are started (none when
  * there is only one task): a worker pays its own module loading, font parsing and JIT warm-up
  * (about as much CPU as a few units), which the main thread has already paid or pays anyway.
- * With `jobs` = 'auto' (the default) the work decides: the main thread starts alone, and after
- * each of its tasks (from the third on) the pool estimates the work left (tasks left × the
- * main thread's fastest task, in CPU time); workers (cores − 1) are started only when that is more than WORTH_IT times what a
- * worker costs to start, so a build that one thread finishes sooner never pays for workers, and
- * only while the machine has a core to spare (coreToSpare).
+ * With `jobs` = 'auto' (the default) the work decides, and workers (cores − 1) start only while
+ * the machine has a core to spare (coreToSpare):
+ * - at once, before any task, when the tasks write PDFs and are enough that even at the cheapest
+ *   PDF (PDF_TASK_MIN_MS) their work is more than WORTH_IT times a worker's start-up: the
+ *   worker's start-up then overlaps the main thread's first tasks instead of following them;
+ * - else after each main-thread task (from the third on), when the work left (tasks left × the
+ *   main thread's fastest task, in CPU time) is more than WORTH_IT times a worker's start-up.
+ * So a build that one thread finishes sooner never pays for workers.
  * Tasks are handed out one at a time from a shared counter (the next free lane takes the next
  * task); each worker holds up to two tasks, so it does not sit idle while the main thread is busy
  * with a task of its own and cannot answer at once.
@@ -52,6 +55,26 @@ const WORTH_IT = 3;
 /** 'auto': workers pay off when the work left (tasks × a warm task's time) outweighs WORTH_IT × their start-up. */
 export function workersPayOff(tasksLeft: number, meanTaskMs: number, startMs: number): boolean {
   return tasksLeft * meanTaskMs > WORTH_IT * startMs;
+}
+
+/**
+ * The least CPU a task that writes a unit PDF costs a warm thread, in ms: the PDF alone, at its
+ * steady state on the bench build (16 beams on a 5° grid: renderUnitPdf 0.13 s on a quiet 2-core
+ * machine; larger units cost more). So tasks × this is a floor on a build's work before any task
+ * has run.
+ */
+const PDF_TASK_MIN_MS = 130;
+/** The shortest window (wall ms, on every core) over which the machine's idle CPU is trusted. */
+const IDLE_WINDOW_MS = 100;
+
+/**
+ * 'auto' before any task has run: start the workers at once when every task writes a PDF, the
+ * tasks are enough that even at PDF_TASK_MIN_MS their work pays the start-up (workersPayOff), and
+ * the machine had a core to spare since the run began (`idleCores`; null: too short a window to
+ * tell, so the decision waits for the main thread's first tasks).
+ */
+export function workersPayOffAtStart(tasks: number, pdf: boolean, startMs: number, idleCores: number | null): boolean {
+  return pdf && idleCores !== null && coreToSpare(idleCores) && workersPayOff(tasks, PDF_TASK_MIN_MS, startMs);
 }
 
 /**
@@ -112,6 +135,8 @@ interface Reply { id: number; ok: boolean; out?: TaskOutput; message?: string }
 
 export class TaskPool {
   private workers: Worker[] = [];
+  /** CPU times of the machine when the pool was made (the run's start): the window for 'auto' at once. */
+  private readonly cpuAtCreate = cpuTimes();
 
   /** Stop every worker now (SIGINT). */
   async terminate(): Promise<void> {
@@ -133,14 +158,15 @@ export class TaskPool {
       this.workers = Array.from({ length: lanes - 1 }, () => new Worker(script));
       workerLanes.push(...this.workers.map((w) => workerLane(w, q)));
     };
-    const startMs = tasks[0].report ? WORKER_START_MS.pdf : WORKER_START_MS.plain;
+    const pdf = tasks[0].report !== null;
+    const startMs = pdf ? WORKER_START_MS.pdf : WORKER_START_MS.plain;
     const cpuAtStart = cpuTimes();
     // 'auto': after each main-thread task, is the work left worth the workers' start-up?
     const afterMainTask = (fastestMs: number, mainDone: number) => {
       if (auto && this.workers.length === 0 && !q.stopped() && mainDone >= 3 &&
         workersPayOff(q.left(), fastestMs, startMs) && coreToSpare(cpuIdleCores(cpuAtStart, cpuTimes(), cpus().length))) startWorkers();
     };
-    if (!auto) startWorkers();
+    if (!auto || workersPayOffAtStart(tasks.length, pdf, startMs, this.idleSinceCreate())) startWorkers();
     try {
       const main = await Promise.allSettled([mainLane(q, afterMainTask)]);
       // The main lane is done taking tasks, so no worker starts after this point.
@@ -151,6 +177,14 @@ export class TaskPool {
       await this.terminate();
     }
     return q.outputs;
+  }
+
+  /** Idle cores since the pool was made, or null when too little time passed to tell (IDLE_WINDOW_MS). */
+  private idleSinceCreate(): number | null {
+    const now = cpuTimes();
+    const cores = cpus().length;
+    if (now.totalMs - this.cpuAtCreate.totalMs < IDLE_WINDOW_MS * cores) return null;
+    return cpuIdleCores(this.cpuAtCreate, now, cores);
   }
 
   private async runInProcess(tasks: TaskInput[], hooks: PoolHooks): Promise<TaskOutput[]> {

@@ -61,6 +61,8 @@ const stopped = (run: Pick<Run, 'signal'>): boolean => run.signal?.aborted === t
  *   or busy output folder); InterruptedError on SIGINT.
  */
 export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: ResultsFile; exitCode: 0 | 1 | 2 }> {
+  // Made first: the pool reads the machine's idle CPU over the planning for --jobs auto.
+  const pool = new TaskPool();
   const plan = await planAnalyze(opts);
   const tasks = groupTasks(plan);
   if (opts.signal?.aborted === true) throw new InterruptedError(`${interruptName(opts.signal)} before any output was written; the previous run's files are unchanged`);
@@ -69,7 +71,7 @@ export async function runAnalyze(opts: AnalyzeOptions): Promise<{ results: Resul
   // Configuration keys read in an old spelling: on stderr (and in results.json settings.warnings).
   if (!opts.quiet) for (const n of plan.configNotices) io.stderr(`spherecov: ${n}\n`);
   const run: Run = {
-    plan, io, signal: opts.signal, writer, pool: new TaskPool(), tasks, stage: 'analyzing',
+    plan, io, signal: opts.signal, writer, pool, tasks, stage: 'analyzing',
     progress: new Progress(tasks.length, io.stderrIsTTY && !opts.quiet ? io.stderr : null),
     spooled: new Map(), spooling: [], spoolError: null,
   };

@@ -1,8 +1,16 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import PDFDocument from 'pdfkit';
 
 const require = createRequire(import.meta.url);
+
+/**
+ * pdfkit, loaded with `require` rather than `import`: it is a CommonJS bundle, and importing it
+ * from an ES module makes Node scan its 200 kB source for export names first (cjs-module-lexer),
+ * about 60 ms of CPU in every thread that writes PDFs (main thread and each worker; measured
+ * 2026-12-02, `import('pdfkit')` 217–258 ms against `require('pdfkit')` 160–174 ms of CPU).
+ * pdfDoc.ts takes it from here, so the report modules load one pdfkit.
+ */
+export const PDFDocument = require('pdfkit') as typeof import('pdfkit');
 
 let cache: { regular: Buffer; bold: Buffer } | null = null;
 

@@ -1,5 +1,4 @@
-import PDFDocument from 'pdfkit';
-import { reportFontSources, shareLayoutCaches } from './fonts.js';
+import { PDFDocument, reportFontSources, shareLayoutCaches } from './fonts.js';
 import type { ReportSettings } from './reportTypes.js';
 import { CAUTION } from './caution.js';
 
