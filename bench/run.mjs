@@ -233,7 +233,8 @@ if (wants(o, 'build') || wants(o, 'pdf')) {
         side.push(Number(process.hrtime.bigint() - t) / 1e9 / (2 * res.j1[i].wallS));
         pair.forEach(keep);
       }
-      rows.push(row('build', 'machine ceiling: 2 × --jobs 1 side by side / 2 × alone (bounds --jobs 2)', median(side), { digits: 2 }));
+      raw.ceiling = median(side);
+      rows.push(row('build', 'machine ceiling: 2 × --jobs 1 side by side / 2 × alone (bounds --jobs 2)', raw.ceiling, { digits: 2 }));
       const added = [];
       for (let i = 0; i < o.reps; i++) added.push((res.j1[i].wallS - res.j1nopdf[i].wallS) / n);
       rows.push(row('pdf', 'PDF time added per unit (CLI --jobs 1, with vs --no-pdf, incl. build PDF share)', median(added), { target: { op: '<=', limit: 0.3 }, unit: 's' }));
@@ -255,6 +256,15 @@ if (wants(o, 'build') || wants(o, 'pdf')) {
           rows.push(row('pdf', 'renderUnitPdf, steady state (median)', r.pdfS, { target: { op: '<=', limit: 0.3 }, unit: 's' }));
         }
         keep(one);
+      }
+      // What a worker thread costs before it is as fast as the warm main thread (pool.ts
+      // WORKER_START_MS, which --jobs auto weighs against the work left).
+      log('pdf: worker start-up, with and without PDFs …');
+      for (const mode of ['pdf', 'plain']) {
+        const w = (await stageRun('stage-worker-start.mjs', [build.path, mode])).result;
+        raw[`workerStart_${mode}`] = w;
+        const label = `worker start-up CPU ${mode === 'pdf' ? 'with' : 'without'} PDFs (first ${w.tasks ?? '?'} tasks in a worker − the same warm, in-process; pool.ts WORKER_START_MS)`;
+        rows.push(w.error ? row('pdf', label, null, { note: `failed: ${w.error}` }) : row('pdf', label, w.startS, { unit: 's' }));
       }
     }
   }
@@ -278,6 +288,12 @@ if (wants(o, 'build100')) {
     else {
       rows.push(row('build100', `--jobs 1, wall (${note100})`, median(walls(res.j1)), { unit: 's' }));
       rows.push(row('build100', 'default --jobs / --jobs 1 (paired)', pairedRatio(walls(res.auto), walls(res.j1)), { target: { op: '<=', limit: 0.65 }, digits: 2 }));
+      rows.push(row('build100', '--jobs 1, CPU time', cpuS(res.j1), { unit: 's' }));
+      rows.push(row('build100', 'default --jobs, CPU time', cpuS(res.auto), { unit: 's' }));
+      // The same bound as the build stage's: a ratio below the machine ceiling is not possible.
+      rows.push(raw.ceiling === undefined
+        ? row('build100', 'machine ceiling (measured by the build stage)', null, { note: 'run the build stage too (--only build,build100) for this line' })
+        : row('build100', 'machine ceiling (from the build stage; bounds the ratio above)', raw.ceiling, { digits: 2 }));
       for (const k of ['j1', 'auto']) res[k].forEach(keep);
     }
   }

@@ -44,14 +44,23 @@ function workerPath(): string | null {
 const WORKER_DEPTH = 2;
 
 /**
- * CPU a worker costs to start (module loading, JIT warm-up; fonts and pdfkit when it writes
- * PDFs), in ms, as measured with `npm run bench` on the 2-core machine class (0.55 s and
- * 1.85 s). Machine-dependent; only the order of magnitude matters for the decision.
+ * CPU a worker costs to start, in ms: the CPU of its first tasks above what the warm main thread
+ * spends on the same tasks (module loading, V8's optimizing compiler and GC on its background
+ * threads, and with PDFs pdfkit, the fonts' tables and the first word layouts).
+ * `node bench/stage-worker-start.mjs <build> pdf|plain` (the bench's pdf stage prints it): on the
+ * 20-unit bench build (16 beams, 5°), 2026-12-02 at load 7 on 2 cores, 2.1 s with PDFs (8 tasks:
+ * 3.1–3.4 s in the worker against 1.0–1.1 s warm) and 0.56 s without; 1.85 s and 0.55 s before.
+ * So with PDFs a worker costs about 15 warm unit reports. Machine-dependent; only the order of
+ * magnitude matters for the decision.
  */
 const WORKER_START_MS = { plain: 550, pdf: 1850 };
-/** Start workers only when the work left is at least this many times their start-up cost. */
+/**
+ * Start workers only when the work left is more than this many times their start-up cost. Why 3:
+ * two busy threads each run at about 1/1.28 of one alone on this machine class (the bench's
+ * machine-ceiling line, 0.64), so the work W and a start-up S on two lanes take about
+ * (W + S) · 1.28 / 2; that is at most 0.85 W (15 % faster, a margin for the estimate) when W > 3 S.
+ */
 const WORTH_IT = 3;
-
 /** 'auto': workers pay off when the work left (tasks × a warm task's time) outweighs WORTH_IT × their start-up. */
 export function workersPayOff(tasksLeft: number, meanTaskMs: number, startMs: number): boolean {
   return tasksLeft * meanTaskMs > WORTH_IT * startMs;

@@ -1,6 +1,6 @@
 // The default --jobs ('auto') starts workers only when the work left outweighs their start-up.
 import { describe, expect, it } from 'vitest';
-import { coreToSpare, cpuIdleCores, cpuTimes, workersPayOff } from '../../src/batch/pool.js';
+import { coreToSpare, cpuIdleCores, cpuTimes, workersPayOff, workersPayOffAtStart } from '../../src/batch/pool.js';
 import { parseJobs } from '../../src/cli/parse.js';
 
 describe("--jobs 'auto'", () => {
@@ -13,6 +13,19 @@ describe("--jobs 'auto'", () => {
     expect(workersPayOff(33, 50, 550)).toBe(false);
     expect(workersPayOff(34, 50, 550)).toBe(true);
     expect(workersPayOff(0, 1e6, 550)).toBe(false);
+  });
+
+  it('starts workers before any task only for a long build with PDFs on a machine with a core to spare', () => {
+    // Floor of 130 ms a PDF: 43 × 130 = 5590 ms > 3 × 1850 ms; 42 × 130 = 5460 ms is not.
+    expect(workersPayOffAtStart(43, true, 1850, 1)).toBe(true);
+    expect(workersPayOffAtStart(42, true, 1850, 1)).toBe(false);
+    // The 20-unit bench build with PDFs: a worker costs about 15 warm reports, so no worker up front.
+    expect(workersPayOffAtStart(20, true, 1850, 1)).toBe(false);
+    // Without PDFs nothing is known of a task's cost before one has run: the decision waits.
+    expect(workersPayOffAtStart(1000, false, 550, 1)).toBe(false);
+    // Every core busy since the run began, or too short a window to tell: no worker up front.
+    expect(workersPayOffAtStart(100, true, 1850, 0.2)).toBe(false);
+    expect(workersPayOffAtStart(100, true, 1850, null)).toBe(false);
   });
 
   it('starts no worker while other processes keep every core busy', () => {
