@@ -6,6 +6,7 @@
  * written). runAnalyze.ts then runs the plan.
  */
 import path from 'node:path';
+import { availableParallelism } from 'node:os';
 import { existsSync } from 'node:fs';
 import type { JobSpec } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
@@ -126,7 +127,18 @@ export function taskFor(plan: AnalyzePlan, key: string, files: string[], referen
     ...(opts.coreOnly ? { coreOnly: true } : {}),
     uncertainty: plan.uncertainty,
     eisPolarizations: opts.eisPolarizations ?? 'each',
+    readThreads: readThreads(opts.jobs ?? 'auto', plan.groups.size),
   };
+}
+
+/**
+ * Threads one file read may use (src/io/readInParallel.ts): 2 while the groups leave a core
+ * idle (fewer groups than cores, e.g. one large export), else 1 so the reader never competes
+ * with the task pool's own lanes; always 1 with --jobs 1.
+ */
+export function readThreads(jobs: number | 'auto', groups: number): number {
+  const cores = jobs === 'auto' ? availableParallelism() : Math.min(Math.floor(jobs) || 1, availableParallelism());
+  return cores >= 2 && groups < cores ? 2 : 1;
 }
 
 /** One task per work group, in code-point order of the group keys. */

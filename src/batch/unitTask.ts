@@ -63,6 +63,8 @@ export interface TaskInput {
   referenceExternal?: boolean;
   /** Measurement uncertainty and decision rule (job file, else limit set); null: today's shared-risk verdicts only. */
   uncertainty?: UncertaintySpec | null;
+  /** Threads one file read may use (ReadContext.readThreads; analyzePlan.ts readThreads). */
+  readThreads?: number;
   /** How an EIS θ/φ pair is judged (src/batch/polarizationUnits.ts); default 'each'. */
   eisPolarizations?: EisPolarizationView;
   /** Pack each unit's grid and beams for viewer.html. */
@@ -258,7 +260,7 @@ async function readGroup(input: TaskInput): Promise<GroupRead> {
   const beams: RawBeam[] = [];
   const failedUnits = new Set<string>();
   let groupFailed = false;
-  const ctx = { inputRoot: input.inputRoot, job: input.job ?? undefined, quantityOverride: input.quantityOverride };
+  const ctx = { inputRoot: input.inputRoot, job: input.job ?? undefined, quantityOverride: input.quantityOverride, readThreads: input.readThreads };
   for (const f of input.files) {
     const r = await readExportFile(f, ctx);
     nfcIdentity(r.beams, read.spellings); // the spellings as written go to results.json (unitAsWritten)

@@ -22,17 +22,18 @@ const KEY_MEMO = 256;
  * goes through Number(text).
  *
  * Memory: the chunk buffer plus the sink's arrays; the text is never held whole. Hashes every
- * byte into `hash`. Returns 'quote' (having consumed nothing irrevocable but the sink's rows)
- * when it meets a '"', so the caller restarts on the general path.
+ * byte it reads into `hash`. Ends 'quote' (having consumed nothing irrevocable but the sink's rows)
+ * when it meets a '"', so the caller restarts on the general path. Reads `range` only, so two
+ * threads can each parse a part of one file (readInParallel.ts).
  */
 export async function fastTokenize(
   fh: FileHandle,
-  dataStart: number,
+  range: ByteRange,
   startLine: number,
   t: TokenContext,
-  hash: Hash,
+  hash: Hash | null,
   chunkBytes = CHUNK,
-): Promise<'done' | 'quote'> {
+): Promise<TokenizeEnd> {
   const kinds = t.fields.kinds;
   const slots = t.fields.slots;
   const nFields = kinds.length;
@@ -42,9 +43,10 @@ export async function fastTokenize(
   const keyIds = t.keyIds;
   const memo = Array.from({ length: t.fields.keyCount }, () => ({ bytes: Buffer.alloc(KEY_MEMO), len: -1, id: -1 }));
 
-  let filePos = 0;
+  let filePos = range.readFrom;
+  const end = range.end;
   let line = startLine;
-  let skipTo = dataStart;
+  let skipTo = range.parseFrom - range.readFrom;
   let lb: Buffer = Buffer.alloc(0);
   let ls = 0;
   let le = 0;
@@ -168,8 +170,10 @@ export async function fastTokenize(
   // by a chunk boundary is stitched from the kept tail and the next chunk's first line.
   const bufs = [Buffer.allocUnsafe(chunkBytes), Buffer.allocUnsafe(chunkBytes)];
   let which = 0;
-  let pending = fh.read(bufs[0], 0, chunkBytes, 0);
+  const readAt = (buf: Buffer, pos: number) => fh.read(buf, 0, Math.max(0, Math.min(chunkBytes, end - pos)), pos);
+  let pending = readAt(bufs[0], filePos);
   let tail: Buffer | null = null;
+  const halt = t.halt ?? null;
   const lineAt = (view: Buffer, i: number, nl: number): boolean => {
     let e = nl;
     if (e > i && view[e - 1] === 13) e--;
@@ -188,8 +192,8 @@ export async function fastTokenize(
     const eof = bytesRead === 0;
     if (!eof) {
       which ^= 1;
-      pending = fh.read(bufs[which], 0, chunkBytes, filePos);
-      hash.update(cur.subarray(0, bytesRead));
+      pending = readAt(bufs[which], filePos);
+      hash?.update(cur.subarray(0, bytesRead));
     }
     let view = cur.subarray(0, bytesRead);
     if (skipTo > 0) {
@@ -207,17 +211,53 @@ export async function fastTokenize(
       }
       const stitched = eof ? tail : Buffer.concat([tail, view.subarray(0, nl)]);
       tail = null;
-      if (!lineAt(stitched, 0, stitched.length)) return 'quote';
+      if (!lineAt(stitched, 0, stitched.length)) return { outcome: 'quote', line };
       i = eof ? 0 : nl + 1;
     }
     if (eof) break;
     for (;;) {
+      if (halt !== null && halt.now) {
+        await pending;
+        return { outcome: 'halt', line };
+      }
       const nl = view.indexOf(10, i);
       if (nl < 0) break;
-      if (!lineAt(view, i, nl)) return 'quote';
+      if (!lineAt(view, i, nl)) return { outcome: 'quote', line };
       i = nl + 1;
     }
     if (i < view.length) tail = Buffer.from(view.subarray(i));
   }
-  return 'done';
+  return { outcome: 'done', line };
+}
+
+/**
+ * The bytes one fastTokenize call reads: [readFrom, end), hashing all of them and parsing rows
+ * from parseFrom on. `end` is a line start (just after a newline) or the end of the file
+ * (Infinity: read until the file ends).
+ */
+export interface ByteRange {
+  readFrom: number;
+  parseFrom: number;
+  end: number;
+}
+
+/**
+ * How a fastTokenize call ended, and the line number of the next line: 'done' (the range is
+ * read), 'quote' (a '"' was met: restart on the general path), 'halt' (TokenContext.halt was
+ * set by the sink; the range is not finished).
+ */
+export interface TokenizeEnd {
+  outcome: 'done' | 'quote' | 'halt';
+  line: number;
+}
+
+/** Feed [from, end) of the file to `hash` (the part of a file another thread parses). */
+export async function hashRange(fh: FileHandle, from: number, end: number, hash: Hash, chunkBytes = CHUNK): Promise<void> {
+  const buf = Buffer.allocUnsafe(chunkBytes);
+  for (let pos = from; pos < end;) {
+    const { bytesRead } = await fh.read(buf, 0, Math.min(chunkBytes, end - pos), pos);
+    if (bytesRead === 0) break;
+    hash.update(buf.subarray(0, bytesRead));
+    pos += bytesRead;
+  }
 }

@@ -8,6 +8,11 @@ export class KeyTable {
     this.maps = Array.from({ length: slots }, () => new Map());
   }
 
+  /** Id of `text` in `slot`, or −1 when it is not in the table (nothing is added). */
+  find(slot: number, text: string): number {
+    return this.maps[slot].get(text) ?? -1;
+  }
+
   /** Id of `text` (already trimmed) in `slot`, adding it when new. */
   intern(slot: number, text: string): number {
     const map = this.maps[slot];

@@ -4,7 +4,6 @@ import path from 'node:path';
 import type { InputError, Warning } from '../types.js';
 import { warning } from '../warnings.js';
 import { calibrationOffsetDb } from './calibrationOffset.js';
-import { fastTokenize } from './fastTokenizer.js';
 import { parseFrequencyText } from './frequencyText.js';
 import { generalTokenize } from './generalTokenizer.js';
 import { ErrorList, inputError } from './inputError.js';
@@ -14,6 +13,7 @@ import { DropoutLog } from './layouts/dropoutLog.js';
 import { isLayoutHeader, planLayout } from './layouts/registry.js';
 import { parseNumberText } from './numberText.js';
 import { pathIdentity } from './pathIdentity.js';
+import { MAIN_SHARE, PARALLEL_MIN_BYTES, readFast } from './readInParallel.js';
 import { MAX_SAMPLES_PER_FILE, SampleLimit } from './sampleLimit.js';
 import { HEAD_BYTES, sniffHead } from './sniffHead.js';
 import type { TokenContext } from './textRow.js';
@@ -32,7 +32,8 @@ function emptyInfo(): FileInfo {
  * Read one chamber export (long or matrix layout, any supported dialect) into raw beams.
  * Never throws for bad input: problems come back as `errors` (file:line:col grammar), and a
  * file with errors yields no beams. Plain numeric files stream through the byte-level fast
- * path; quoted or irregular ones go through papaparse; both give identical results.
+ * path (a large long-layout file on two threads when `ctx.readThreads` allows: readInParallel.ts);
+ * quoted or irregular ones go through papaparse; all give identical results.
  * @throws only on programming errors (never for file content or a missing file).
  */
 export async function readExportFile(absPath: string, ctx: ReadContext): Promise<FileReadResult> {
@@ -89,19 +90,25 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
     }
 
     const dropoutTokens = ctx.job?.dropoutTokens ? new Set(ctx.job.dropoutTokens.map((s) => s.trim().toLowerCase())) : null;
+    const maxSamples = ctx.maxSamples ?? MAX_SAMPLES_PER_FILE;
     const run = async (useFast: boolean) => {
       const errors = new ErrorList(file);
       const keys = new KeyTable(plan.fields.keyCount);
       const dropouts = new DropoutLog();
       const sink = layout.newSink({ file, errors, keys, firstDataLine: sniff.headerLine + 1, dropouts });
-      const limited = new SampleLimit(sink, layout.samplesPerRow, ctx.maxSamples ?? MAX_SAMPLES_PER_FILE, file, errors);
+      const limited = new SampleLimit(sink, layout.samplesPerRow, maxSamples, file, errors);
       const t: TokenContext = {
         file, fields: plan.fields, delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, errors, keys, sink: limited,
         nums: new Float64Array(Math.max(1, plan.fields.numCount)), keyIds: new Int32Array(Math.max(1, plan.fields.keyCount)), dropoutTokens,
       };
       if (useFast) {
         const hash = createHash('sha256');
-        const outcome = await fastTokenize(fh!, sniff.dataByteStart, sniff.headerLine + 1, t, hash, ctx.chunkBytes);
+        const outcome = await readFast({
+          fh: fh!, absPath, file, size, dataStart: sniff.dataByteStart, startLine: sniff.headerLine + 1, t, hash, sink, limited, plan,
+          dropoutTokens: dropoutTokens === null ? null : [...dropoutTokens], threads: ctx.readThreads ?? 1,
+          minBytes: ctx.parallelMinBytes ?? PARALLEL_MIN_BYTES, share: ctx.parallelShare ?? MAIN_SHARE, onOutcome: ctx.onParallel,
+          maxSamples, chunkBytes: ctx.chunkBytes,
+        });
         if (outcome === 'quote') return null;
         return { errors, keys, sink, dropouts, sha: hash.digest('hex') };
       }

@@ -15,7 +15,16 @@ export class SampleAccumulator {
   constructor(
     readonly template: SampleAccumulator | null,
     readonly firstLine: number,
+    state?: AccumulatorState,
   ) {
+    if (state !== undefined) {
+      // Continued from another thread's accumulator (readInParallel.ts): its arrays as they are.
+      this.n = state.n;
+      this.values = state.values;
+      this.thetaDeg = state.thetaDeg;
+      this.phiDeg = state.phiDeg;
+      return;
+    }
     // A follower usually has the template's length: start there, so it neither grows nor
     // keeps slack (growth would leave garbage and up to 2× capacity per beam).
     this.values = new Float64Array(template === null ? 1024 : Math.max(1024, template.n));
@@ -23,6 +32,14 @@ export class SampleAccumulator {
       this.thetaDeg = new Float64Array(1024);
       this.phiDeg = new Float64Array(1024);
     }
+  }
+
+  /**
+   * The arrays as they stand (capacity included; own angles null while following the template),
+   * for handing this accumulator to another thread.
+   */
+  state(): AccumulatorState {
+    return { n: this.n, values: this.values, thetaDeg: this.thetaDeg, phiDeg: this.phiDeg };
   }
 
   push(thetaDeg: number, phiDeg: number, value: number): void {
@@ -85,6 +102,14 @@ export class SampleAccumulator {
     }
     return { thetaDeg: trim(this.thetaDeg, this.n), phiDeg: trim(this.phiDeg!, this.n), values };
   }
+}
+
+/** An accumulator's arrays (see SampleAccumulator.state). */
+export interface AccumulatorState {
+  n: number;
+  values: Float64Array;
+  thetaDeg: Float64Array | null;
+  phiDeg: Float64Array | null;
 }
 
 /** View when little capacity is wasted, else a compact copy. */

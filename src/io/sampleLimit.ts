@@ -26,6 +26,21 @@ export class SampleLimit implements RowSink {
     private readonly errors: ErrorList,
   ) {}
 
+  /** Would `samples` more (another thread's part of the file, readInParallel.ts) stay within the limit? */
+  fits(samples: number): boolean {
+    return !this.tripped && this.samples + samples <= this.max;
+  }
+
+  /** Count samples that another thread passed on (after `fits`). */
+  add(samples: number): void {
+    this.samples += samples;
+  }
+
+  /** Samples passed on so far. */
+  get count(): number {
+    return this.samples;
+  }
+
   row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {
     if (this.tripped) return;
     if (this.samples + this.perRow > this.max) {

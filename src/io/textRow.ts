@@ -17,6 +17,8 @@ export interface TokenContext {
   keyIds: Int32Array;
   /** Dropout tokens (trimmed, lower case) read as missing samples in value fields; null = strict. */
   dropoutTokens: ReadonlySet<string> | null;
+  /** Set `now` (from the sink) to stop the fast path after the current row. */
+  halt?: { now: boolean };
 }
 
 /**

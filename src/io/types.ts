@@ -78,6 +78,17 @@ export interface ReadContext {
   maxSamples?: number;
   /** Fast-path chunk size in bytes (tests use tiny chunks to exercise lines cut by chunk boundaries). */
   chunkBytes?: number;
+  /**
+   * Threads one read may use (default 1). With 2, a large long-layout file is read on two
+   * threads (src/io/readInParallel.ts); the batch sets it from --jobs and the number of groups.
+   */
+  readThreads?: number;
+  /** Smallest data part read on two threads (default PARALLEL_MIN_BYTES; tests set it low). */
+  parallelMinBytes?: number;
+  /** Share of the data bytes the main thread reads on two threads (default MAIN_SHARE; tests move the split). */
+  parallelShare?: number;
+  /** Told whether a read ran on one thread, on two, or fell back to one after starting two (tests, benchmark). */
+  onParallel?: (how: 'single' | 'merged' | 'fallback', why?: string) => void;
 }
 
 /** One beam of one unit (at one frequency) as found in one file, before grid building. */

@@ -6,7 +6,7 @@ import { RowAngles } from './rowAngles.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { KeyTable } from '../keyTable.js';
 import type { RowLocator, RowSink } from '../rowSink.js';
-import { SampleAccumulator } from '../sampleAccumulator.js';
+import { SampleAccumulator, type AccumulatorState } from '../sampleAccumulator.js';
 
 
 interface Group {
@@ -36,6 +36,31 @@ export interface LongGroup {
 }
 
 /**
+ * One group read by another thread over the second part of a file (readInParallel.ts): its key
+ * as text (null where the file has no such column), and its samples. Lines count from that
+ * thread's first line.
+ */
+export interface LongPart {
+  unit: string | null;
+  beam: string | null;
+  pol: string | null;
+  freqRaw: number;
+  firstLine: number;
+  acc: AccumulatorState;
+}
+
+/** What a thread that read the second part of a file hands back (see LongSink.parts). */
+export interface LongParts {
+  groups: LongPart[];
+  /** Data rows it accepted. */
+  rows: number;
+  /** Its copy of the file's first group's directions, which its groups followed. */
+  templateN: number;
+  templateTheta: Float64Array;
+  templatePhi: Float64Array;
+}
+
+/**
  * Long-layout rows → per (unit, beam, pol, frequency) sample groups. Checks angle ranges,
  * converts az/el, radians and linear power (mW, W → dBm) and keeps both components of a θ/φ
  * value pair (the reader decides how they combine: src/io/polarizationBeams.ts).
@@ -46,6 +71,10 @@ export class LongSink implements RowSink {
   private byKey = new Map<string, Group>();
   private last: Group | null = null;
   private polOk: number[] = [];
+  /** The directions new groups follow (the first group's), when another sink read them. */
+  private template: SampleAccumulator | null = null;
+  /** The first group got rows again after another group had started. */
+  private firstReopened = false;
   // Per-file constants of row(), fixed once instead of derived on every row.
   private readonly angles: RowAngles;
 
@@ -143,8 +172,9 @@ export class LongSink implements RowSink {
   private group(unitId: number, beamId: number, polId: number, freqRaw: number, line: number): Group {
     const key = `${unitId}|${beamId}|${polId}|${freqRaw}`;
     let g = this.byKey.get(key);
+    if (g === this.groups[0] && this.groups.length > 1) this.firstReopened = true;
     if (!g) {
-      const template = this.groups.length ? this.groups[0].acc : null;
+      const template = this.template ?? (this.groups.length ? this.groups[0].acc : null);
       const acc = new SampleAccumulator(template, line);
       // The φ component follows the θ component's directions (the first group's, or its own group's).
       const accPhi = this.plan.pairValues ? new SampleAccumulator(template ?? acc, line) : null;
@@ -153,6 +183,98 @@ export class LongSink implements RowSink {
       this.byKey.set(key, g);
     }
     return g;
+  }
+
+  /** Groups so far (the first one closes when the second starts). */
+  get groupCount(): number {
+    return this.groups.length;
+  }
+
+  /** The first group's samples (its directions are the template of every later group). */
+  firstGroup(): SampleAccumulator | null {
+    return this.groups.length ? this.groups[0].acc : null;
+  }
+
+  /** New groups follow `acc`'s directions (the first group of the file, read by another sink). */
+  followTemplate(acc: SampleAccumulator): void {
+    this.template = acc;
+  }
+
+  /**
+   * This sink's groups for another thread (readInParallel.ts): keys as text, arrays as they are.
+   * Only for a sink whose groups follow an outside template (followTemplate) and without θ/φ
+   * value pairs.
+   */
+  parts(): LongParts {
+    const t = this.template as SampleAccumulator;
+    const name = (slot: number, id: number): string | null => (slot >= 0 ? this.keys.names[slot][id] : null);
+    const p = this.plan;
+    return {
+      groups: this.groups.map((g) => ({
+        unit: name(p.unitKey, g.unitId), beam: name(p.beamKey, g.beamId), pol: name(p.polKey, g.polId),
+        freqRaw: g.freqRaw, firstLine: g.acc.firstLine, acc: g.acc.state(),
+      })),
+      rows: this.rows,
+      templateN: t.n,
+      templateTheta: t.thetaDeg as Float64Array,
+      templatePhi: t.phiDeg as Float64Array,
+    };
+  }
+
+  /**
+   * Continue with the groups another thread read from the rest of the file (its lines start at
+   * `lineOffset`), giving exactly the state that reading those rows here would have given: a
+   * group this sink already has gets the samples pushed one by one (so a beam cut by the split
+   * follows the template at its true index), a new group takes the arrays as they are (it
+   * followed the same template from index 0). False, with nothing changed, when that cannot be
+   * guaranteed: θ/φ value pairs, the first group reopened (here or there), or a template that
+   * differs from this sink's first group.
+   */
+  absorb(parts: LongParts, lineOffset: number): boolean {
+    const first = this.firstGroup();
+    if (first === null || this.firstReopened || this.plan.pairValues || this.template !== null) return false;
+    const n = parts.templateN;
+    if (first.n !== n || first.thetaDeg === null || first.phiDeg === null) return false;
+    for (let i = 0; i < n; i++) {
+      if (first.thetaDeg[i] !== parts.templateTheta[i] || first.phiDeg[i] !== parts.templatePhi[i]) return false;
+    }
+    const p = this.plan;
+    const idOf = (slot: number, text: string | null, add: boolean): number => {
+      if (slot < 0 || text === null) return -1;
+      return add ? this.keys.intern(slot, text) : this.keys.find(slot, text);
+    };
+    const keyOf = (q: LongPart, add: boolean): string | null => {
+      const ids = [idOf(p.unitKey, q.unit, add), idOf(p.beamKey, q.beam, add), idOf(p.polKey, q.pol, add)];
+      if (!add && ((q.unit !== null && ids[0] < 0) || (q.beam !== null && ids[1] < 0) || (q.pol !== null && ids[2] < 0))) return null;
+      return `${ids[0]}|${ids[1]}|${ids[2]}|${q.freqRaw}`;
+    };
+    for (const q of parts.groups) {
+      const k = keyOf(q, false);
+      if (k !== null && this.byKey.get(k) === this.groups[0]) return false;
+      if (q.pol !== null && this.polKindOf(q.pol) < 0) return false;
+    }
+    for (const q of parts.groups) {
+      const key = keyOf(q, true) as string;
+      const [unitId, beamId, polId] = key.split('|').map(Number);
+      const old = this.byKey.get(key);
+      if (old === undefined) {
+        const acc = new SampleAccumulator(first, q.firstLine + lineOffset, q.acc);
+        const g: Group = { unitId, beamId, polId, freqRaw: q.freqRaw, acc, accPhi: null };
+        this.groups.push(g);
+        this.byKey.set(key, g);
+        continue;
+      }
+      const { values, thetaDeg, phiDeg } = q.acc;
+      const th = thetaDeg ?? parts.templateTheta;
+      const ph = phiDeg ?? parts.templatePhi;
+      for (let i = 0; i < q.acc.n; i++) old.acc.push(th[i], ph[i], values[i]);
+    }
+    this.rows += parts.rows;
+    return true;
+  }
+
+  private polKindOf(text: string): number {
+    return pairComponent(text);
   }
 
   /** The groups in order of first appearance. */

@@ -1,0 +1,127 @@
+import type { Hash } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import type { FileHandle } from 'node:fs/promises';
+import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import { fastTokenize, hashRange } from './fastTokenizer.js';
+import type { LayoutSink, LongPlan, PlanFacts } from './layouts/layoutTypes.js';
+import { LongSink } from './layouts/longSink.js';
+import type { RangeJob, RangeReply } from './rangeWorker.js';
+import type { SampleLimit } from './sampleLimit.js';
+import type { TokenContext } from './textRow.js';
+
+/**
+ * Smallest data part (bytes) worth a second thread. A worker costs about 30–50 ms of CPU to
+ * start (its own isolate and the reader's modules) and reads the file's first group again;
+ * the fast path reads about 8 MB in that time on the 2-core bench machine, so below this size
+ * the split does not pay.
+ */
+export const PARALLEL_MIN_BYTES = 8 << 20;
+
+/**
+ * Share of the data rows the main thread reads itself. It also hashes the whole file and merges
+ * the worker's groups, while the worker starts and re-reads the first group: measured on the
+ * 64-beam bench export.
+ */
+export const MAIN_SHARE = 0.5;
+
+/** Bytes searched for the newline after the split point; a longer line keeps one thread. */
+const SPLIT_SEARCH = 1 << 16;
+
+/** What the fast path needs to read one file, maybe on two threads. */
+export interface FastRead {
+  fh: FileHandle;
+  absPath: string;
+  file: string;
+  size: number;
+  dataStart: number;
+  startLine: number;
+  t: TokenContext;
+  hash: Hash;
+  sink: LayoutSink;
+  limited: SampleLimit;
+  plan: PlanFacts;
+  /** Dropout tokens as the job file lists them (trimmed, lower case), or null. */
+  dropoutTokens: string[] | null;
+  threads: number;
+  minBytes: number;
+  /** Share of the data bytes before the split (default MAIN_SHARE). */
+  share: number;
+  /** Told how the read went: 'single' (one thread), 'merged' (two), 'fallback' (two started, one finished). */
+  onOutcome?: (how: 'single' | 'merged' | 'fallback', why?: string) => void;
+  maxSamples: number;
+  chunkBytes?: number;
+}
+
+/** The compiled worker beside this module, or null when running from .ts sources (tests). */
+function workerPath(): string | null {
+  if (!import.meta.url.endsWith('.js')) return null;
+  const p = fileURLToPath(new URL('./rangeWorker.js', import.meta.url));
+  return existsSync(p) ? p : null;
+}
+
+/** The line start nearest after the main thread's share, or null (no newline near it). */
+async function findSplit(fh: FileHandle, dataStart: number, size: number, share: number): Promise<number | null> {
+  const at = dataStart + Math.floor((size - dataStart) * share);
+  const buf = Buffer.alloc(Math.min(SPLIT_SEARCH, size - at));
+  const { bytesRead } = await fh.read(buf, 0, buf.length, at);
+  const nl = buf.subarray(0, bytesRead).indexOf(10);
+  if (nl < 0 || at + nl + 1 >= size) return null;
+  return at + nl + 1;
+}
+
+/** Start the worker on [split, end); its reply, or null when it failed to run. */
+function startWorker(script: string, job: RangeJob): { reply: Promise<RangeReply | null>; stop: () => Promise<number> } {
+  const w = new Worker(script, { workerData: job });
+  const reply = new Promise<RangeReply | null>((resolve) => {
+    w.once('message', (m: RangeReply) => resolve(m));
+    w.once('error', () => resolve(null));
+    w.once('exit', () => resolve(null));
+  });
+  return { reply, stop: () => w.terminate() };
+}
+
+/**
+ * Read the data rows of one file on the fast path, on two threads when that pays: a long-layout
+ * file of at least `minBytes` of data, `threads` ≥ 2, and the compiled worker at hand. The main
+ * thread reads [data start, split) and hashes the whole file; the worker (rangeWorker.ts) reads
+ * [split, end) into its own groups, which the main sink then takes over (LongSink.absorb: a beam
+ * cut by the split is continued sample by sample, new beams are taken as they are, group order
+ * stays first appearance, lines are offset). On anything unusual (an error or quote in either
+ * part, the worker giving up, the sample limit) the main thread simply reads on from the split
+ * itself, which is exactly the single pass. 'quote': restart on the general path.
+ */
+export async function readFast(r: FastRead): Promise<'done' | 'quote'> {
+  const whole = { readFrom: 0, parseFrom: r.dataStart, end: Infinity };
+  const script = r.threads >= 2 && r.size - r.dataStart >= r.minBytes && r.plan.layout === 'long' && !(r.plan as LongPlan).pairValues
+    && r.sink instanceof LongSink ? workerPath() : null;
+  const split = script === null ? null : await findSplit(r.fh, r.dataStart, r.size, r.share);
+  if (script === null || split === null || !(r.sink instanceof LongSink)) {
+    r.onOutcome?.('single');
+    return (await fastTokenize(r.fh, whole, r.startLine, r.t, r.hash, r.chunkBytes)).outcome === 'quote' ? 'quote' : 'done';
+  }
+  const sink = r.sink;
+  const worker = startWorker(script, {
+    path: r.absPath, file: r.file, plan: r.plan as LongPlan, delimiter: r.t.delimiter, decimalComma: r.t.decimalComma,
+    dropoutTokens: r.dropoutTokens, dataStart: r.dataStart, firstLine: r.startLine, split, maxSamples: r.maxSamples, chunkBytes: r.chunkBytes,
+  });
+  try {
+    const first = await fastTokenize(r.fh, { readFrom: 0, parseFrom: r.dataStart, end: split }, r.startLine, r.t, r.hash, r.chunkBytes);
+    if (first.outcome === 'quote') {
+      r.onOutcome?.('fallback', 'quote');
+      return 'quote';
+    }
+    await hashRange(r.fh, split, Infinity, r.hash, r.chunkBytes);
+    const reply = r.t.errors.count === 0 ? await worker.reply : null;
+    if (reply !== null && reply.ok && r.limited.fits(reply.samples) && sink.absorb(reply.parts, first.line)) {
+        r.limited.add(reply.samples);
+      r.onOutcome?.('merged');
+      return 'done';
+    }
+    r.onOutcome?.('fallback', reply === null ? (r.t.errors.count > 0 ? 'errors before the split' : 'worker failed') : reply.ok ? 'not absorbed' : reply.why);
+    const rest = await fastTokenize(r.fh, { readFrom: split, parseFrom: split, end: Infinity }, first.line, r.t, null, r.chunkBytes);
+    return rest.outcome === 'quote' ? 'quote' : 'done';
+  } finally {
+    await worker.stop();
+  }
+}
