@@ -9,6 +9,7 @@ const CHUNK = 1 << 20;
 /** Exact powers of ten (all representable in binary64 up to 1e22). */
 const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
 const KEY_MEMO = 256;
+const NEWLINE = Buffer.from('\n');
 
 /**
  * Streaming byte-level reader for plain numeric rows: reads the file in 1 MiB chunks into two
@@ -47,6 +48,7 @@ export async function fastTokenize(
   const end = range.end;
   let line = startLine;
   let skipTo = range.parseFrom - range.readFrom;
+  // Where the row handed to the sink lies (for the locator, which only error paths use).
   let lb: Buffer = Buffer.alloc(0);
   let ls = 0;
   let le = 0;
@@ -61,34 +63,44 @@ export async function fastTokenize(
     if (cached === null) cached = splitLocator(lb.toString('utf8', ls, le).split(t.delimiter), t.delimiter);
     return cached;
   }
+  const sink = t.sink;
+  const halt = t.halt ?? null;
 
-  /** Parse one line [s, e) fully; false when it needs the text routine. */
-  function fastLine(b: Buffer, s: number, e: number): boolean {
-    let p = s;
-    for (let f = 0; f < nFields; f++) {
-      const kind = kinds[f];
-      if (kind === NUM) {
-        let neg = false;
-        let c = b[p];
-        if (c === 45) {
-          neg = true;
-          p++;
-        } else if (c === 43) p++;
-        let m = 0;
-        let nd = 0;
-        let frac = 0;
-        while (p < e) {
-          const d = b[p] - 48;
-          if (d < 0 || d > 9) break;
-          m = m * 10 + d;
-          nd++;
-          p++;
-        }
-        if (p < e) {
+  /**
+   * Parse whole lines from `i` on, each fully or not at all, while they are plain: returns where
+   * it stopped, `stop` or the start of a line it does not fully understand (a blank or '#' line,
+   * spaces, NaN, a quote, exotic numbers, a wrong field count), which the caller hands to the
+   * text routine. Every line in [i, stop) ends with a '\n' before `stop`, so no loop needs a
+   * bound: each stops at that newline at the latest. One call parses a whole chunk's lines.
+   */
+  function scanLines(b: Buffer, i: number, stop: number): number {
+    while (i < stop) {
+      const c0 = b[i];
+      if (c0 === 35 || c0 === 10 || c0 === 13) return i;
+      let p = i;
+      for (let f = 0; f < nFields; f++) {
+        const kind = kinds[f];
+        if (kind === NUM) {
+          let neg = false;
+          let c = b[p];
+          if (c === 45) {
+            neg = true;
+            p++;
+          } else if (c === 43) p++;
+          let m = 0;
+          let nd = 0;
+          let frac = 0;
+          for (;;) {
+            const d = b[p] - 48;
+            if (d < 0 || d > 9) break;
+            m = m * 10 + d;
+            nd++;
+            p++;
+          }
           c = b[p];
           if (c === 46 || (dc && c === 44)) {
             p++;
-            while (p < e) {
+            for (;;) {
               const d = b[p] - 48;
               if (d < 0 || d > 9) break;
               m = m * 10 + d;
@@ -96,74 +108,83 @@ export async function fastTokenize(
               frac++;
               p++;
             }
+            c = b[p];
           }
-        }
-        if (nd === 0 || nd > 15) return false;
-        let exp = 0;
-        if (p < e && (b[p] === 101 || b[p] === 69)) {
-          p++;
-          let eneg = false;
-          if (b[p] === 45) {
-            eneg = true;
+          if (nd === 0 || nd > 15) return i;
+          let exp = 0;
+          if (c === 101 || c === 69) {
             p++;
-          } else if (b[p] === 43) p++;
-          let ed = 0;
-          while (p < e) {
-            const d = b[p] - 48;
-            if (d < 0 || d > 9) break;
-            exp = exp * 10 + d;
-            ed++;
+            let eneg = false;
+            if (b[p] === 45) {
+              eneg = true;
+              p++;
+            } else if (b[p] === 43) p++;
+            let ed = 0;
+            for (;;) {
+              const d = b[p] - 48;
+              if (d < 0 || d > 9) break;
+              exp = exp * 10 + d;
+              ed++;
+              p++;
+              if (ed > 4) return i;
+            }
+            if (ed === 0) return i;
+            if (eneg) exp = -exp;
+          }
+          const e10 = exp - frac;
+          let v: number;
+          if (e10 === 0) v = m;
+          else if (e10 < 0 && e10 >= -22) v = m / POW10[-e10];
+          else if (e10 > 0 && e10 <= 22) v = m * POW10[e10];
+          else return i;
+          nums[slots[f]] = neg ? -v : v;
+        } else {
+          const q0 = p;
+          for (;;) {
+            const c = b[p];
+            if (c === delim || c === 10 || c === 13) break;
+            if (c === 34) return i;
             p++;
-            if (ed > 4) return false;
           }
-          if (ed === 0) return false;
-          if (eneg) exp = -exp;
+          if (kind === KEY) {
+            const slot = slots[f];
+            const mm = memo[slot];
+            const len = p - q0;
+            if (len === 0) return i;
+            let same = len === mm.len;
+            for (let k = 0; same && k < len; k++) if (b[q0 + k] !== mm.bytes[k]) same = false;
+            if (same) keyIds[slot] = mm.id;
+            else {
+              const text = b.toString('utf8', q0, p).trim();
+              if (text === '') return i;
+              const id = t.keys.intern(slot, text);
+              keyIds[slot] = id;
+              if (len <= KEY_MEMO) {
+                b.copy(mm.bytes, 0, q0, p);
+                mm.len = len;
+                mm.id = id;
+              } else mm.len = -1;
+            }
+          }
         }
-        const e10 = exp - frac;
-        if (e10 < -22 || e10 > 22) return false;
-        const v = e10 >= 0 ? m * POW10[e10] : m / POW10[-e10];
-        nums[slots[f]] = neg ? -v : v;
-      } else {
-        const q0 = p;
-        while (p < e) {
-          const c = b[p];
-          if (c === delim) break;
-          if (c === 34) return false;
+        if (f < nFields - 1) {
+          if (b[p] !== delim) return i;
           p++;
-        }
-        if (kind === KEY) {
-          const slot = slots[f];
-          const mm = memo[slot];
-          const len = p - q0;
-          if (len === 0) return false;
-          let same = len === mm.len;
-          for (let i = 0; same && i < len; i++) if (b[q0 + i] !== mm.bytes[i]) same = false;
-          if (same) keyIds[slot] = mm.id;
-          else {
-            const text = b.toString('utf8', q0, p).trim();
-            if (text === '') return false;
-            const id = t.keys.intern(slot, text);
-            keyIds[slot] = id;
-            if (len <= KEY_MEMO) {
-              b.copy(mm.bytes, 0, q0, p);
-              mm.len = len;
-              mm.id = id;
-            } else mm.len = -1;
-          }
         }
       }
-      if (f < nFields - 1) {
-        if (p >= e || b[p] !== delim) return false;
-        p++;
-      }
+      const e = p;
+      if (b[p] === 13) p++;
+      if (b[p] !== 10) return i;
+      lb = b;
+      ls = i;
+      le = e;
+      cached = null;
+      sink.row(line, nums, keyIds, loc);
+      line++;
+      i = p + 1;
+      if (halt !== null && halt.now) return i;
     }
-    if (p !== e) return false;
-    lb = b;
-    ls = s;
-    le = e;
-    cached = null;
-    t.sink.row(line, nums, keyIds, loc);
-    return true;
+    return i;
   }
 
   // Double buffering: the next chunk is read (thread pool) while this one is parsed; a line cut
@@ -173,17 +194,29 @@ export async function fastTokenize(
   const readAt = (buf: Buffer, pos: number) => fh.read(buf, 0, Math.max(0, Math.min(chunkBytes, end - pos)), pos);
   let pending = readAt(bufs[0], filePos);
   let tail: Buffer | null = null;
-  const halt = t.halt ?? null;
-  const lineAt = (view: Buffer, i: number, nl: number): boolean => {
+  /** One line [i, nl) the scan did not take: skipped (blank, '#') or read by the text routine; false on a quote. */
+  const slowLine = (view: Buffer, i: number, nl: number): boolean => {
     let e = nl;
     if (e > i && view[e - 1] === 13) e--;
-    if (e > i && view[i] !== 35 && !fastLine(view, i, e)) {
+    if (e > i && view[i] !== 35) {
       if (view.subarray(i, e).includes(34)) return false;
       const fields = view.toString('utf8', i, e).split(t.delimiter);
       processTextRow(fields, line, splitLocator(fields, t.delimiter), t);
     }
     line++;
     return true;
+  };
+  /** Lines of [i, stop), every one ending with a newline before stop; false on a quote. */
+  const lines = (view: Buffer, i: number, stop: number): boolean => {
+    for (;;) {
+      i = scanLines(view, i, stop);
+      if (i >= stop) return true;
+      if (halt !== null && halt.now) return true;
+      const nl = view.indexOf(10, i);
+      if (!slowLine(view, i, nl)) return false;
+      i = nl + 1;
+      if (halt !== null && halt.now) return true;
+    }
   };
   for (;;) {
     const { bytesRead } = await pending;
@@ -209,23 +242,22 @@ export async function fastTokenize(
         tail = Buffer.concat([tail, view]);
         continue;
       }
-      const stitched = eof ? tail : Buffer.concat([tail, view.subarray(0, nl)]);
+      // The cut line with its newline (one added after a last line without one).
+      const stitched = Buffer.concat([tail, eof ? NEWLINE : view.subarray(0, nl + 1)]);
       tail = null;
-      if (!lineAt(stitched, 0, stitched.length)) return { outcome: 'quote', line };
+      if (!lines(stitched, 0, stitched.length)) return { outcome: 'quote', line };
       i = eof ? 0 : nl + 1;
     }
     if (eof) break;
-    for (;;) {
-      if (halt !== null && halt.now) {
-        await pending;
-        return { outcome: 'halt', line };
-      }
-      const nl = view.indexOf(10, i);
-      if (nl < 0) break;
-      if (!lineAt(view, i, nl)) return { outcome: 'quote', line };
-      i = nl + 1;
+    const stop = view.lastIndexOf(10) + 1;
+    if (halt === null || !halt.now) {
+      if (i < stop && !lines(view, i, stop)) return { outcome: 'quote', line };
     }
-    if (i < view.length) tail = Buffer.from(view.subarray(i));
+    if (halt !== null && halt.now) {
+      await pending;
+      return { outcome: 'halt', line };
+    }
+    if (Math.max(i, stop) < view.length) tail = Buffer.from(view.subarray(Math.max(i, stop)));
   }
   return { outcome: 'done', line };
 }
