@@ -17,3 +17,11 @@ export function levelToDb(v: number, fileValueUnit: 'dBm' | 'dBi' | 'mW' | 'W'):
   if (!inSaneRange(v, LEVEL_RANGE)) return `${LEVEL_RANGE.expected}${linear ? ` after conversion from ${fileValueUnit}` : ''}`;
   return v;
 }
+
+/**
+ * The cells levelToDb returns unchanged: a dB unit (dBm, dBi) and a level inside LEVEL_RANGE;
+ * null for mW and W (always converted). For a per-row fast path that must agree with levelToDb.
+ */
+export function unchangedLevels(fileValueUnit: 'dBm' | 'dBi' | 'mW' | 'W'): { lo: number; hi: number } | null {
+  return fileValueUnit === 'mW' || fileValueUnit === 'W' ? null : { lo: LEVEL_RANGE.lo, hi: LEVEL_RANGE.hi };
+}

@@ -1,4 +1,4 @@
-import { levelToDb } from './levelToDb.js';
+import { levelToDb, unchangedLevels } from './levelToDb.js';
 import { pairComponent } from '../columnRoles.js';
 import type { LongPlan } from './layoutTypes.js';
 import type { DropoutLog } from './dropoutLog.js';
@@ -78,6 +78,16 @@ export class LongSink implements RowSink {
   // Per-file constants of row(), fixed once instead of derived on every row.
   private readonly angles: RowAngles;
 
+  // The plain row (θ/φ in degrees, one dB value, no frequency or pol column) continuing the
+  // last group, checked against the owners' pass-through ranges (RowAngles, levelToDb): the
+  // common row of a large export takes a few comparisons and one push. NaN bounds: never plain.
+  private readonly thLo: number = NaN;
+  private readonly thHi: number = NaN;
+  private readonly phLo: number = NaN;
+  private readonly phHi: number = NaN;
+  private readonly vLo: number = NaN;
+  private readonly vHi: number = NaN;
+
   constructor(
     protected readonly plan: LongPlan,
     private readonly file: string,
@@ -86,6 +96,13 @@ export class LongSink implements RowSink {
     private readonly dropouts: DropoutLog,
   ) {
     this.angles = new RowAngles(plan.angleConvention, plan.angleUnit);
+    const a = this.angles.unchangedRange();
+    const v = unchangedLevels(plan.fileValueUnit);
+    if (a !== null && v !== null && !plan.pairValues && plan.freqSlot < 0 && plan.polKey < 0) {
+      [this.thLo, this.thHi, this.phLo, this.phHi] = a;
+      this.vLo = v.lo;
+      this.vHi = v.hi;
+    }
   }
 
   private err(line: number, f: number, loc: RowLocator, expected: string): void {
@@ -108,6 +125,22 @@ export class LongSink implements RowSink {
   }
 
   row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {
+    const th = nums[0];
+    const ph = nums[1];
+    const v = nums[2];
+    const g0 = this.last;
+    if (g0 !== null && th >= this.thLo && th <= this.thHi && ph >= this.phLo && ph <= this.phHi && v >= this.vLo && v <= this.vHi) {
+      const p = this.plan;
+      if (g0.unitId === (p.unitKey >= 0 ? keys[p.unitKey] : -1) && g0.beamId === (p.beamKey >= 0 ? keys[p.beamKey] : -1)) {
+        g0.acc.push(th + 0, ph, v); // + 0: θ = −0 is +0, as RowAngles' clamp gives
+        this.rows++;
+        return;
+      }
+    }
+    this.anyRow(line, nums, keys, loc);
+  }
+
+  private anyRow(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {
     const p = this.plan;
     const angles = this.angles;
     const bad = angles.read(nums[0], nums[1]);

@@ -24,6 +24,15 @@ export class RowAngles {
     this.hi1 = this.thetaPhi ? 180 : 90;
   }
 
+  /**
+   * The angle cells that read() passes through unchanged (θ/φ in degrees, both in range), as
+   * [θ lo, θ hi, φ lo, φ hi]; null for az/el or radians (always converted). For a per-row fast
+   * path that must agree with read().
+   */
+  unchangedRange(): [number, number, number, number] | null {
+    return this.thetaPhi && !this.rad ? [this.lo1, this.hi1, -180, 360] : null;
+  }
+
   /** Read (θ, φ) or (el, az) as written: 0 when both are in range, else 1 or 2 (the angle out of range). */
   read(first: number, second: number): 0 | 1 | 2 {
     let a1 = first;
