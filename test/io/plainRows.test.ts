@@ -14,8 +14,9 @@ const bits = (a: Float64Array): string[] => Array.from(a, (x) => (Object.is(x, -
 describe('plain rows on the fast path (issue 18)', () => {
   it('θ = −0 reads as +0 and a value of −0 stays −0, as on the general path', async () => {
     const f = path.join(dir, 'zeros.csv');
-    const rows = Array.from({ length: 6 }, (_v, i) => `-0,${i * 60},0,${i % 2 ? '-0' : '1.5'}\n-0.0,${i * 60},1,-0.0`);
-    writeFileSync(f, `theta,phi,beam,eirp_dbm\n${rows.join('\n')}\n`);
+    const beam0 = Array.from({ length: 6 }, (_v, i) => `-0,${i * 60},0,${i % 2 ? '-0' : '1.5'}`);
+    const beam1 = Array.from({ length: 6 }, (_v, i) => `-0.0,${i * 60},1,-0.0`);
+    writeFileSync(f, `theta,phi,beam,eirp_dbm\n${[...beam0, ...beam1].join('\n')}\n`);
     const fast = await readExportFile(f, { inputRoot: dir, parser: 'fast' });
     const general = await readExportFile(f, { inputRoot: dir, parser: 'general' });
     expect(fast.info.parser).toBe('fast');
