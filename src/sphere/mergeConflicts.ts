@@ -1,4 +1,5 @@
 import type { GridBuild } from './buildGrid.js';
+import { rawOrderKind, sortedSegments } from './mergeSamples.js';
 
 /**
  * Samples merged into one direction that differ by more than this are a conflict, dB (common
@@ -44,6 +45,36 @@ const groupsOf = new WeakMap<GridBuild, MergedGroups>();
 function mergedGroups(build: GridBuild): MergedGroups {
   let g = groupsOf.get(build);
   if (g !== undefined) return g;
+  g = rawOrderKind(build) === 2 ? groupsOfSegments(sortedSegments(build)) : groupsOfPoints(build);
+  groupsOf.set(build, g);
+  return g;
+}
+
+/**
+ * The merged groups of a build whose samples come point by point (rawOrderKind 2), read off
+ * mergeSamples' segments (the groups are the segments with a positive length; their samples are
+ * consecutive): no pass over the samples.
+ */
+function groupsOfSegments(seg: Int32Array): MergedGroups {
+  let groups = 0;
+  let total = 0;
+  for (let s = 0; s < seg.length; s += 3) if (seg[s + 1] > 0) { groups++; total += seg[s + 1]; }
+  const points = new Int32Array(groups);
+  const start = new Int32Array(groups + 1);
+  const samples = new Int32Array(total);
+  for (let s = 0, k = 0; s < seg.length; s += 3) {
+    const len = seg[s + 1];
+    if (len <= 0) continue;
+    points[k] = seg[s + 2];
+    start[k + 1] = start[k] + len;
+    for (let j = 0; j < len; j++) samples[start[k] + j] = seg[s] + j;
+    k++;
+  }
+  return { points, start, samples };
+}
+
+/** The merged groups of any build: count the samples of each point, then list them in file order. */
+function groupsOfPoints(build: GridBuild): MergedGroups {
   const { pointOf } = build;
   const m = build.grid.thetaDeg.length;
   const count = new Int32Array(m);
@@ -70,9 +101,7 @@ function mergedGroups(build: GridBuild): MergedGroups {
     const k = slot[pointOf[i]];
     if (k >= 0) samples[fillAt[k]++] = i;
   }
-  g = { points, start, samples };
-  groupsOf.set(build, g);
-  return g;
+  return { points, start, samples };
 }
 
 /**

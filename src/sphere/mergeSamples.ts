@@ -46,7 +46,7 @@ const segmentsOf = new WeakMap<GridBuild, Int32Array>();
  * One O(n) scan cached per build: the beams of a unit share their build, so each beam's merge
  * is a few block copies plus the merged points (a 1° export: two pole groups).
  */
-function sortedSegments(build: GridBuild): Int32Array {
+export function sortedSegments(build: GridBuild): Int32Array {
   let seg = segmentsOf.get(build);
   if (seg !== undefined) return seg;
   const p = build.pointOf;

@@ -34,6 +34,32 @@ describe('rankedCdf and subsetCdf equal weightedCdf bit for bit', () => {
     }), { seed: 18, numRuns: 200 });
   });
 
+  it('ranked without a sort (two-decimal values) or with one (anything else): the bits of weightedCdf', () => {
+    // Two-decimal values with some off the lattice (merged pole samples), −0 beside 0, NaN,
+    // ±∞, huge values and a sparse lattice: each takes its route and gives weightedCdf's CDF.
+    const L = (k: number) => k / 100;
+    const cases: number[][] = [
+      [L(2921), L(2921), L(-5), 29.213456, L(3000), 29.213456, 7.123456789, L(0), L(1)],
+      [L(0), -0, L(3), L(3)],
+      [L(5), Infinity, L(2), -Infinity],
+      [1e15, L(3), L(4), L(5), L(6)],
+      [L(-300000), L(0), L(300000)],
+      [0.1, 0.2, 0.30000000000000004, 0.3, L(30), L(31)],
+    ];
+    for (const v of cases) {
+      const w = v.map((_, i) => 0.5 + i / 7);
+      const r = rankedCdf(v, w);
+      expect(sameCdf(r, weightedCdf(v, w))).toBe(true);
+      for (let i = 0; i < v.length; i++) expect(Object.is(r.values[r.stepOf[i]], v[i]) || r.values[r.stepOf[i]] === v[i]).toBe(true);
+    }
+    expect(() => rankedCdf([L(1), NaN], [1, 1])).toThrow(RangeError);
+    fc.assert(fc.property(fc.array(fc.tuple(fc.integer({ min: -5000, max: 5000 }), fc.integer({ min: 0, max: 9 }), fc.double({ min: 0, max: 1, noNaN: true })), { minLength: 1, maxLength: 150 }), (pts) => {
+      const v = pts.map(([k, off]) => (off === 0 ? k / 100 + 1e-7 : k / 100)); // about one in ten off the lattice
+      const w = pts.map((p) => p[2]);
+      expect(sameCdf(rankedCdf(v, w), weightedCdf(v, w))).toBe(true);
+    }), { seed: 18, numRuns: 300 });
+  });
+
   it('the documented example: subset {3, 3} of [3, 1, 3] weighted 5 each', () => {
     const c = subsetCdf(rankedCdf([3, 1, 3], [1, 2, 1]), Int32Array.of(0, 2), [5, 5]);
     expect([Array.from(c.values), Array.from(c.cumulativeSr)]).toEqual([[3], [10]]);

@@ -76,12 +76,27 @@ describe('conflicting samples at one direction are never silent (issue 12)', () 
 describe('mergeConflicts on a shared build (issue 18: the merged points are found once per build)', () => {
   it('equals a scan of every sample, for several beams of one build, ties and NaN included', async () => {
     const { buildSphereGrid } = await import('../../src/sphere/buildGrid.js');
-    const { mergeConflicts } = await import('../../src/sphere/mergeConflicts.js');
     // 15° grid written θ-major with φ = 360 columns and every pole sample; rows repeated out of order.
     const t: number[] = [], p: number[] = [];
     for (let th = 0; th <= 180; th += 15) for (let ph = 0; ph <= 360; ph += 15) { t.push(th); p.push(ph); }
     for (const [th, ph] of [[45, 30], [90, 0], [45, 30]]) { t.push(th); p.push(ph); }
     const build = buildSphereGrid(Float64Array.from(t), Float64Array.from(p));
+    await check(build, t);
+    // The same with the samples point by point (no φ = 360 column, the repeated row beside its
+    // first): mergeSamples' segments then give the merged groups.
+    const t2: number[] = [], p2: number[] = [];
+    for (let th = 0; th <= 180; th += 15) for (let ph = 0; ph < 360; ph += 15) {
+      t2.push(th); p2.push(ph);
+      if (th === 45 && ph === 30) { t2.push(th); p2.push(ph); }
+    }
+    const build2 = buildSphereGrid(Float64Array.from(t2), Float64Array.from(p2));
+    const { rawOrderKind } = await import('../../src/sphere/mergeSamples.js');
+    expect(rawOrderKind(build2)).toBe(2);
+    await check(build2, t2);
+  });
+
+  async function check(build: import('../../src/sphere/buildGrid.js').GridBuild, t: number[]): Promise<void> {
+    const { mergeConflicts } = await import('../../src/sphere/mergeConflicts.js');
     // The oracle: the straightforward scan over all samples in file order (lowest/highest first seen wins).
     const oracle = (v: Float64Array) => {
       const lo = new Map<number, number>(), hi = new Map<number, number>();
@@ -105,5 +120,5 @@ describe('mergeConflicts on a shared build (issue 18: the merged points are foun
       expect(got.count).toBe(want.length);
       expect([...got.worst].sort((a, b) => a.point - b.point)).toEqual(want);
     }
-  });
+  }
 });
