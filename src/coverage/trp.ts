@@ -15,19 +15,6 @@ const LN10_OVER_10 = Math.LN10 / 10;
 const POWER_MEMO_OFFSET = 30000;
 const powerMemo = new Float64Array(2 * POWER_MEMO_OFFSET + 1);
 
-/** Math.exp(v·ln10/10) (Eq. 1's 10^(v/10)), through powerMemo when v has two decimals. */
-function powerOf(v: number): number {
-  const k = Math.round(v * 100);
-  const j = k + POWER_MEMO_OFFSET;
-  if (k / 100 !== v || !(j >= 0 && j < powerMemo.length)) return Math.exp(v * LN10_OVER_10);
-  let e = powerMemo[j];
-  if (e === 0) {
-    e = Math.exp(v * LN10_OVER_10);
-    powerMemo[j] = e;
-  }
-  return e;
-}
-
 /**
  * Total radiated power of one beam: TRP = (1/4π) Σ w_i · 10^(EIRP_i/10), back to dBm (Eq. 1;
  * DESIGN.md "TRP"; TS 38.521-2 Annex M.4.3 for Voronoi weights on constant-density grids).
@@ -38,7 +25,7 @@ function powerOf(v: number): number {
  * `weightSumSr` is that Σw when the caller already has it (grid.solidAngleSr, the same
  * Neumaier sum in the same order, so the result is bit-identical); omitted, it is summed here.
  * Neumaier-compensated sums, no allocation. Not defined for EIS (the caller passes null).
- * Cost O(n): one exponential a point, or a table look-up for values with two decimals (powerOf).
+ * Cost O(n): one exponential a point, or a table look-up for values with two decimals (powerMemo).
  * @throws RangeError when the lengths differ.
  * @example beamTrpDbm(new Float64Array(n).fill(10), grid.weightSr, true) // 10
  */
@@ -58,7 +45,20 @@ export function beamTrpDbm(
   let sum = 0;
   let comp = 0;
   for (let i = 0; i < n; i++) {
-    const x = weightSr[i] * powerOf(values[i]); // Eq. 1
+    // The memo look-up written out, not called: before the loop is optimized (one unit's first
+    // beams), a call a sample costs more than the exponential it saves.
+    const v = values[i];
+    const k = Math.round(v * 100);
+    const j = k + POWER_MEMO_OFFSET;
+    let e: number;
+    if (k / 100 === v && j >= 0 && j < powerMemo.length) {
+      e = powerMemo[j];
+      if (e === 0) {
+        e = Math.exp(v * LN10_OVER_10);
+        powerMemo[j] = e;
+      }
+    } else e = Math.exp(v * LN10_OVER_10);
+    const x = weightSr[i] * e; // Eq. 1
     const t = sum + x;
     comp += Math.abs(sum) >= Math.abs(x) ? sum - t + x : x - t + sum;
     sum = t;

@@ -3,7 +3,7 @@ import { createMeasurement } from '../measurement.js';
 import { buildSphereGrid, type GridBuild } from '../sphere/buildGrid.js';
 import { gridWarnings } from '../sphere/gridWarnings.js';
 import { mergeSamples } from '../sphere/mergeSamples.js';
-import { CONFLICT_DB, mergeByOrder, mergeConflicts, type MergeRule } from '../sphere/mergeConflicts.js';
+import { CONFLICT_DB, mergeByOrder, mergeConflicts, mergedGroups, type MergeRule } from '../sphere/mergeConflicts.js';
 import { resampleBeam } from '../sphere/resample.js';
 import type { BeamPattern, InputError, Measurement, SourceFile, Warning } from '../types.js';
 import { warning } from '../warnings.js';
@@ -63,21 +63,21 @@ function sameGrid(a: GridBuild, b: GridBuild): boolean {
 
 /**
  * Rows that literally repeat a direction (same θ and φ as written, not a pole or seam alias):
- * pairs (row, first row of its point), found once per angle set since they depend on angles only.
+ * pairs (row, first row of its point) in row order, found once per angle set since they depend
+ * on angles only; only the build's merged points are looked at (mergedGroups).
  */
 function literalDuplicatePairs(build: GridBuild, s: AngleSet): Int32Array {
-  const first = new Int32Array(build.grid.thetaDeg.length).fill(-1);
-  const pairs: number[] = [];
-  for (let i = 0; i < s.thetaDeg.length; i++) {
-    const p = build.pointOf[i];
-    const j = first[p];
-    if (j < 0) {
-      first[p] = i;
-      continue;
+  const { start, samples } = mergedGroups(build);
+  const found: [number, number][] = [];
+  for (let g = 0; g + 1 < start.length; g++) {
+    const j = samples[start[g]];
+    for (let q = start[g] + 1; q < start[g + 1]; q++) {
+      const i = samples[q];
+      if (s.thetaDeg[i] === s.thetaDeg[j] && s.phiDeg[i] === s.phiDeg[j]) found.push([i, j]);
     }
-    if (s.thetaDeg[i] === s.thetaDeg[j] && s.phiDeg[i] === s.phiDeg[j]) pairs.push(i, j);
   }
-  return Int32Array.from(pairs);
+  found.sort((x, y) => x[0] - y[0]);
+  return Int32Array.from(found.flat());
 }
 
 /** Count and largest value difference of one beam's literal duplicate rows (pairs in row order). */

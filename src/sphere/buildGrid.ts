@@ -68,7 +68,10 @@ export function buildSphereGrid(
       throw new RangeError(`buildSphereGrid: direction ${i} (θ ${t}, φ ${p}) is outside θ ∈ [0, 180]`);
     }
     const ts = Math.round(Math.min(180, Math.max(0, t)) * STEPS_PER_DEG);
-    let ps = Math.round((((p % 360) + 360) % 360) * STEPS_PER_DEG);
+    // φ in [0, 360) skips both remainders: (p + 360) − 360 is the second remainder's exact value
+    // there (Sterbenz), and a sum that rounds to 720 becomes ps = PHI_STEPS, wrapped to 0 below
+    // as the remainder's 0 would be.
+    let ps = Math.round((p >= 0 && p < 360 ? p + 360 - 360 : (((p % 360) + 360) % 360)) * STEPS_PER_DEG);
     if (ps >= PHI_STEPS) ps -= PHI_STEPS;
     if (ts === 0 || ts === POLE_S) ps = 0;
     const k = ts * PHI_STEPS + ps; // < 2^53: exact

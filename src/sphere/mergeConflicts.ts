@@ -28,7 +28,7 @@ export interface MergeConflicts {
 }
 
 /** The samples of a build's merged points, grouped by point (ascending), file order within a group. */
-interface MergedGroups {
+export interface MergedGroups {
   points: Int32Array;
   /** Samples of points[g] are samples[start[g] .. start[g + 1]). */
   start: Int32Array;
@@ -42,7 +42,7 @@ const groupsOf = new WeakMap<GridBuild, MergedGroups>();
  * build: every beam of a measurement shares its build, so the scan of a 64-beam file's 65,160
  * samples runs once instead of once per beam, and no per-beam grid-sized arrays are made).
  */
-function mergedGroups(build: GridBuild): MergedGroups {
+export function mergedGroups(build: GridBuild): MergedGroups {
   let g = groupsOf.get(build);
   if (g !== undefined) return g;
   g = rawOrderKind(build) === 2 ? groupsOfSegments(sortedSegments(build)) : groupsOfPoints(build);

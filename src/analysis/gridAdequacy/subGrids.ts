@@ -25,32 +25,26 @@ export interface SubGrid {
  */
 export function subGrids(grid: SphereGrid): SubGrid[] {
   const n = grid.thetaDeg.length;
-  const rowPar = new Int8Array(n);
-  const colPar = new Int8Array(n); // −1: a pole point, in both column parities of its row parity
   const reg = grid.regular;
-  if (reg) {
-    for (let r = 0; r < reg.thetaRowsDeg.length; r++) {
-      const pole = reg.rowLength[r] === 1 && (reg.thetaRowsDeg[r] === 0 || reg.thetaRowsDeg[r] === 180);
-      for (let c = 0; c < reg.rowLength[r]; c++) {
-        const i = reg.rowStart[r] + c;
-        rowPar[i] = r % 2;
-        colPar[i] = pole ? -1 : c % 2;
-      }
-    }
-  }
-  // Members of the four sets in one pass (a pole point joins both column parities of its row
-  // parity), each list in canonical order, so each sub-grid's build needs no sort.
+  // Members of the four sets, each list in canonical order (so each sub-grid's build needs no
+  // sort): for a regular grid row by row (its rows hold consecutive points), a pole point in
+  // both column parities of its row parity.
   const members = [new Int32Array(n), new Int32Array(n), new Int32Array(n), new Int32Array(n)];
   const size = [0, 0, 0, 0];
-  for (let i = 0; i < n; i++) {
+  for (let k = 0; k < 4; k++) {
+    const list = members[k];
+    let count = 0;
     if (!reg) {
-      const k = i % 4;
-      members[k][size[k]++] = i;
-      continue;
+      for (let i = k; i < n; i += 4) list[count++] = i;
+    } else {
+      const a = k >> 1, b = k & 1;
+      for (let r = a; r < reg.thetaRowsDeg.length; r += 2) {
+        const start = reg.rowStart[r], len = reg.rowLength[r];
+        if (len === 1 && (reg.thetaRowsDeg[r] === 0 || reg.thetaRowsDeg[r] === 180)) list[count++] = start;
+        else for (let c = b; c < len; c += 2) list[count++] = start + c;
+      }
     }
-    const a = rowPar[i] << 1;
-    if (colPar[i] !== 1) members[a][size[a]++] = i;
-    if (colPar[i] !== 0) members[a + 1][size[a + 1]++] = i;
+    size[k] = count;
   }
   const out: SubGrid[] = [];
   for (let k = 0; k < 4; k++) {

@@ -20,6 +20,24 @@ describe('subGrids', () => {
     expect(subs.map((s) => s.grid.thetaDeg.length).sort()).toEqual([614, 614, 648, 648]);
     for (const s of subs) expectClose(s.grid.solidAngleSr, 4 * Math.PI, 1e-9, 'regular weights sum to 4π (zone areas)');
   });
+  it('each sub-grid point is its parent point (θ, φ) and the sets follow the row × column parity rule', () => {
+    // Oracle: the parity rule written point by point (row r and column c of each parent point,
+    // a pole point in both column parities of its row parity), sub-grid k = 2·(r mod 2) + (c mod 2).
+    const g = grid(15);
+    const reg = g.regular!;
+    const want: number[][] = [[], [], [], []];
+    for (let r = 0; r < reg.thetaRowsDeg.length; r++) {
+      for (let c = 0; c < reg.rowLength[r]; c++) {
+        const pole = reg.rowLength[r] === 1;
+        for (let k = 0; k < 4; k++) if (k >> 1 === r % 2 && (pole || (k & 1) === c % 2)) want[k].push(reg.rowStart[r] + c);
+      }
+    }
+    const subs = subGrids(g);
+    expect(subs.map((s) => Array.from(s.parentIndex))).toEqual(want);
+    for (const s of subs) {
+      s.parentIndex.forEach((p, j) => expect([s.grid.thetaDeg[j], s.grid.phiDeg[j]]).toEqual([g.thetaDeg[p], g.phiDeg[p]]));
+    }
+  });
   it('a scattered set is thinned into quarters with their own Voronoi weights', () => {
     const f = fibonacciGrid(800);
     const subs = subGrids(buildSphereGrid(f.thetaDeg, f.phiDeg).grid);
