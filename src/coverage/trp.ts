@@ -47,8 +47,11 @@ export function beamTrpDbm(
   for (let i = 0; i < n; i++) {
     // The memo look-up written out, not called: before the loop is optimized (one unit's first
     // beams), a call a sample costs more than the exponential it saves.
+    // ⌊100·v + 0.5⌋, not Math.round: it never gives −0 (Math.round does for 100·v in [−0.5, 0)),
+    // which makes the optimized loop bail out; a k off by one beside a half only misses the memo
+    // (k/100 ≠ v), never changes a term.
     const v = values[i];
-    const k = Math.round(v * 100);
+    const k = Math.floor(v * 100 + 0.5);
     const j = k + POWER_MEMO_OFFSET;
     let e: number;
     if (k / 100 === v && j >= 0 && j < powerMemo.length) {

@@ -79,7 +79,7 @@ function sortedSteps(values: ArrayLike<number>, weightSr: ArrayLike<number>, kee
 
 /**
  * Distinct values and each value's step without a sort, for patterns written with at most two
- * decimals (v = k/100 bit for bit, the usual export; a total scan pattern of a 64-beam 1° unit
+ * decimals (v = k/100 bit for bit, k = ⌊100·v + 0.5⌋, the usual export; a total scan pattern of a 64-beam 1° unit
  * has 64,442 values but about a thousand distinct ones): the values on that lattice are counted
  * by k, the few others (merged pole or seam samples) sorted apart and merged in by value. The
  * same distinct values in the same order as sorting all of them, so the same CDF bit for bit.
@@ -97,7 +97,8 @@ function latticeSteps(values: ArrayLike<number>): { distinct: Float64Array; step
   for (let i = 0; i < n; i++) {
     const v = values[i];
     if (!(v - v === 0) || (v === 0 && 1 / v < 0)) return null;
-    const k = Math.round(v * 100);
+    // ⌊100·v + 0.5⌋ (never −0, which makes an optimized loop bail out) is k for every v = k/100.
+    const k = Math.floor(v * 100 + 0.5);
     if (k / 100 !== v) { off++; continue; }
     if (k < kMin) kMin = k;
     if (k > kMax) kMax = k;
@@ -111,7 +112,7 @@ function latticeSteps(values: ArrayLike<number>): { distinct: Float64Array; step
   let o = 0;
   for (let i = 0; i < n; i++) {
     const v = values[i];
-    const k = Math.round(v * 100);
+    const k = Math.floor(v * 100 + 0.5);
     if (k / 100 === v) slot[k - kMin] = 0;
     else others[o++] = v;
   }
@@ -137,7 +138,7 @@ function latticeSteps(values: ArrayLike<number>): { distinct: Float64Array; step
   const stepOf = new Int32Array(n);
   for (let i = 0; i < n; i++) {
     const v = values[i];
-    const k = Math.round(v * 100);
+    const k = Math.floor(v * 100 + 0.5);
     if (k / 100 === v) { stepOf[i] = slot[k - kMin]; continue; }
     let lo = 0, hi = oc - 1;
     while (lo < hi) { const mid = (lo + hi) >> 1; if (others[mid] < v) lo = mid + 1; else hi = mid; }
