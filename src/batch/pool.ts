@@ -18,7 +18,7 @@
  * with a task of its own and cannot answer at once.
  */
 import { Worker } from 'node:worker_threads';
-import { availableParallelism, cpus } from 'node:os';
+import { availableParallelism, cpus, loadavg } from 'node:os';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { safeRunTask, type TaskInput, type TaskOutput } from './unitTask.js';
@@ -76,14 +76,29 @@ const PDF_TASK_MIN_MS = 130;
 /** The shortest window (wall ms, on every core) over which the machine's idle CPU is trusted. */
 const IDLE_WINDOW_MS = 100;
 
+/** The machine's recent load, read at the decision before any task (1-minute load average, run queue). */
+export interface MachineLoad {
+  /** Idle cores since the run began (cpuIdleCores), or null when too little time passed to tell. */
+  idleCores: number | null;
+  /** The 1-minute load average (os.loadavg()[0]). */
+  loadAvg1: number;
+  cores: number;
+}
+
 /**
  * 'auto' before any task has run: start the workers at once when every task writes a PDF, the
  * tasks are enough that even at PDF_TASK_MIN_MS their work pays the start-up (workersPayOff), and
- * the machine had a core to spare since the run began (`idleCores`; null: too short a window to
- * tell, so the decision waits for the main thread's first tasks).
+ * the machine has a core to spare by two readings: the idle CPU since the run began (the planning,
+ * a fraction of a second: alone it can catch a gap in a neighbour's bursts) and the 1-minute load
+ * average at most cores − 0.5 (a minute of history; it lags, but here a lag only defers the
+ * decision to the main thread's first tasks, where workersPayOff and coreToSpare decide again).
+ * Why both: at load 5–8 on 2 cores (neighbours' test suites, in bursts) a 100-unit build whose
+ * worker started on the planning's reading alone took 1.20 of --jobs 1 (bench build100, 2
+ * repetitions, 12.3 s and 13.3 s of CPU); a load average of 5–8 reads as no spare core here.
  */
-export function workersPayOffAtStart(tasks: number, pdf: boolean, startMs: number, idleCores: number | null): boolean {
-  return pdf && idleCores !== null && coreToSpare(idleCores) && workersPayOff(tasks, PDF_TASK_MIN_MS, startMs);
+export function workersPayOffAtStart(tasks: number, pdf: boolean, startMs: number, load: MachineLoad): boolean {
+  const spare = load.idleCores !== null && coreToSpare(load.idleCores) && load.loadAvg1 <= load.cores - 0.5;
+  return pdf && spare && workersPayOff(tasks, PDF_TASK_MIN_MS, startMs);
 }
 
 /**
@@ -175,7 +190,7 @@ export class TaskPool {
       if (auto && this.workers.length === 0 && !q.stopped() && mainDone >= 3 &&
         workersPayOff(q.left(), fastestMs, startMs) && coreToSpare(cpuIdleCores(cpuAtStart, cpuTimes(), cpus().length))) startWorkers();
     };
-    if (!auto || workersPayOffAtStart(tasks.length, pdf, startMs, this.idleSinceCreate())) startWorkers();
+    if (!auto || workersPayOffAtStart(tasks.length, pdf, startMs, this.machineLoad())) startWorkers();
     try {
       const main = await Promise.allSettled([mainLane(q, afterMainTask)]);
       // The main lane is done taking tasks, so no worker starts after this point.
@@ -188,12 +203,12 @@ export class TaskPool {
     return q.outputs;
   }
 
-  /** Idle cores since the pool was made, or null when too little time passed to tell (IDLE_WINDOW_MS). */
-  private idleSinceCreate(): number | null {
+  /** Idle cores since the pool was made (null when too little time passed to tell, IDLE_WINDOW_MS) and the load average. */
+  private machineLoad(): MachineLoad {
     const now = cpuTimes();
     const cores = cpus().length;
-    if (now.totalMs - this.cpuAtCreate.totalMs < IDLE_WINDOW_MS * cores) return null;
-    return cpuIdleCores(this.cpuAtCreate, now, cores);
+    const enough = now.totalMs - this.cpuAtCreate.totalMs >= IDLE_WINDOW_MS * cores;
+    return { idleCores: enough ? cpuIdleCores(this.cpuAtCreate, now, cores) : null, loadAvg1: loadavg()[0], cores };
   }
 
   private async runInProcess(tasks: TaskInput[], hooks: PoolHooks): Promise<TaskOutput[]> {

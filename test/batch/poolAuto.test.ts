@@ -16,16 +16,20 @@ describe("--jobs 'auto'", () => {
   });
 
   it('starts workers before any task only for a long build with PDFs on a machine with a core to spare', () => {
+    const quiet = { idleCores: 1, loadAvg1: 1.2, cores: 2 };
     // Floor of 130 ms a PDF: 43 × 130 = 5590 ms > 3 × 1850 ms; 42 × 130 = 5460 ms is not.
-    expect(workersPayOffAtStart(43, true, 1850, 1)).toBe(true);
-    expect(workersPayOffAtStart(42, true, 1850, 1)).toBe(false);
+    expect(workersPayOffAtStart(43, true, 1850, quiet)).toBe(true);
+    expect(workersPayOffAtStart(42, true, 1850, quiet)).toBe(false);
     // The 20-unit bench build with PDFs: a worker costs about 15 warm reports, so no worker up front.
-    expect(workersPayOffAtStart(20, true, 1850, 1)).toBe(false);
+    expect(workersPayOffAtStart(20, true, 1850, quiet)).toBe(false);
     // Without PDFs nothing is known of a task's cost before one has run: the decision waits.
-    expect(workersPayOffAtStart(1000, false, 550, 1)).toBe(false);
+    expect(workersPayOffAtStart(1000, false, 550, quiet)).toBe(false);
     // Every core busy since the run began, or too short a window to tell: no worker up front.
-    expect(workersPayOffAtStart(100, true, 1850, 0.2)).toBe(false);
-    expect(workersPayOffAtStart(100, true, 1850, null)).toBe(false);
+    expect(workersPayOffAtStart(100, true, 1850, { ...quiet, idleCores: 0.2 })).toBe(false);
+    expect(workersPayOffAtStart(100, true, 1850, { ...quiet, idleCores: null })).toBe(false);
+    // Idle during the planning but busy over the last minute (a gap in a neighbour's bursts): wait.
+    expect(workersPayOffAtStart(100, true, 1850, { ...quiet, loadAvg1: 1.6 })).toBe(false);
+    expect(workersPayOffAtStart(100, true, 1850, { ...quiet, loadAvg1: 1.5 })).toBe(true);
   });
 
   it('starts no worker while other processes keep every core busy', () => {
