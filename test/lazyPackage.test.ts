@@ -55,5 +55,8 @@ describe('lazyPackage (issue 18: packages load when used)', () => {
       if (!loadLimitSet('3gpp-fr2-pc3-n257').limitSet) throw new Error('profile not loaded');
     `);
     for (const p of ['yaml', 'zod', 'd3-geo-voronoi']) expect(used.has(p), p).toBe(true);
+    // The insight lane's worker (src/batch/insightWorker.ts) loads no package at all.
+    const lane = run(`await import(${JSON.stringify(path.join(ROOT, 'dist', 'batch', 'insightWorker.js'))});`);
+    expect([...lane]).toEqual([]);
   });
 });

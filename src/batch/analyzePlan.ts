@@ -127,7 +127,9 @@ export function taskFor(plan: AnalyzePlan, key: string, files: string[], referen
     ...(opts.coreOnly ? { coreOnly: true } : {}),
     uncertainty: plan.uncertainty,
     eisPolarizations: opts.eisPolarizations ?? 'each',
+    // One rule for both: a core the groups leave idle serves the read and then the insight lane.
     readThreads: readThreads(opts.jobs ?? 'auto', plan.groups.size),
+    spareThreads: readThreads(opts.jobs ?? 'auto', plan.groups.size) - 1,
   };
 }
 

@@ -127,13 +127,14 @@ export function componentSummary(c: Measurement, settings: MetricSettings): { su
 }
 
 /**
- * Measure one plan. `measure` is the batch's single-measurement analysis (unitTask.measureUnit),
- * passed in so this module does not depend on the task module.
+ * Measure one plan. `measure` is the batch's single-measurement analysis (unitTask's, which may
+ * wait for the insight lane), passed in so this module does not depend on the task module; the
+ * measurements are measured one after another, in plan order.
  */
-export function measurePlan(p: PolarizationPlan, settings: MetricSettings,
-  measure: (m: Measurement) => { result: UnitResult; tsp: TotalScanPattern }): MeasuredUnit {
+export async function measurePlan(p: PolarizationPlan, settings: MetricSettings,
+  measure: (m: Measurement) => Promise<{ result: UnitResult; tsp: TotalScanPattern }>): Promise<MeasuredUnit> {
   if (p.rule !== 'each') {
-    const out = measure(p.main);
+    const out = await measure(p.main);
     if (p.rule === null) return { m: p.main, ...out };
     const parts = p.components.map((c) => componentSummary(c, settings));
     out.result.polarizations = parts.map((x) => x.summary);
@@ -141,7 +142,8 @@ export function measurePlan(p: PolarizationPlan, settings: MetricSettings,
     out.result.limitingPolarization = null;
     return { m: p.main, ...out, componentTsps: parts.map((x) => x.tsp), components: p.components };
   }
-  const each = p.components.map((c) => ({ m: c, ...measure(c) }));
+  const each: MeasuredUnit[] = [];
+  for (const c of p.components) each.push({ m: c, ...(await measure(c)) });
   return mergeEachPolarization(each);
 }
 

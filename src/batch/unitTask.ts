@@ -12,9 +12,8 @@ import { assembleMeasurements } from '../io/assembleMeasurements.js';
 import { computeMetrics } from '../coverage/computeMetrics.js';
 import { judge } from '../limits/judge.js';
 import { frequencyInRange } from '../limits/frequencyInRange.js';
-import { findHoles } from '../analysis/findHoles.js';
-import { beamRemoval } from '../analysis/beamRemoval.js';
-import { greedySubset } from '../analysis/greedySubset.js';
+import { computeInsights, type InsightRequest, type Insights } from './insights.js';
+import { InsightLane } from './insightLane.js';
 import { referenceDeltas } from '../analysis/referenceDeltas.js';
 import { tspDifference } from '../analysis/tspDifference.js';
 import { crossUnitExtras } from './crossUnit.js';
@@ -69,6 +68,11 @@ export interface TaskInput {
   eisPolarizations?: EisPolarizationView;
   /** Pack each unit's grid and beams for viewer.html. */
   viewer?: boolean;
+  /**
+   * Threads this task may use beside its own (analyzePlan.ts: readThreads − 1); ≥ 1 lets a large
+   * unit's optional analysis run on a second thread (insightLane.ts). Absent: none.
+   */
+  spareThreads?: number;
 }
 
 /** A reference unit's total scan pattern on its grid, with its result (plain data, cloneable). */
@@ -157,47 +161,81 @@ function verdictOf(m: Measurement, computed: ReturnType<typeof computeMetrics>, 
   return { judged, confidence, warnings };
 }
 
-/** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis. */
-export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {
+/** What measureUnit computes before the optional analysis: metrics, verdict, grid summary and adequacy. */
+interface MeasuredCore {
+  computed: ReturnType<typeof computeMetrics>;
+  grid: GridSummary;
+  verdict: ReturnType<typeof verdictOf>;
+  gridAdequacy: UnitResult['gridAdequacy'];
+}
+
+function measureCore(m: Measurement, input: MeasureOptions): MeasuredCore {
   const computed = computeMetrics(m, {
     percentilesPct: input.percentilesPct,
     thresholds: input.thresholds,
     relativeDb: input.relativeDb,
     levelLimit: percentileLimit(input.limitSet),
   });
-  const { tsp, metrics } = computed;
   const grid = gridSummary(m);
+  const verdict = verdictOf(m, computed, grid, input);
+  const adequacy = input.coreOnly !== true ? gridAdequacy(m.grid, computed.tsp.values, m.quantity, input.percentilesPct, input.thresholds, GRID_ADEQUACY_CALIBRATION, computed.cdf) : null;
+  return { computed, grid, verdict, gridAdequacy: adequacy };
+}
+
+/** The optional analysis' inputs: the level and threshold the limit set implies (limits/impliedChoices.ts); null with --core-only. */
+function insightRequest(m: Measurement, input: MeasureOptions): InsightRequest | null {
+  if (input.coreOnly === true) return null;
+  return {
+    grid: m.grid, beams: m.beams.map((b) => b.values), ids: m.beams.map((b) => b.id), quantity: m.quantity,
+    levelPct: analysisLevel(input.limitSet), threshold: analysisThreshold(input.limitSet, input.thresholds)?.value ?? null,
+  };
+}
+
+/** The unit result, in results.json's key order. */
+function unitResult(m: Measurement, input: MeasureOptions, core: MeasuredCore, insights: Insights | null): UnitResult {
+  const { judged, confidence, warnings } = core.verdict;
   const ls = input.limitSet;
-  const { judged, confidence, warnings } = verdictOf(m, computed, grid, input);
-  const beamValues = m.beams.map((b) => b.values);
-  const beamIds = m.beams.map((b) => b.id);
-  const level = analysisLevel(ls);
-  const threshold = analysisThreshold(ls, input.thresholds);
-  const hT = threshold?.value ?? null;
-  const extras = input.coreOnly !== true;
-  const removal: (BeamRemoval | undefined)[] = !extras ? beamValues.map(() => undefined) : beamValues.length > 1
-    ? beamRemoval(m.grid, beamValues, m.quantity, level, hT)
-    : beamValues.map(() => ({ percentileLossDb: null, coverageLoss: null }));
-  const result: UnitResult = {
+  const removal: (BeamRemoval | undefined)[] = insights ? insights.removal : m.beams.map(() => undefined);
+  return {
     unit: m.unit,
     frequencyHz: m.frequencyHz,
     quantity: m.quantity,
     valueUnit: m.valueUnit,
-    ...unitResultMetrics(metrics, removal),
+    ...unitResultMetrics(core.computed.metrics, removal),
     checks: judged.checks,
     verdict: judged.verdict,
     worstCheck: judged.worstCheck,
     warnings,
-    grid,
+    grid: core.grid,
     sources: m.sources,
     limitSet: ls ? { name: ls.name, source: ls.source } : null,
-    analysisThreshold: threshold,
-    holes: hT === null || !extras ? [] : findHoles(m.grid, tsp, beamValues, beamIds, hT, m.quantity),
-    subset: extras ? greedySubset(m.grid, beamValues, beamIds, m.quantity, level, undefined, tsp) : null,
-    gridAdequacy: extras ? gridAdequacy(m.grid, tsp.values, m.quantity, input.percentilesPct, input.thresholds, GRID_ADEQUACY_CALIBRATION, computed.cdf) : null,
+    analysisThreshold: analysisThreshold(ls, input.thresholds),
+    holes: insights ? insights.holes : [],
+    subset: insights ? insights.subset : null,
+    gridAdequacy: core.gridAdequacy,
     ...(confidence ? { confidence } : {}),
   };
-  return { result, tsp };
+}
+
+/** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis, on this thread. */
+export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {
+  const request = insightRequest(m, input);
+  const core = measureCore(m, input);
+  const insights = request ? computeInsights(request, core.computed.tsp) : null;
+  return { result: unitResult(m, input, core, insights), tsp: core.computed.tsp };
+}
+
+/**
+ * measureUnit with the optional analysis on the insight lane (when there is one and the unit is
+ * large enough) while this thread measures the rest; the same result (computeInsights either
+ * way), computed here when the lane fails.
+ */
+async function measureUnitOnLanes(m: Measurement, input: MeasureOptions, lane: InsightLane | null): Promise<{ result: UnitResult; tsp: TotalScanPattern }> {
+  const request = insightRequest(m, input);
+  const sent = lane && request && InsightLane.worthIt(request) ? lane.request(request) : null;
+  const core = measureCore(m, input);
+  const insights = request ? ((sent ? await sent : null) ?? computeInsights(request, core.computed.tsp)) : null;
+  return { result: unitResult(m, input, core, insights), tsp: core.computed.tsp };
 }
 
 /** The report outputs of one measured unit: PDF, summary thumbnail and CDF curve (none with --no-pdf). */
@@ -312,6 +350,16 @@ async function unitOutput(mu: MeasuredUnit, input: TaskInput, read: GroupRead, j
 
 /** Read, assemble and analyze every measurement of one group of files (readGroup says which units fail). */
 export async function runTask(input: TaskInput): Promise<TaskOutput> {
+  // Started before the read, so that the lane's start-up overlaps it.
+  const lane = input.coreOnly ? null : InsightLane.open(input.spareThreads, input.files);
+  try {
+    return await analyzeGroup(input, lane);
+  } finally {
+    lane?.close();
+  }
+}
+
+async function analyzeGroup(input: TaskInput, lane: InsightLane | null): Promise<TaskOutput> {
   const read = await readGroup(input);
   const { usable, errors } = read;
   const assembled = assembleMeasurements(usable, read.sources, { consumeRaw: true, mergeRule: input.job?.mergeRule });
@@ -320,9 +368,12 @@ export async function runTask(input: TaskInput): Promise<TaskOutput> {
   const planned = planPolarizations(assembled.measurements, input.eisPolarizations ?? 'each');
   errors.push(...planned.errors);
   const own = (m: Measurement): Measurement => withFileWarnings(m, read);
-  const measured = planned.plans.map((p) => measurePlan(
-    { ...p, main: own(p.main), components: p.rule === 'each' ? p.components.map(own) : p.components },
-    input, (m) => measureUnit(m, input)));
+  const measured: MeasuredUnit[] = [];
+  for (const p of planned.plans) {
+    measured.push(await measurePlan(
+      { ...p, main: own(p.main), components: p.rule === 'each' ? p.components.map(own) : p.components },
+      input, (m) => measureUnitOnLanes(m, input, lane)));
+  }
   // Extras across this group's own frequencies and against the reference, before the PDFs are drawn.
   // Checks joining two measurements of a unit (transmit + receive, two bands) once all are measured.
   const jointMaps = applyJointChecks(measured, input.limitSet);

@@ -1,0 +1,132 @@
+/**
+ * The insight lane: a second thread for one large unit's optional analysis (beam removal, holes,
+ * smallest subset: insights.ts) while the main thread computes the metrics, the grid adequacy
+ * and the verdict. A run analyzes one group on the main thread and leaves the other cores idle
+ * whenever the pool starts no worker (one group, or 'auto' before its workers pay off); the
+ * optional analysis of a 64-beam 1° unit is about as long as the rest of its measuring.
+ *
+ * The worker is started before the group's files are read (its start-up overlaps the read) and
+ * only when the task may use a spare thread (TaskInput.spareThreads, from the plan: the rule of
+ * analyzePlan.ts readThreads, a core that the groups leave idle) and the files are large (LANE_MIN_BYTES); after assembly a measurement
+ * smaller than LANE_MIN_WORK is analyzed on the main thread anyway. The beams travel in shared
+ * memory (one copy, or none when they already live there); the answer is plain data.
+ * Same results by construction (one function, insights.ts, on the same arrays); any failure of
+ * the worker (an exception, a thread that dies or cannot start) gives `null` and the caller
+ * computes on the main thread.
+ */
+import { Worker } from 'node:worker_threads';
+import { existsSync, statSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import type { InsightRequest, Insights } from './insights.js';
+
+/**
+ * Files of a group below this size (bytes) never start the lane. The lane is decided before the
+ * read, from the file sizes; a unit of LANE_MIN_WORK samples takes about 7 bytes a sample in a
+ * matrix export and 15 or more in a long one, so smaller files cannot reach it.
+ */
+export const LANE_MIN_BYTES = 4 * 2 ** 20;
+
+/**
+ * Beams × points below which a measurement's optional analysis stays on the main thread. The
+ * analysis costs about 25 ns of CPU a sample (64 beams × 64,442 points: ~100 ms), the lane a
+ * fixed ~1 ms a request plus the copy to shared memory (~3 ns a sample) on the main thread and a
+ * worker start-up (~30 ms of CPU, overlapping the read) on the other core: at a million samples
+ * (~25 ms of analysis) the main thread already gains several times what the lane costs it.
+ */
+export const LANE_MIN_WORK = 1_000_000;
+
+/** The compiled worker beside this module, or null when running from .ts sources (vitest). */
+function workerPath(): string | null {
+  if (!import.meta.url.endsWith('.js')) return null;
+  const p = fileURLToPath(new URL('./insightWorker.js', import.meta.url));
+  return existsSync(p) ? p : null;
+}
+
+/** Total size of the files in bytes (unreadable ones count 0: the read reports them). */
+function filesBytes(files: string[]): number {
+  let total = 0;
+  for (const f of files) {
+    try { total += statSync(f).size; } catch { /* the read names the problem */ }
+  }
+  return total;
+}
+
+interface Reply { id: number; ok: boolean; insights?: Insights; message?: string }
+
+export class InsightLane {
+  private next = 0;
+  private readonly pending = new Map<number, (r: Insights | null) => void>();
+  private dead = false;
+
+  private constructor(private readonly worker: Worker) {
+    worker.unref(); // never keeps the process alive
+    worker.on('message', (r: Reply) => this.settle(r.id, r.ok && r.insights ? r.insights : null));
+    const fail = () => {
+      this.dead = true;
+      for (const id of [...this.pending.keys()]) this.settle(id, null);
+    };
+    worker.on('error', fail);
+    worker.on('exit', fail);
+  }
+
+  /** A lane for a task with a spare thread and large files, else null. */
+  static open(spareThreads: number | undefined, files: string[]): InsightLane | null {
+    if (!(spareThreads !== undefined && spareThreads >= 1)) return null;
+    const script = workerPath();
+    if (script === null || filesBytes(files) < LANE_MIN_BYTES) return null;
+    try {
+      return new InsightLane(new Worker(script));
+    } catch {
+      return null;
+    }
+  }
+
+  /** Whether a measurement of this size is worth sending. */
+  static worthIt(q: Pick<InsightRequest, 'beams' | 'grid'>): boolean {
+    return q.beams.length * q.grid.weightSr.length >= LANE_MIN_WORK;
+  }
+
+  /** The insights computed on the lane's thread; null when the lane failed (compute them here). */
+  request(q: InsightRequest): Promise<Insights | null> {
+    if (this.dead) return Promise.resolve(null);
+    const id = this.next++;
+    return new Promise((resolve) => {
+      this.pending.set(id, resolve);
+      try {
+        this.worker.postMessage({ id, request: { ...q, beams: sharedBeams(q.beams) } });
+      } catch {
+        this.settle(id, null);
+      }
+    });
+  }
+
+  /** Stop the thread (the task is done with it). */
+  close(): void {
+    this.dead = true;
+    void this.worker.terminate();
+  }
+
+  private settle(id: number, r: Insights | null): void {
+    const resolve = this.pending.get(id);
+    if (!resolve) return;
+    this.pending.delete(id);
+    resolve(r);
+  }
+}
+
+/**
+ * The beams as views on shared memory, so posting them copies nothing: as they are when they
+ * already live there, else copied once into one SharedArrayBuffer (values bit for bit).
+ */
+function sharedBeams(beams: Float64Array[]): Float64Array[] {
+  if (beams.every((b) => b.buffer instanceof SharedArrayBuffer)) return beams;
+  const total = beams.reduce((s, b) => s + b.length, 0);
+  const sab = new SharedArrayBuffer(total * Float64Array.BYTES_PER_ELEMENT);
+  let offset = 0;
+  return beams.map((b) => {
+    const view = new Float64Array(sab, offset * Float64Array.BYTES_PER_ELEMENT, b.length);
+    view.set(b);
+    offset += b.length;
+    return view;
+  });
+}
