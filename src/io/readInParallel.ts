@@ -11,17 +11,19 @@ import type { SampleLimit } from './sampleLimit.js';
 import type { TokenContext } from './textRow.js';
 
 /**
- * Smallest data part (bytes) worth a second thread. A worker costs about 30–50 ms of CPU to
- * start (its own isolate and the reader's modules) and reads the file's first group again;
- * the fast path reads about 8 MB in that time on the 2-core bench machine, so below this size
- * the split does not pay.
+ * Smallest data part (bytes) worth a second thread. The worker costs about 0.1 s of CPU before
+ * it reads at full speed (start-up 30–40 ms, re-reading the first beam 30–40 ms, its own JIT
+ * warm-up), measured on the 2-core bench machine, where the fast path reads about 7 ms/MB: a
+ * two-thread read gains about 3.5 ms/MB − 70 ms of wall time, so below ~20 MB it loses, and
+ * 32 MiB keeps a margin (the 64-beam 1° export, 64 MB, is read on two threads).
  */
-export const PARALLEL_MIN_BYTES = 8 << 20;
+export const PARALLEL_MIN_BYTES = 32 << 20;
 
 /**
- * Share of the data rows the main thread reads itself. It also hashes the whole file and merges
- * the worker's groups, while the worker starts and re-reads the first group: measured on the
- * 64-beam bench export.
+ * Share of the data bytes the main thread reads itself. Besides its part it hashes the whole
+ * file (~50 ms for 64 MB) and merges (~10 ms); the worker starts (~35 ms) and re-reads the first
+ * beam (~35 ms), so the halves are about even. On the loaded bench machine the main thread
+ * waited 30–80 ms for the worker at this share; not tuned on a quiet machine.
  */
 export const MAIN_SHARE = 0.5;
 
