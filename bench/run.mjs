@@ -301,6 +301,11 @@ if (wants(o, 'build100')) {
 
 // ---- the pandas peer, alternately with spherecov on the same file ----
 let comparison = null;
+// A full run without --peer still lists the peer rows with their targets, as not run.
+if (o.only === null && !o.peer) {
+  rows.push(row('peer', 'analyze --no-pdf / peer (paired)', null, { target: { op: '<=', limit: 0.45 }, digits: 3, note: 'not run: add --peer' }));
+  rows.push(row('peer', 'analyze --no-pdf --core-only (no holes, removal, subset) / peer (paired)', null, { target: { op: '<=', limit: 0.35 }, digits: 3, note: 'not run: add --peer' }));
+}
 if (wants(o, 'peer')) {
   const pyOk = existsSync(PEER) && spawnSync('/usr/bin/python3', ['-c', 'import pandas'], { stdio: 'ignore' }).status === 0;
   if (!pyOk) rows.push(row('peer', 'cli / pandas peer', null, { note: 'not available (/usr/bin/python3 with pandas, or peer.py, missing)' }));
