@@ -20,12 +20,13 @@ import type { TokenContext } from './textRow.js';
 export const PARALLEL_MIN_BYTES = 32 << 20;
 
 /**
- * Share of the data bytes the main thread reads itself. Besides its part it hashes the whole
- * file (~50 ms for 64 MB) and merges (~10 ms); the worker starts (~35 ms) and re-reads the first
- * beam (~35 ms), so the halves are about even. On the loaded bench machine the main thread
- * waited 30–80 ms for the worker at this share; not tuned on a quiet machine.
+ * Share of the data bytes the main thread reads itself. Per-thread CPU of a two-thread read of
+ * the 64-beam export at an even split (load 6–7 on 2 cores, /proc thread times): main thread
+ * 200–230 ms for its half, 20 ms hashing the rest, ≤ 10 ms merging; worker 300–345 ms (start-up
+ * ~35, re-reading the first beam ~35, its half, its own JIT warm-up). So the main thread takes a
+ * little more than half; not tuned on a quiet machine.
  */
-export const MAIN_SHARE = 0.5;
+export const MAIN_SHARE = 0.55;
 
 /** Bytes searched for the newline after the split point; a longer line keeps one thread. */
 const SPLIT_SEARCH = 1 << 16;
