@@ -39,6 +39,8 @@ export interface RangeJob {
   split: number;
   maxSamples: number;
   chunkBytes?: number;
+  /** Values in shared memory, as the main thread's sink keeps them (SinkContext.sharedValues). */
+  sharedValues: boolean;
 }
 
 /** The worker's answer: its groups (lines counted from 0 at the split), or why it gave up. */
@@ -77,7 +79,7 @@ export async function readRange(job: RangeJob): Promise<RangeReply> {
 
     const errors = new ErrorList(job.file);
     const dropouts = new DropoutLog();
-    const sink = new LongSink(job.plan, job.file, errors, keys, dropouts);
+    const sink = new LongSink(job.plan, job.file, errors, keys, dropouts, job.sharedValues);
     sink.followTemplate(template);
     const limited = new SampleLimit(sink, 1, job.maxSamples, job.file, errors);
     const t = tokenContext(job, keys, errors, limited);

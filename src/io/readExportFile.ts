@@ -95,7 +95,7 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
       const errors = new ErrorList(file);
       const keys = new KeyTable(plan.fields.keyCount);
       const dropouts = new DropoutLog();
-      const sink = layout.newSink({ file, errors, keys, firstDataLine: sniff.headerLine + 1, dropouts });
+      const sink = layout.newSink({ file, errors, keys, firstDataLine: sniff.headerLine + 1, dropouts, sharedValues: (ctx.readThreads ?? 1) > 1 });
       const limited = new SampleLimit(sink, layout.samplesPerRow, maxSamples, file, errors);
       const t: TokenContext = {
         file, fields: plan.fields, delimiter: sniff.delimiter, decimalComma: sniff.decimalComma, errors, keys, sink: limited,

@@ -107,6 +107,7 @@ export async function readFast(r: FastRead): Promise<'done' | 'quote'> {
   const worker = startWorker(script, {
     path: r.absPath, file: r.file, plan: r.plan as LongPlan, delimiter: r.t.delimiter, decimalComma: r.t.decimalComma,
     dropoutTokens: r.dropoutTokens, dataStart: r.dataStart, firstLine: r.startLine, split, maxSamples: r.maxSamples, chunkBytes: r.chunkBytes,
+    sharedValues: r.threads > 1,
   });
   try {
     const first = await fastTokenize(r.fh, { readFrom: 0, parseFrom: r.dataStart, end: split }, r.startLine, r.t, r.hash, r.chunkBytes);

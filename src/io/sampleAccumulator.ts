@@ -12,10 +12,16 @@ export class SampleAccumulator {
   phiDeg: Float64Array | null = null;
   private views = new Map<number, [Float64Array, Float64Array]>();
 
+  /**
+   * @param shared keep the values in shared memory (SharedArrayBuffer), so another thread (the
+   *   insight lane, src/batch/insightLane.ts) reads the unit's beams without a copy; the angles stay
+   *   ordinary (one copy per file, sent with the grid).
+   */
   constructor(
     readonly template: SampleAccumulator | null,
     readonly firstLine: number,
     state?: AccumulatorState,
+    readonly shared = false,
   ) {
     if (state !== undefined) {
       // Continued from another thread's accumulator (readInParallel.ts): its arrays as they are.
@@ -27,7 +33,7 @@ export class SampleAccumulator {
     }
     // A follower usually has the template's length: start there, so it neither grows nor
     // keeps slack (growth would leave garbage and up to 2× capacity per beam).
-    this.values = new Float64Array(template === null ? 1024 : Math.max(1024, template.n));
+    this.values = floats(template === null ? 1024 : Math.max(1024, template.n), shared);
     if (template === null) {
       this.thetaDeg = new Float64Array(1024);
       this.phiDeg = new Float64Array(1024);
@@ -59,12 +65,12 @@ export class SampleAccumulator {
 
   private grow(): void {
     const cap = this.values.length * 2;
-    const g = (a: Float64Array): Float64Array<ArrayBuffer> => {
-      const b = new Float64Array(cap);
+    const g = (a: Float64Array, shared = false): Float64Array => {
+      const b = floats(cap, shared);
       b.set(a);
       return b;
     };
-    this.values = g(this.values);
+    this.values = g(this.values, this.shared);
     if (this.thetaDeg) {
       this.thetaDeg = g(this.thetaDeg);
       this.phiDeg = g(this.phiDeg!);
@@ -91,7 +97,7 @@ export class SampleAccumulator {
 
   /** Final arrays (trimmed; shared angles for template followers). */
   finish(): { thetaDeg: Float64Array; phiDeg: Float64Array; values: Float64Array } {
-    const values = trim(this.values, this.n);
+    const values = trim(this.values, this.n, this.shared);
     if (this.thetaDeg === null) {
       const [thetaDeg, phiDeg] = (this.template as SampleAccumulator).angleView(this.n);
       return { thetaDeg, phiDeg, values };
@@ -112,7 +118,16 @@ export interface AccumulatorState {
   phiDeg: Float64Array | null;
 }
 
-/** View when little capacity is wasted, else a compact copy. */
-function trim(a: Float64Array, n: number): Float64Array {
-  return a.length <= n * 1.25 ? a.subarray(0, n) : a.slice(0, n);
+/** View when little capacity is wasted, else a compact copy (in shared memory when `shared`). */
+function trim(a: Float64Array, n: number, shared = false): Float64Array {
+  if (a.length <= n * 1.25) return a.subarray(0, n);
+  if (!shared) return a.slice(0, n);
+  const b = floats(n, shared);
+  b.set(a.subarray(0, n));
+  return b;
+}
+
+/** A zeroed Float64Array of n elements, in shared memory when `shared`. */
+function floats(n: number, shared: boolean): Float64Array {
+  return shared ? new Float64Array(new SharedArrayBuffer(n * Float64Array.BYTES_PER_ELEMENT)) : new Float64Array(n);
 }

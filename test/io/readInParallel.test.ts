@@ -80,6 +80,21 @@ describe('reading one file on two threads (issue 18)', () => {
     expect(await same(f, 0.13)).toBe('fallback: the first group does not end before the split');
   });
 
+  it('a read that may use two threads keeps the values in shared memory (the insight lane reads them without a copy); one thread does not', async () => {
+    const beams = Array.from({ length: 6 }, (_v, i) => [String(i)]);
+    const f = write('b6-shared.csv', `theta_deg,phi_deg,beam,eirp_dbm\n${longRows(beams, 15).join('\n')}\n`);
+    const one = await read(f, { inputRoot: dir, readThreads: 1 });
+    expect(one.beams.some((b) => b.values.buffer instanceof SharedArrayBuffer)).toBe(false);
+    for (const parallelShare of [0.5, 0.77]) {
+      const two = await read(f, { inputRoot: dir, readThreads: 2, parallelMinBytes: 0, parallelShare });
+      expect(two.beams.map((b) => b.values.buffer instanceof SharedArrayBuffer)).toEqual(beams.map(() => true));
+      expect(shape(two)).toBe(shape(one));
+    }
+    // Too small for the worker: one pass, still in shared memory for the lane.
+    const small = await read(f, { inputRoot: dir, readThreads: 2 });
+    expect(small.beams.every((b) => b.values.buffer instanceof SharedArrayBuffer)).toBe(true);
+  });
+
   it('CRLF line ends, no newline after the last row, comment and blank lines in the second part', async () => {
     const beams = Array.from({ length: 5 }, (_v, i) => [`b${i}`]);
     const rows = longRows(beams, 20);

@@ -50,6 +50,12 @@ export interface SinkContext {
   firstDataLine: number;
   /** Where dropout cells (job file dropout_tokens) were read as missing samples. */
   dropouts: DropoutLog;
+  /**
+   * Keep the beams' values in shared memory, so a second thread of the unit (the insight lane,
+   * src/batch/insightLane.ts) reads them without a copy; set when the read may use two threads.
+   * Long layout only; the other layouts' values are copied once when a lane takes them.
+   */
+  sharedValues?: boolean;
 }
 
 /** What a finished sink needs to name its beams. */

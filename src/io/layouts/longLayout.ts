@@ -150,7 +150,7 @@ export function planLong(cells: string[], ctx: PlanContext): PlanResult {
     angleConvention, angleUnit, power, pairValues: valueFields.length === 2, freqSlot, freqFactor, unitKey, beamKey, polKey,
   };
   return {
-    planned: { facts: plan, info: {}, samplesPerRow: 1, headerErrors: [], newSink: (s) => new LongLayoutSink(plan, s.file, s.errors, s.keys, s.dropouts) },
+    planned: { facts: plan, info: {}, samplesPerRow: 1, headerErrors: [], newSink: (s) => new LongLayoutSink(plan, s.file, s.errors, s.keys, s.dropouts, s.sharedValues === true) },
     warnings,
     errors: [],
   };

@@ -94,6 +94,8 @@ export class LongSink implements RowSink {
     private readonly errors: ErrorList,
     private readonly keys: KeyTable,
     private readonly dropouts: DropoutLog,
+    /** Values in shared memory (SampleAccumulator `shared`): another thread reads them without a copy. */
+    private readonly sharedValues = false,
   ) {
     this.angles = new RowAngles(plan.angleConvention, plan.angleUnit);
     const a = this.angles.unchangedRange();
@@ -208,9 +210,9 @@ export class LongSink implements RowSink {
     if (g === this.groups[0] && this.groups.length > 1) this.firstReopened = true;
     if (!g) {
       const template = this.template ?? (this.groups.length ? this.groups[0].acc : null);
-      const acc = new SampleAccumulator(template, line);
+      const acc = new SampleAccumulator(template, line, undefined, this.sharedValues);
       // The φ component follows the θ component's directions (the first group's, or its own group's).
-      const accPhi = this.plan.pairValues ? new SampleAccumulator(template ?? acc, line) : null;
+      const accPhi = this.plan.pairValues ? new SampleAccumulator(template ?? acc, line, undefined, this.sharedValues) : null;
       g = { unitId, beamId, polId, freqRaw, acc, accPhi };
       this.groups.push(g);
       this.byKey.set(key, g);
@@ -291,7 +293,7 @@ export class LongSink implements RowSink {
       const [unitId, beamId, polId] = key.split('|').map(Number);
       const old = this.byKey.get(key);
       if (old === undefined) {
-        const acc = new SampleAccumulator(first, q.firstLine + lineOffset, q.acc);
+        const acc = new SampleAccumulator(first, q.firstLine + lineOffset, q.acc, this.sharedValues);
         const g: Group = { unitId, beamId, polId, freqRaw: q.freqRaw, acc, accPhi: null };
         this.groups.push(g);
         this.byKey.set(key, g);
