@@ -2,7 +2,8 @@ import { sphereNormSr } from '../coverage/sphereNormSr.js';
 import type { BeamRemoval, Quantity, SphereGrid } from '../types.js';
 import { createPatchedPercentile } from './patchedPercentile.js';
 import { createPercentileSelector } from './percentileSelector.js';
-import { betterByDb, isLowerBetter, worstValue } from '../quantity.js';
+import { betterByDb, isLowerBetter } from '../quantity.js';
+import { bestAndRunnerUp } from './bestAndRunnerUp.js';
 import { NeumaierAccumulator } from '../sphere/neumaierSum.js';
 
 /**
@@ -16,7 +17,8 @@ import { NeumaierAccumulator } from '../sphere/neumaierSum.js';
  * fraction of the sphere in [0, 1] (S = sphereNormSr(Σw): 4π, or Σw on a full sphere, as the
  * core's coverage efficiency); null when threshold is null.
  *
- * Work reuse: the best and second-best beam per point are found once; removing b changes the
+ * Work reuse: the best and second-best beam per point are found once (`bestAndRunnerUp`; a caller
+ * that has them for the same beams passes `ranked`); removing b changes the
  * total scan pattern only where b is best, where the second-best value takes over. Ties go to the
  * earlier beam, so of two identical beams the second is the runner-up everywhere the first is
  * best and removing either costs exactly 0. Percentiles use the step rule of
@@ -34,24 +36,13 @@ export function beamRemoval(
   quantity: Quantity,
   levelPct: number,
   threshold: number | null,
+  ranked?: ReturnType<typeof bestAndRunnerUp>,
 ): BeamRemoval[] {
   const n = grid.weightSr.length;
   if (beams.length === 0) throw new Error('beamRemoval: no beams');
   for (const b of beams) if (b.length !== n) throw new Error(`beamRemoval: beam of ${b.length} values on a grid of ${n}`);
   const lowerIsBetter = isLowerBetter(quantity);
-  const worst = worstValue(quantity);
-  const bestIdx = new Int32Array(n), bestVal = new Float64Array(n), secondVal = new Float64Array(n).fill(worst);
-  // Beam by beam (sequential memory), the same per-point rule in the same beam order as a
-  // point-by-point scan: a strictly better value takes the lead, an equal-or-better one the second place.
-  bestVal.set(beams[0]);
-  for (let k = 1; k < beams.length; k++) {
-    const b = beams[k];
-    for (let i = 0; i < n; i++) {
-      const v = b[i], bv = bestVal[i];
-      if (lowerIsBetter ? v < bv : v > bv) { secondVal[i] = bv; bestVal[i] = v; bestIdx[i] = k; }
-      else if (!(lowerIsBetter ? secondVal[i] < v : secondVal[i] > v)) secondVal[i] = v; // ≥ (eis: ≤) so an equal runner-up is kept
-    }
-  }
+  const { tsp: { values: bestVal, bestBeam: bestIdx }, runnerUp: secondVal } = ranked ?? bestAndRunnerUp(beams, quantity);
   const select = createPercentileSelector(grid.weightSr, quantity, levelPct);
   const finite = (v: number | null): number | null => (v === null || !Number.isFinite(v) ? null : v);
   const full = finite(select(bestVal));

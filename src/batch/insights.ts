@@ -11,6 +11,7 @@ import { beamRemoval } from '../analysis/beamRemoval.js';
 import { findHoles } from '../analysis/findHoles.js';
 import { greedySubset } from '../analysis/greedySubset.js';
 import { totalScanPattern } from '../coverage/totalScanPattern.js';
+import { bestAndRunnerUp } from '../analysis/bestAndRunnerUp.js';
 
 /** What the optional analysis reads: the grid, the beams in codebook order, the level and threshold the limit set implies. */
 export interface InsightRequest {
@@ -39,10 +40,12 @@ export interface Insights {
  */
 export function computeInsights(q: InsightRequest, tsp?: TotalScanPattern): Insights {
   const { grid, beams, ids, quantity, levelPct, threshold } = q;
+  // Without the caller's TSP: one pass gives it (bit for bit totalScanPattern's) and the runner-up that removal needs.
+  const ranked = tsp === undefined && beams.length > 0 ? bestAndRunnerUp(beams, quantity) : undefined;
   const removal = beams.length > 1
-    ? beamRemoval(grid, beams, quantity, levelPct, threshold)
+    ? beamRemoval(grid, beams, quantity, levelPct, threshold, ranked)
     : beams.map(() => ({ percentileLossDb: null, coverageLoss: null }));
-  const pattern = tsp ?? totalScanPattern(beams, quantity);
+  const pattern = tsp ?? ranked?.tsp ?? totalScanPattern(beams, quantity);
   return {
     removal,
     holes: threshold === null ? [] : findHoles(grid, pattern, beams, ids, threshold, quantity),
