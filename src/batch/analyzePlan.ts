@@ -121,6 +121,7 @@ export async function planAnalyze(opts: AnalyzeOptions): Promise<AnalyzePlan> {
  */
 export function taskFor(plan: AnalyzePlan, key: string, files: string[], reference = plan.reference.unit): TaskInput {
   const { opts, metrics } = plan;
+  const threads = readThreads(opts.jobs ?? 'auto', plan.groups.size);
   return {
     key, files, inputRoot: plan.discovery.root, job: plan.job, quantityOverride: opts.quantity, ...metrics,
     limitSet: plan.limitSet, report: plan.output.report, generatedAt: plan.output.generatedAt, toolVersion: TOOL_VERSION,
@@ -128,9 +129,9 @@ export function taskFor(plan: AnalyzePlan, key: string, files: string[], referen
     ...(opts.coreOnly ? { coreOnly: true } : {}),
     uncertainty: plan.uncertainty,
     eisPolarizations: opts.eisPolarizations ?? 'each',
-    // One rule for both: a core the groups leave idle serves the read and then the insight lane.
-    readThreads: readThreads(opts.jobs ?? 'auto', plan.groups.size),
-    spareThreads: readThreads(opts.jobs ?? 'auto', plan.groups.size) - 1,
+    // One rule for both: a core the groups and the machine leave idle serves the read, then the insight lane.
+    readThreads: threads,
+    spareThreads: threads - 1,
   };
 }
 

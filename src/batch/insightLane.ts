@@ -7,7 +7,8 @@
  *
  * The worker is started before the group's files are read (its start-up overlaps the read) and
  * only when the task may use a spare thread (TaskInput.spareThreads, from the plan: the rule of
- * analyzePlan.ts readThreads, a core that the groups leave idle) and the files are large (LANE_MIN_BYTES); after assembly a measurement
+ * analyzePlan.ts readThreads, a core that the groups leave free and the machine had idle) and the
+ * files are large (LANE_MIN_BYTES); after assembly a measurement
  * smaller than LANE_MIN_WORK is analyzed on the main thread anyway. The beams travel in shared
  * memory (one copy, or none when they already live there); the answer is plain data.
  * Same results by construction (one function, insights.ts, on the same arrays); any failure of
