@@ -60,7 +60,7 @@ export class InsightLane {
   private dead = false;
 
   private constructor(private readonly worker: Worker) {
-    worker.unref(); // never keeps the process alive
+    worker.unref(); // an idle lane never keeps the process alive; a pending request does (request/settle)
     worker.on('message', (r: Reply) => this.settle(r.id, r.ok && r.insights ? r.insights : null));
     const fail = () => {
       this.dead = true;
@@ -93,6 +93,7 @@ export class InsightLane {
     const id = this.next++;
     return new Promise((resolve) => {
       this.pending.set(id, resolve);
+      this.worker.ref();
       try {
         this.worker.postMessage({ id, request: { ...q, beams: sharedBeams(q.beams) } });
       } catch {
@@ -111,6 +112,7 @@ export class InsightLane {
     const resolve = this.pending.get(id);
     if (!resolve) return;
     this.pending.delete(id);
+    if (this.pending.size === 0) this.worker.unref();
     resolve(r);
   }
 }
