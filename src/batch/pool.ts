@@ -152,6 +152,28 @@ export function cpuIdleCores(from: CpuTimes, to: CpuTimes, cores: number): numbe
   return ((to.idleMs - from.idleMs) / total) * cores;
 }
 
+/** CPU time of this whole process (every thread: main, workers, V8's compiler and GC threads), ms. */
+export function ownCpuMs(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+}
+
+/**
+ * Cores other processes left free between two readings: the idle cores plus the cores this
+ * process itself kept busy, less the one its main thread needs. Unlike cpuIdleCores alone, the
+ * run's own start-up does not count against it (module compilation and V8's background threads
+ * keep the second core partly busy while the main thread works): on the quiet 2-core bench
+ * machine the two-thread read and the insight lane, judged on idle CPU alone, stayed off in all
+ * 3 bench runs and in 5 of 20 hand runs of the 64-beam export. No time passed → as cpuIdleCores.
+ * @example coresFreeOfOthers(a, b, 0, 260, 2) // 200 ms window, 0.7 core idle, 1.3 our own → 1.0
+ */
+export function coresFreeOfOthers(from: CpuTimes, to: CpuTimes, ownFromMs: number, ownToMs: number, cores: number): number {
+  const total = to.totalMs - from.totalMs;
+  if (!(total > 0)) return Math.max(0, cores - 1);
+  const ownCores = (ownToMs - ownFromMs) / (total / cores);
+  return cpuIdleCores(from, to, cores) + ownCores - 1;
+}
+
 /** `--jobs`: a fixed number of lanes, or 'auto' (up to the machine's cores, decided from the work). */
 export type Jobs = number | 'auto';
 
