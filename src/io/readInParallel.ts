@@ -23,10 +23,13 @@ export const PARALLEL_MIN_BYTES = 32 << 20;
  * Share of the data bytes the main thread reads itself. Per-thread CPU of a two-thread read of
  * the 64-beam export at an even split (load 6–7 on 2 cores, /proc thread times): main thread
  * 200–230 ms for its half, 20 ms hashing the rest, ≤ 10 ms merging; worker 300–345 ms (start-up
- * ~35, re-reading the first beam ~35, its half, its own JIT warm-up). So the main thread takes a
- * little more than half; not tuned on a quiet machine.
+ * ~35, re-reading the first beam ~35, its half, its own JIT warm-up). On a quiet machine the
+ * worker also starts later in wall time (a --cpu-prof timeline: it read from ~0.15 s after the main
+ * thread and finished ~0.12 s after it at 0.55), so the main thread takes more: whole CLI on that
+ * export, both second threads on, 8 alternating pairs each (load 0.7–1.2): 0.62 / 0.55 = 0.96,
+ * 0.68 / 0.62 = 1.03 (paired medians; this machine's runs spread ±15 %).
  */
-export const MAIN_SHARE = 0.55;
+export const MAIN_SHARE = 0.62;
 
 /** Bytes searched for the newline after the split point; a longer line keeps one thread. */
 const SPLIT_SEARCH = 1 << 16;
