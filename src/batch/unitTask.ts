@@ -30,7 +30,7 @@ import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js
 import { applyJointChecks, type JointMaps } from './jointChecks.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView, type MeasuredUnit } from './polarizationUnits.js';
 import type { ViewerUnit } from '../viewer/viewerData.js';
-import { analysisThreshold, impliedChoices, percentileLimit } from '../limits/impliedChoices.js';
+import { analysisThreshold, impliedChoices, limitSetFor, percentileLimit } from '../limits/impliedChoices.js';
 
 export interface TaskInput {
   /** Work-item key (folder or file-stem group). */
@@ -174,7 +174,7 @@ function measureCore(m: Measurement, input: MeasureOptions): MeasuredCore {
     percentilesPct: input.percentilesPct,
     thresholds: input.thresholds,
     relativeDb: input.relativeDb,
-    levelLimit: percentileLimit(input.limitSet),
+    levelLimit: percentileLimit(limitSetFor(input.limitSet, m.quantity)),
   });
   const grid = gridSummary(m);
   const verdict = verdictOf(m, computed, grid, input);
@@ -187,7 +187,7 @@ function insightRequest(m: Measurement, input: MeasureOptions): InsightRequest |
   if (input.coreOnly === true) return null;
   return {
     grid: m.grid, beams: m.beams.map((b) => b.values), ids: m.beams.map((b) => b.id), quantity: m.quantity,
-    levelPct: analysisLevel(input.limitSet), threshold: analysisThreshold(input.limitSet, input.thresholds)?.value ?? null,
+    levelPct: analysisLevel(input.limitSet), threshold: analysisThreshold(limitSetFor(input.limitSet, m.quantity), input.thresholds)?.value ?? null,
   };
 }
 
@@ -209,7 +209,7 @@ function unitResult(m: Measurement, input: MeasureOptions, core: MeasuredCore, i
     grid: core.grid,
     sources: m.sources,
     limitSet: ls ? { name: ls.name, source: ls.source } : null,
-    analysisThreshold: analysisThreshold(ls, input.thresholds),
+    analysisThreshold: analysisThreshold(limitSetFor(ls, m.quantity), input.thresholds),
     holes: insights ? insights.holes : [],
     subset: insights ? insights.subset : null,
     gridAdequacy: core.gridAdequacy,

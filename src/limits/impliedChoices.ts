@@ -1,4 +1,4 @@
-import type { AnalysisThreshold, LevelLimit } from '../types.js';
+import type { AnalysisThreshold, LevelLimit, Quantity } from '../types.js';
 import type { LimitSet } from './limitSet.js';
 
 /** The choices a limit set implies for the optional analysis and the report. */
@@ -28,6 +28,18 @@ export function impliedChoices(ls: Pick<LimitSet, 'checks'> | null | undefined, 
     threshold: analysisThreshold(ls, requestedThresholds)?.value ?? null,
     levelPct: impliedLevelPct(ls?.checks ?? []),
   };
+}
+
+/**
+ * The limit set whose values may steer a measurement's analysis: the set itself when it is for
+ * the measurement's quantity, else null. A set written for EIRP judges nothing of an EIS unit
+ * (evaluateCheck: not evaluable), so its dBm values must not become that unit's hole threshold,
+ * contour or coverage-at-limit either: in a build with EIRP and EIS units the EIS units take the
+ * requested thresholds instead. The CDF level (a share of the sphere, not a value) is kept.
+ * @example limitSetFor({ quantity: 'eirp', checks: [] }, 'eis') // null
+ */
+export function limitSetFor<T extends Pick<LimitSet, 'quantity'>>(ls: T | null | undefined, quantity: Quantity): T | null {
+  return ls && ls.quantity === quantity ? ls : null;
 }
 
 /**

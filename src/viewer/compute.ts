@@ -5,7 +5,7 @@
 import type { CheckResult, CoverageHole, CoverageMetrics, Measurement, TotalScanPattern, UnitResult } from '../types.js';
 import type { ViewerBuild } from './viewerData.js';
 import { computeMetrics } from '../coverage/computeMetrics.js';
-import { percentileLimit } from '../limits/impliedChoices.js';
+import { limitSetFor, percentileLimit } from '../limits/impliedChoices.js';
 import { judge } from '../limits/judge.js';
 import { findHoles } from '../analysis/findHoles.js';
 import { gridSummary } from '../sphere/gridSummary.js';
@@ -30,7 +30,7 @@ export interface Computed {
 }
 
 /** Metrics, checks and holes of the measurement with only the enabled beams (null when none is). */
-export function recompute(m: Measurement, enabled: boolean[], build: ViewerBuild): Computed | null {
+export function recompute(m: Measurement, enabled: boolean[], build: ViewerBuild, holeThreshold: number | null): Computed | null {
   const beamIndex = m.beams.map((_, k) => k).filter((k) => enabled[k]);
   if (beamIndex.length === 0) return null;
   const beams = beamIndex.map((k) => m.beams[k]);
@@ -39,13 +39,13 @@ export function recompute(m: Measurement, enabled: boolean[], build: ViewerBuild
     percentilesPct: build.percentilesPct,
     thresholds: build.thresholds,
     relativeDb: build.relativeDb,
-    levelLimit: percentileLimit(build.limitSet),
+    levelLimit: percentileLimit(limitSetFor(build.limitSet, m.quantity)),
   });
   const ls = build.limitSet;
   const judged = ls
     ? judge(metrics, ls, { quantity: m.quantity, fullSphere: gridSummary(sub).fullSphere })
     : { checks: [], verdict: 'none' as const, worstCheck: null };
-  const hT = build.holeThreshold;
+  const hT = holeThreshold;
   const holes = hT === null ? [] : findHoles(m.grid, tsp, beams.map((b) => b.values), beams.map((b) => b.id), hT, m.quantity);
   const bestBeam = Int32Array.from(tsp.bestBeam, (b) => beamIndex[b]);
   return { beamIndex, tsp: { values: tsp.values, bestBeam }, metrics, checks: judged.checks, verdict: judged.verdict, worstCheck: judged.worstCheck, holes };

@@ -237,7 +237,7 @@ async function redrawAll(): Promise<void> {
   const u = data.units[state.unit];
   const L = state.loaded;
   if (!L) return;
-  state.computed = recompute(L.m, state.enabled, data);
+  state.computed = recompute(L.m, state.enabled, data, holeThresholdOf(u.result));
   const c = state.computed;
   const allOn = state.enabled.every(Boolean);
   const off = u.beamIds.filter((_, k) => !state.enabled[k]);
@@ -342,13 +342,19 @@ function renderPercentiles(u: ViewerUnit, c: Computed | null): void {
     el('tbody', {}, ...rows, ...cov));
 }
 
+/** The unit's own hole threshold as results.json records it (per unit: a limit set for another quantity gives none); the build's for older results. */
+function holeThresholdOf(r: UnitResult): number | null {
+  return r.analysisThreshold !== undefined ? (r.analysisThreshold?.value ?? null) : data.holeThreshold;
+}
+
 function renderHoles(c: Computed | null): void {
   const u = data.units[state.unit];
-  if (data.holeThreshold === null) { holesBox.replaceChildren('No coverage threshold in this run, so no hole search.'); return; }
+  const hT = holeThresholdOf(u.result);
+  if (hT === null) { holesBox.replaceChildren('No coverage threshold in this run, so no hole search.'); return; }
   const holes = c?.holes ?? [];
   const orig = u.result.holes?.length ?? 0;
   holesBox.replaceChildren(
-    el('p', {}, `Regions worse than ${num(data.holeThreshold)} ${u.valueUnit}: ${holes.length} now (results.json: ${orig}).`),
+    el('p', {}, `Regions worse than ${num(hT)} ${u.valueUnit}: ${holes.length} now (results.json: ${orig}).`),
     el('ol', {}, ...holes.slice(0, 8).map((h) => {
       const li = el('li', {}, el('button', { type: 'button', class: 'link' }, `θ ${num(h.thetaDeg, 1)}°, φ ${num(h.phiDeg, 1)}°`),
         `: ${num(h.solidAngleSr, 3)} sr, worst ${num(h.worst)} ${u.valueUnit}, nearest beam ${h.nearestBeam}`);
