@@ -42,7 +42,7 @@ describe('lazyPackage (issue 18: packages load when used)', () => {
     };
     const main = path.join(ROOT, 'dist', 'cli', 'main.js');
     const atStart = run(`await import(${JSON.stringify(main)});`);
-    for (const p of ['yaml', 'zod', 're2js', 'pngjs', 'pdfkit', 'd3-geo-voronoi', 'd3-geo']) expect(atStart.has(p), p).toBe(false);
+    for (const p of ['yaml', 'zod', 're2js', 'pngjs', 'pdfkit', 'd3-geo-voronoi', 'd3-geo', 'papaparse']) expect(atStart.has(p), p).toBe(false);
     expect(atStart.has('commander')).toBe(true);
     // …and on first use (a scattered grid's Voronoi weights, a limit profile).
     const used = run(`
@@ -53,8 +53,11 @@ describe('lazyPackage (issue 18: packages load when used)', () => {
       const g = buildSphereGrid(t, p).grid;
       if (g.regular) throw new Error('expected a scattered grid');
       if (!loadLimitSet('3gpp-fr2-pc3-n257').limitSet) throw new Error('profile not loaded');
+      const { readExportFile } = await import(${JSON.stringify(path.join(ROOT, 'dist', 'io', 'readExportFile.js'))});
+      const r = await readExportFile(${JSON.stringify(path.join(ROOT, 'fixtures', 'cli', 'pass', 'U-01'))} + '/' + (await import('node:fs')).readdirSync(${JSON.stringify(path.join(ROOT, 'fixtures', 'cli', 'pass', 'U-01'))})[0], { inputRoot: ${JSON.stringify(ROOT)} });
+      if (r.beams.length === 0) throw new Error('no beams read');
     `);
-    for (const p of ['yaml', 'zod', 'd3-geo-voronoi']) expect(used.has(p), p).toBe(true);
+    for (const p of ['yaml', 'zod', 'd3-geo-voronoi', 'papaparse']) expect(used.has(p), p).toBe(true);
     // The insight lane's worker (src/batch/insightWorker.ts) loads no package at all.
     const lane = run(`await import(${JSON.stringify(path.join(ROOT, 'dist', 'batch', 'insightWorker.js'))});`);
     expect([...lane]).toEqual([]);

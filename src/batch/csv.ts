@@ -3,7 +3,8 @@
  * formula neutralization, text a spreadsheet would change); RFC 4180 quoting and the joining of
  * cells and lines are papaparse's `unparse` (the library the readers already use).
  */
-import Papa from 'papaparse';
+import type { UnparseConfig } from 'papaparse';
+import { papa } from '../io/papa.js';
 
 /**
  * A text cell that begins with `=`, `+`, `-` or `@` (or a tab / carriage return, which some
@@ -22,7 +23,7 @@ export function neutralizeCell(text: string): string {
  * spreadsheet could trim), and a quote inside is doubled. Formula escaping is ours (csvText),
  * not papaparse's `escapeFormulae`, which would also quote every neutralized cell.
  */
-const UNPARSE: Papa.UnparseConfig = { delimiter: ',', newline: '\r\n', quotes: false, quoteChar: '"', escapeChar: '"', escapeFormulae: false, header: false };
+const UNPARSE: UnparseConfig = { delimiter: ',', newline: '\r\n', quotes: false, quoteChar: '"', escapeChar: '"', escapeFormulae: false, header: false };
 
 export type CsvCell = string | number | boolean | null | undefined;
 
@@ -56,7 +57,7 @@ function csvText(value: CsvCell): string {
 
 /** One CSV cell as written in a file: csvText, quoted where RFC 4180 needs it. */
 export function csvCell(value: CsvCell): string {
-  return Papa.unparse([[csvText(value)]], UNPARSE);
+  return papa().unparse([[csvText(value)]], UNPARSE);
 }
 
 /** The UTF-8 byte order mark: lets a spreadsheet program recognise UTF-8 (non-ASCII unit names). */
@@ -65,5 +66,5 @@ export const UTF8_BOM = '\uFEFF';
 /** Rows to CSV text with a UTF-8 BOM, CRLF line ends (RFC 4180) and a final line break. */
 export function toCsv(header: string[], rows: CsvCell[][]): string {
   const table = [header.map(neutralizeCell), ...rows.map((row) => row.map(csvText))];
-  return UTF8_BOM + Papa.unparse(table, UNPARSE) + '\r\n';
+  return UTF8_BOM + papa().unparse(table, UNPARSE) + '\r\n';
 }

@@ -1,4 +1,4 @@
-import Papa from 'papaparse';
+import { papa } from './papa.js';
 import { inputError } from './inputError.js';
 import type { RowLocator } from './rowSink.js';
 import { processTextRow, type TokenContext } from './textRow.js';
@@ -39,7 +39,7 @@ export function generalTokenize(text: string, dataStart: number, startLine: numb
     const nl = text.indexOf('\n', from);
     return nl < 0 ? text.length : nl + 1;
   };
-  Papa.parse<string[]>(text.slice(dataStart), {
+  papa().parse<string[]>(text.slice(dataStart), {
     delimiter: t.delimiter,
     newline,
     comments: '#',

@@ -1,4 +1,4 @@
-import Papa from 'papaparse';
+import { papa } from './papa.js';
 import type { InputError } from '../types.js';
 import { inputError } from './inputError.js';
 
@@ -146,12 +146,12 @@ export function sniffHead(file: string, head: Buffer, wholeFile: boolean, rule: 
   const lineEnding = text[header.next - 2] === '\r' && text[header.next - 1] === '\n' ? 'CRLF' : 'LF';
   const sampleEnd = nthLineEnd(text, header.start, 21);
   const sample = text.slice(header.start, sampleEnd);
-  const guess = Papa.parse<string[]>(sample, { delimitersToGuess: [',', ';', '\t'], comments: '#', skipEmptyLines: true, preview: 21 });
+  const guess = papa().parse<string[]>(sample, { delimitersToGuess: [',', ';', '\t'], comments: '#', skipEmptyLines: true, preview: 21 });
   const delimiter = (guess.meta.delimiter === ';' || guess.meta.delimiter === '\t' ? guess.meta.delimiter : ',') as HeadInfo['delimiter'];
   // With ';' or tab a decimal comma is accepted everywhere ('.' still reads as a decimal point,
   // never both in one number), so a file whose first rows happen to be integers is read alike.
   const decimalComma = delimiter !== ',';
-  const headerCells = header.text.includes('"') ? Papa.parse<string[]>(header.text, { delimiter }).data[0] ?? [''] : header.text.split(delimiter);
+  const headerCells = header.text.includes('"') ? papa().parse<string[]>(header.text, { delimiter }).data[0] ?? [''] : header.text.split(delimiter);
   const headerCellCols = cellCols(header.text, delimiter);
   const dataPart = text.slice(header.next);
   return {
