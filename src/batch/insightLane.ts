@@ -16,8 +16,8 @@
  * computes on the main thread.
  */
 import { Worker } from 'node:worker_threads';
-import { existsSync, statSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { statSync } from 'node:fs';
+import { compiledWorker } from '../compiledWorker.js';
 import type { InsightRequest, Insights } from './insights.js';
 
 /**
@@ -36,12 +36,6 @@ export const LANE_MIN_BYTES = 4 * 2 ** 20;
  */
 export const LANE_MIN_WORK = 1_000_000;
 
-/** The compiled worker beside this module, or null when running from .ts sources (vitest). */
-function workerPath(): string | null {
-  if (!import.meta.url.endsWith('.js')) return null;
-  const p = fileURLToPath(new URL('./insightWorker.js', import.meta.url));
-  return existsSync(p) ? p : null;
-}
 
 /** Total size of the files in bytes (unreadable ones count 0: the read reports them). */
 function filesBytes(files: string[]): number {
@@ -73,7 +67,7 @@ export class InsightLane {
   /** A lane for a task with a spare thread and large files, else null. */
   static open(spareThreads: number | undefined, files: string[]): InsightLane | null {
     if (!(spareThreads !== undefined && spareThreads >= 1)) return null;
-    const script = workerPath();
+    const script = compiledWorker(import.meta.url, 'insightWorker.js');
     if (script === null || filesBytes(files) < LANE_MIN_BYTES) return null;
     try {
       return new InsightLane(new Worker(script));

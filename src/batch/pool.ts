@@ -19,8 +19,7 @@
  */
 import { Worker } from 'node:worker_threads';
 import { availableParallelism, cpus, loadavg } from 'node:os';
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { compiledWorker } from '../compiledWorker.js';
 import { safeRunTask, type TaskInput, type TaskOutput } from './unitTask.js';
 
 export interface PoolHooks {
@@ -32,13 +31,6 @@ export interface PoolHooks {
 
 export class TaskFailure extends Error {}
 
-/** The compiled worker beside this module, or null when running from .ts sources. */
-function workerPath(): string | null {
-  const url = new URL('./worker.js', import.meta.url);
-  if (!import.meta.url.endsWith('.js')) return null;
-  const p = fileURLToPath(url);
-  return existsSync(p) ? p : null;
-}
 
 /** Tasks a worker holds at once (one running, one waiting) while enough work is left. */
 const WORKER_DEPTH = 2;
@@ -193,7 +185,7 @@ export class TaskPool {
 
   /** Run all tasks with up to `jobs` in parallel (main thread included); outputs in the order of `tasks`. */
   async run(tasks: TaskInput[], jobs: Jobs, hooks: PoolHooks = {}): Promise<TaskOutput[]> {
-    const script = workerPath();
+    const script = compiledWorker(import.meta.url, 'worker.js');
     const auto = jobs === 'auto';
     const wanted = auto ? availableParallelism() : Math.floor(jobs) || 1;
     const lanes = Math.max(1, Math.min(wanted, tasks.length));

@@ -1,8 +1,7 @@
 import type { Hash } from 'node:crypto';
-import { existsSync } from 'node:fs';
 import type { FileHandle } from 'node:fs/promises';
-import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { compiledWorker } from '../compiledWorker.js';
 import { fastTokenize, hashRange } from './fastTokenizer.js';
 import type { LayoutSink, LongPlan, PlanFacts } from './layouts/layoutTypes.js';
 import { LongSink } from './layouts/longSink.js';
@@ -59,12 +58,6 @@ export interface FastRead {
   chunkBytes?: number;
 }
 
-/** The compiled worker beside this module, or null when running from .ts sources (tests). */
-function workerPath(): string | null {
-  if (!import.meta.url.endsWith('.js')) return null;
-  const p = fileURLToPath(new URL('./rangeWorker.js', import.meta.url));
-  return existsSync(p) ? p : null;
-}
 
 /** The line start nearest after the main thread's share, or null (no newline near it). */
 async function findSplit(fh: FileHandle, dataStart: number, size: number, share: number): Promise<number | null> {
@@ -100,7 +93,7 @@ function startWorker(script: string, job: RangeJob): { reply: Promise<RangeReply
 export async function readFast(r: FastRead): Promise<'done' | 'quote'> {
   const whole = { readFrom: 0, parseFrom: r.dataStart, end: Infinity };
   const script = r.threads >= 2 && r.size - r.dataStart >= r.minBytes && r.plan.layout === 'long' && !(r.plan as LongPlan).pairValues
-    && r.sink instanceof LongSink ? workerPath() : null;
+    && r.sink instanceof LongSink ? compiledWorker(import.meta.url, 'rangeWorker.js') : null;
   const split = script === null ? null : await findSplit(r.fh, r.dataStart, r.size, r.share);
   if (script === null || split === null || !(r.sink instanceof LongSink)) {
     r.onOutcome?.('single');
