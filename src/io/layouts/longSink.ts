@@ -60,6 +60,11 @@ export interface LongParts {
   templatePhi: Float64Array;
 }
 
+/** A group's key in byKey: its unit, beam and pol ids (−1 without the column) and its frequency as written. */
+function groupKey(unitId: number, beamId: number, polId: number, freqRaw: number): string {
+  return `${unitId}|${beamId}|${polId}|${freqRaw}`;
+}
+
 /**
  * Long-layout rows → per (unit, beam, pol, frequency) sample groups. Checks angle ranges,
  * converts az/el, radians and linear power (mW, W → dBm) and keeps both components of a θ/φ
@@ -205,7 +210,7 @@ export class LongSink implements RowSink {
   }
 
   private group(unitId: number, beamId: number, polId: number, freqRaw: number, line: number): Group {
-    const key = `${unitId}|${beamId}|${polId}|${freqRaw}`;
+    const key = groupKey(unitId, beamId, polId, freqRaw);
     let g = this.byKey.get(key);
     if (g === this.groups[0] && this.groups.length > 1) this.firstReopened = true;
     if (!g) {
@@ -278,19 +283,19 @@ export class LongSink implements RowSink {
       if (slot < 0 || text === null) return -1;
       return add ? this.keys.intern(slot, text) : this.keys.find(slot, text);
     };
-    const keyOf = (q: LongPart, add: boolean): string | null => {
-      const ids = [idOf(p.unitKey, q.unit, add), idOf(p.beamKey, q.beam, add), idOf(p.polKey, q.pol, add)];
+    const idsOf = (q: LongPart, add: boolean): [number, number, number] | null => {
+      const ids: [number, number, number] = [idOf(p.unitKey, q.unit, add), idOf(p.beamKey, q.beam, add), idOf(p.polKey, q.pol, add)];
       if (!add && ((q.unit !== null && ids[0] < 0) || (q.beam !== null && ids[1] < 0) || (q.pol !== null && ids[2] < 0))) return null;
-      return `${ids[0]}|${ids[1]}|${ids[2]}|${q.freqRaw}`;
+      return ids;
     };
     for (const q of parts.groups) {
-      const k = keyOf(q, false);
-      if (k !== null && this.byKey.get(k) === this.groups[0]) return false;
+      const ids = idsOf(q, false);
+      if (ids !== null && this.byKey.get(groupKey(...ids, q.freqRaw)) === this.groups[0]) return false;
       if (q.pol !== null && this.polKindOf(q.pol) < 0) return false;
     }
     for (const q of parts.groups) {
-      const key = keyOf(q, true) as string;
-      const [unitId, beamId, polId] = key.split('|').map(Number);
+      const [unitId, beamId, polId] = idsOf(q, true) as [number, number, number];
+      const key = groupKey(unitId, beamId, polId, q.freqRaw);
       const old = this.byKey.get(key);
       if (old === undefined) {
         const acc = new SampleAccumulator(first, q.firstLine + lineOffset, q.acc, this.sharedValues);
