@@ -3,7 +3,7 @@
  * assemble the measurements, compute and judge each one, run the per-unit analysis and render
  * the unit PDFs. Input and output are plain data (structured-clone safe).
  */
-import type { BeamRemoval, GridSummary, InputError, Measurement, Quantity, SourceFile, SphereGrid, TotalScanPattern, UnitNotAnalyzed, UnitResult, Warning } from '../types.js';
+import type { AnalysisThreshold, BeamRemoval, GridSummary, InputError, LevelLimit, Measurement, Quantity, SourceFile, SphereGrid, TotalScanPattern, UnitNotAnalyzed, UnitResult, Warning } from '../types.js';
 import type { JobSpec, RawBeam } from '../io/types.js';
 import type { LimitSet } from '../limits/limitSet.js';
 import { readExportFile } from '../io/readExportFile.js';
@@ -169,12 +169,29 @@ interface MeasuredCore {
   gridAdequacy: UnitResult['gridAdequacy'];
 }
 
-function measureCore(m: Measurement, input: MeasureOptions): MeasuredCore {
+/**
+ * What the limit set implies for this measurement's analysis, decided once (limits/impliedChoices.ts):
+ * the CDF level of removal and subset, the analysis threshold as results.json records it, and the
+ * percentile requirement behind coverageAtLevelLimit. Values come only from a limit set of the
+ * measurement's own quantity (limitSetFor).
+ */
+interface UnitChoices {
+  levelPct: number;
+  threshold: AnalysisThreshold | null;
+  levelLimit: LevelLimit | null;
+}
+
+function unitChoices(m: Measurement, input: MeasureOptions): UnitChoices {
+  const own = limitSetFor(input.limitSet, m.quantity);
+  return { levelPct: analysisLevel(input.limitSet), threshold: analysisThreshold(own, input.thresholds), levelLimit: percentileLimit(own) };
+}
+
+function measureCore(m: Measurement, input: MeasureOptions, choices: UnitChoices): MeasuredCore {
   const computed = computeMetrics(m, {
     percentilesPct: input.percentilesPct,
     thresholds: input.thresholds,
     relativeDb: input.relativeDb,
-    levelLimit: percentileLimit(limitSetFor(input.limitSet, m.quantity)),
+    levelLimit: choices.levelLimit,
   });
   const grid = gridSummary(m);
   const verdict = verdictOf(m, computed, grid, input);
@@ -183,16 +200,16 @@ function measureCore(m: Measurement, input: MeasureOptions): MeasuredCore {
 }
 
 /** The optional analysis' inputs: the level and threshold the limit set implies (limits/impliedChoices.ts); null with --core-only. */
-function insightRequest(m: Measurement, input: MeasureOptions): InsightRequest | null {
+function insightRequest(m: Measurement, input: MeasureOptions, choices: UnitChoices): InsightRequest | null {
   if (input.coreOnly === true) return null;
   return {
     grid: m.grid, beams: m.beams.map((b) => b.values), ids: m.beams.map((b) => b.id), quantity: m.quantity,
-    levelPct: analysisLevel(input.limitSet), threshold: analysisThreshold(limitSetFor(input.limitSet, m.quantity), input.thresholds)?.value ?? null,
+    levelPct: choices.levelPct, threshold: choices.threshold?.value ?? null,
   };
 }
 
 /** The unit result, in results.json's key order. */
-function unitResult(m: Measurement, input: MeasureOptions, core: MeasuredCore, insights: Insights | null): UnitResult {
+function unitResult(m: Measurement, input: MeasureOptions, choices: UnitChoices, core: MeasuredCore, insights: Insights | null): UnitResult {
   const { judged, confidence, warnings } = core.verdict;
   const ls = input.limitSet;
   const removal: (BeamRemoval | undefined)[] = insights ? insights.removal : m.beams.map(() => undefined);
@@ -209,7 +226,7 @@ function unitResult(m: Measurement, input: MeasureOptions, core: MeasuredCore, i
     grid: core.grid,
     sources: m.sources,
     limitSet: ls ? { name: ls.name, source: ls.source } : null,
-    analysisThreshold: analysisThreshold(limitSetFor(ls, m.quantity), input.thresholds),
+    analysisThreshold: choices.threshold,
     holes: insights ? insights.holes : [],
     subset: insights ? insights.subset : null,
     gridAdequacy: core.gridAdequacy,
@@ -219,10 +236,11 @@ function unitResult(m: Measurement, input: MeasureOptions, core: MeasuredCore, i
 
 /** Analyze one measurement (already assembled): metrics, verdict and the per-unit analysis, on this thread. */
 export function measureUnit(m: Measurement, input: MeasureOptions): { result: UnitResult; tsp: TotalScanPattern } {
-  const request = insightRequest(m, input);
-  const core = measureCore(m, input);
+  const choices = unitChoices(m, input);
+  const request = insightRequest(m, input, choices);
+  const core = measureCore(m, input, choices);
   const insights = request ? computeInsights(request, core.computed.tsp) : null;
-  return { result: unitResult(m, input, core, insights), tsp: core.computed.tsp };
+  return { result: unitResult(m, input, choices, core, insights), tsp: core.computed.tsp };
 }
 
 /**
@@ -231,11 +249,12 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
  * way), computed here when the lane fails.
  */
 async function measureUnitOnLanes(m: Measurement, input: MeasureOptions, lane: InsightLane | null): Promise<{ result: UnitResult; tsp: TotalScanPattern }> {
-  const request = insightRequest(m, input);
+  const choices = unitChoices(m, input);
+  const request = insightRequest(m, input, choices);
   const sent = lane && request && InsightLane.worthIt(request) ? lane.request(request) : null;
-  const core = measureCore(m, input);
+  const core = measureCore(m, input, choices);
   const insights = request ? ((sent ? await sent : null) ?? computeInsights(request, core.computed.tsp)) : null;
-  return { result: unitResult(m, input, core, insights), tsp: core.computed.tsp };
+  return { result: unitResult(m, input, choices, core, insights), tsp: core.computed.tsp };
 }
 
 /** The report outputs of one measured unit: PDF, summary thumbnail and CDF curve (none with --no-pdf). */
