@@ -1,14 +1,11 @@
 import type { FileHandle } from 'node:fs/promises';
 import type { Hash } from 'node:crypto';
-import { KEY, NUM } from './fieldPlan.js';
+import { KEY_MEMO, lineScanner, type ScanState } from './compiledScan.js';
 import type { RowLocator } from './rowSink.js';
 import { splitLocator } from './rowSink.js';
 import { processTextRow, type TokenContext } from './textRow.js';
 
 const CHUNK = 1 << 20;
-/** Exact powers of ten (all representable in binary64 up to 1e22). */
-const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
-const KEY_MEMO = 256;
 const NEWLINE = Buffer.from('\n');
 
 /**
@@ -35,157 +32,34 @@ export async function fastTokenize(
   hash: Hash | null,
   chunkBytes = CHUNK,
 ): Promise<TokenizeEnd> {
-  const kinds = t.fields.kinds;
-  const slots = t.fields.slots;
-  const nFields = kinds.length;
-  const delim = t.delimiter.charCodeAt(0);
-  const dc = t.decimalComma;
-  const nums = t.nums;
-  const keyIds = t.keyIds;
-  const memo = Array.from({ length: t.fields.keyCount }, () => ({ bytes: Buffer.alloc(KEY_MEMO), len: -1, id: -1 }));
-
   let filePos = range.readFrom;
   const end = range.end;
-  let line = startLine;
   let skipTo = range.parseFrom - range.readFrom;
-  // Where the row handed to the sink lies (for the locator, which only error paths use).
-  let lb: Buffer = Buffer.alloc(0);
-  let ls = 0;
-  let le = 0;
+  const keyCount = t.fields.keyCount;
+  const s: ScanState = {
+    line: startLine, nums: t.nums, keyIds: t.keyIds, sink: t.sink, loc: null as unknown as RowLocator, keys: t.keys,
+    halt: t.halt ?? null,
+    memoBytes: Array.from({ length: keyCount }, () => Buffer.alloc(KEY_MEMO)),
+    memoLen: new Int32Array(keyCount).fill(-1), memoId: new Int32Array(keyCount).fill(-1),
+    rowBuf: Buffer.alloc(0), rowStart: 0, rowEnd: 0, rowChanged: false,
+  };
+  // The row handed to the sink, split lazily (only error paths ask).
   let cached: RowLocator | null = null;
-  const loc: RowLocator = {
-    text: (f) => lazy().text(f),
-    col: (f) => lazy().col(f),
+  const lazy = (): RowLocator => {
+    if (s.rowChanged || cached === null) {
+      cached = splitLocator(s.rowBuf.toString('utf8', s.rowStart, s.rowEnd).split(t.delimiter), t.delimiter);
+      s.rowChanged = false;
+    }
+    return cached;
+  };
+  s.loc = {
+    text: (f: number) => lazy().text(f),
+    col: (f: number) => lazy().col(f),
     end: () => lazy().end(),
     rowText: () => lazy().rowText(),
   };
-  function lazy(): RowLocator {
-    if (cached === null) cached = splitLocator(lb.toString('utf8', ls, le).split(t.delimiter), t.delimiter);
-    return cached;
-  }
-  const sink = t.sink;
-  const halt = t.halt ?? null;
-
-  /**
-   * Parse whole lines from `i` on, each fully or not at all, while they are plain: returns where
-   * it stopped, `stop` or the start of a line it does not fully understand (a blank or '#' line,
-   * spaces, NaN, a quote, exotic numbers, a wrong field count), which the caller hands to the
-   * text routine. Every line in [i, stop) ends with a '\n' before `stop`, so no loop needs a
-   * bound: each stops at that newline at the latest. One call parses a whole chunk's lines.
-   */
-  function scanLines(b: Buffer, i: number, stop: number): number {
-    while (i < stop) {
-      const c0 = b[i];
-      if (c0 === 35 || c0 === 10 || c0 === 13) return i;
-      let p = i;
-      for (let f = 0; f < nFields; f++) {
-        const kind = kinds[f];
-        if (kind === NUM) {
-          let neg = false;
-          let c = b[p];
-          if (c === 45) {
-            neg = true;
-            p++;
-          } else if (c === 43) p++;
-          let m = 0;
-          let nd = 0;
-          let frac = 0;
-          for (;;) {
-            const d = b[p] - 48;
-            if (d < 0 || d > 9) break;
-            m = m * 10 + d;
-            nd++;
-            p++;
-          }
-          c = b[p];
-          if (c === 46 || (dc && c === 44)) {
-            p++;
-            for (;;) {
-              const d = b[p] - 48;
-              if (d < 0 || d > 9) break;
-              m = m * 10 + d;
-              nd++;
-              frac++;
-              p++;
-            }
-            c = b[p];
-          }
-          if (nd === 0 || nd > 15) return i;
-          let exp = 0;
-          if (c === 101 || c === 69) {
-            p++;
-            let eneg = false;
-            if (b[p] === 45) {
-              eneg = true;
-              p++;
-            } else if (b[p] === 43) p++;
-            let ed = 0;
-            for (;;) {
-              const d = b[p] - 48;
-              if (d < 0 || d > 9) break;
-              exp = exp * 10 + d;
-              ed++;
-              p++;
-              if (ed > 4) return i;
-            }
-            if (ed === 0) return i;
-            if (eneg) exp = -exp;
-          }
-          const e10 = exp - frac;
-          let v: number;
-          if (e10 === 0) v = m;
-          else if (e10 < 0 && e10 >= -22) v = m / POW10[-e10];
-          else if (e10 > 0 && e10 <= 22) v = m * POW10[e10];
-          else return i;
-          nums[slots[f]] = neg ? -v : v;
-        } else {
-          const q0 = p;
-          for (;;) {
-            const c = b[p];
-            if (c === delim || c === 10 || c === 13) break;
-            if (c === 34) return i;
-            p++;
-          }
-          if (kind === KEY) {
-            const slot = slots[f];
-            const mm = memo[slot];
-            const len = p - q0;
-            if (len === 0) return i;
-            let same = len === mm.len;
-            for (let k = 0; same && k < len; k++) if (b[q0 + k] !== mm.bytes[k]) same = false;
-            if (same) keyIds[slot] = mm.id;
-            else {
-              const text = b.toString('utf8', q0, p).trim();
-              if (text === '') return i;
-              const id = t.keys.intern(slot, text);
-              keyIds[slot] = id;
-              if (len <= KEY_MEMO) {
-                b.copy(mm.bytes, 0, q0, p);
-                mm.len = len;
-                mm.id = id;
-              } else mm.len = -1;
-            }
-          }
-        }
-        if (f < nFields - 1) {
-          if (b[p] !== delim) return i;
-          p++;
-        }
-      }
-      const e = p;
-      if (b[p] === 13) p++;
-      if (b[p] !== 10) return i;
-      lb = b;
-      ls = i;
-      le = e;
-      cached = null;
-      sink.row(line, nums, keyIds, loc);
-      line++;
-      i = p + 1;
-      if (halt !== null && halt.now) return i;
-    }
-    return i;
-  }
+  const scanLines = lineScanner(t.fields.kinds, t.fields.slots, t.delimiter, t.decimalComma);
+  const halt = s.halt;
 
   // Double buffering: the next chunk is read (thread pool) while this one is parsed; a line cut
   // by a chunk boundary is stitched from the kept tail and the next chunk's first line.
@@ -201,15 +75,15 @@ export async function fastTokenize(
     if (e > i && view[i] !== 35) {
       if (view.subarray(i, e).includes(34)) return false;
       const fields = view.toString('utf8', i, e).split(t.delimiter);
-      processTextRow(fields, line, splitLocator(fields, t.delimiter), t);
+      processTextRow(fields, s.line, splitLocator(fields, t.delimiter), t);
     }
-    line++;
+    s.line++;
     return true;
   };
   /** Lines of [i, stop), every one ending with a newline before stop; false on a quote. */
   const lines = (view: Buffer, i: number, stop: number): boolean => {
     for (;;) {
-      i = scanLines(view, i, stop);
+      i = scanLines(view, i, stop, s);
       if (i >= stop) return true;
       if (halt !== null && halt.now) return true;
       const nl = view.indexOf(10, i);
@@ -245,21 +119,21 @@ export async function fastTokenize(
       // The cut line with its newline (one added after a last line without one).
       const stitched = Buffer.concat([tail, eof ? NEWLINE : view.subarray(0, nl + 1)]);
       tail = null;
-      if (!lines(stitched, 0, stitched.length)) return { outcome: 'quote', line };
+      if (!lines(stitched, 0, stitched.length)) return { outcome: 'quote', line: s.line };
       i = eof ? 0 : nl + 1;
     }
     if (eof) break;
     const stop = view.lastIndexOf(10) + 1;
     if (halt === null || !halt.now) {
-      if (i < stop && !lines(view, i, stop)) return { outcome: 'quote', line };
+      if (i < stop && !lines(view, i, stop)) return { outcome: 'quote', line: s.line };
     }
     if (halt !== null && halt.now) {
       await pending;
-      return { outcome: 'halt', line };
+      return { outcome: 'halt', line: s.line };
     }
     if (Math.max(i, stop) < view.length) tail = Buffer.from(view.subarray(Math.max(i, stop)));
   }
-  return { outcome: 'done', line };
+  return { outcome: 'done', line: s.line };
 }
 
 /**
