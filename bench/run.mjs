@@ -46,6 +46,13 @@ if (o.build) {
     log(`build reported ${n} type error(s) (work in progress elsewhere?); using dist/ as emitted`);
     raw.buildErrors = n;
   }
+  // The CLI runs from dist/bundle when it is current (src/cli/bundleStamp.ts), as after npm install.
+  log('bundling (scripts/bundle.mjs) …');
+  const b = spawnSync(process.execPath, [join(repoDir, 'scripts/bundle.mjs')], { cwd: repoDir, encoding: 'utf8' });
+  if (b.status !== 0) {
+    log(`bundle step failed; the CLI runs from dist/cli\n${b.stderr}`);
+    raw.bundleFailed = true;
+  }
 }
 
 // ---- what exists ----

@@ -15,6 +15,8 @@ try {
 } catch {
   // tsc emits even with type errors elsewhere; the tests check that dist/ is there.
 }
+// As `npm test` does: the CLI tests then run the bundled CLI (src/cli/bundleStamp.ts).
+execFileSync(process.execPath, [path.join(root, 'scripts', 'bundle.mjs')], { cwd: root, stdio: 'inherit' });
 const t0 = Date.now();
 const r = spawnSync(process.execPath, [path.join(root, 'node_modules', 'vitest', 'vitest.mjs'), 'run', 'test/reliability', '--testTimeout', '1800000', '--hookTimeout', '1800000'], {
   cwd: root, stdio: 'inherit', env: { ...process.env, SPHERECOV_SOAK: '1', SPHERECOV_FIGURES: figures },

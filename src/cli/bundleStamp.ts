@@ -1,0 +1,65 @@
+/**
+ * Which build of the CLI bin/spherecov.js loads. scripts/bundle.mjs bundles the tsc output
+ * (dist/cli/main.js, dist/cli/signals.js and the three worker entries) with esbuild into
+ * dist/bundle/: a few dozen files instead of ~170 modules, which is most of a process's or a
+ * worker thread's start-up. The bundle is used only while it was made from the dist/ files that
+ * are there now; after a bare `tsc` (or `tsc --watch` rewriting one file) the launcher runs
+ * dist/cli as tsc wrote it, so a developer never runs a stale bundle.
+ *
+ * Node's built-ins only: bin/spherecov.js imports this before anything else.
+ */
+import { readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+/** The stamp file, written last into dist/bundle/ by scripts/bundle.mjs. */
+export const BUNDLE_STAMP = 'stamp.json';
+
+/** Every dist/ module the bundle was made from: its path relative to dist/bundle/ and its size. */
+interface BundleStamp { inputs: { path: string; size: number }[] }
+
+/**
+ * Record the bundle's inputs (absolute paths) in `bundleDir`/stamp.json, dated `startedMs`, when
+ * the bundler began reading them: an input rewritten while it ran is newer than the stamp.
+ */
+export function writeBundleStamp(bundleDir: string, inputs: readonly string[], startedMs: number): void {
+  const stamp: BundleStamp = {
+    inputs: inputs.map((p) => ({ path: path.relative(bundleDir, p), size: statSync(p).size })),
+  };
+  const file = path.join(bundleDir, BUNDLE_STAMP);
+  writeFileSync(file, `${JSON.stringify(stamp)}\n`);
+  utimesSync(file, startedMs / 1000, startedMs / 1000);
+}
+
+/**
+ * True when the bundle in `bundleDir` was made from the dist/ files that are there now: every
+ * input still exists, has its recorded size and is not newer than the stamp. The time rule, not
+ * an exact recorded mtime, so that a packed-and-installed copy (npm sets every file to one date)
+ * still uses its bundle; the size check catches a copy that kept an old date. Cost: one stat a
+ * module, well under a millisecond.
+ */
+export function bundleIsCurrent(bundleDir: string): boolean {
+  try {
+    const stampPath = path.join(bundleDir, BUNDLE_STAMP);
+    const madeMs = statSync(stampPath).mtimeMs;
+    const stamp = JSON.parse(readFileSync(stampPath, 'utf8')) as BundleStamp;
+    if (!Array.isArray(stamp.inputs) || stamp.inputs.length === 0) return false;
+    return stamp.inputs.every((i) => {
+      const st = statSync(path.resolve(bundleDir, i.path));
+      return st.size === i.size && st.mtimeMs <= madeMs;
+    });
+  } catch {
+    return false; // no bundle, a half-written one, or an input gone
+  }
+}
+
+/**
+ * The signal-handler module and the CLI module the launcher loads: both from dist/bundle when it
+ * is current, else both from dist/cli (one module instance of signals.js either way, the one the
+ * CLI's run watches).
+ */
+export function cliModules(): { signals: string; main: string } {
+  const bundle = new URL('../bundle/', import.meta.url);
+  const dir = bundleIsCurrent(fileURLToPath(bundle)) ? bundle : new URL('./', import.meta.url);
+  return { signals: new URL('signals.js', dir).href, main: new URL('main.js', dir).href };
+}
