@@ -36,7 +36,7 @@ export function writeBundleStamp(bundleDir: string, inputs: readonly string[], s
  * input still exists, has its recorded size and is not newer than the stamp. The time rule, not
  * an exact recorded mtime, so that a packed-and-installed copy (npm sets every file to one date)
  * still uses its bundle; the size check catches a copy that kept an old date. Cost: one stat a
- * module, well under a millisecond.
+ * module, about 4 ms for ~230 modules on a busy 2-core machine (the bundle saves ~100 ms).
  */
 export function bundleIsCurrent(bundleDir: string): boolean {
   try {
@@ -44,10 +44,14 @@ export function bundleIsCurrent(bundleDir: string): boolean {
     const madeMs = statSync(stampPath).mtimeMs;
     const stamp = JSON.parse(readFileSync(stampPath, 'utf8')) as BundleStamp;
     if (!Array.isArray(stamp.inputs) || stamp.inputs.length === 0) return false;
-    return stamp.inputs.every((i) => {
-      const st = statSync(path.resolve(bundleDir, i.path));
-      return st.size === i.size && st.mtimeMs <= madeMs;
-    });
+    // A plain loop and string paths (the system resolves '..'): this runs cold, in the interpreter,
+    // where path.resolve and every() cost about as much as the ~230 stats.
+    const prefix = bundleDir + path.sep;
+    for (const i of stamp.inputs) {
+      const st = statSync(prefix + i.path);
+      if (st.size !== i.size || st.mtimeMs > madeMs) return false;
+    }
+    return true;
   } catch {
     return false; // no bundle, a half-written one, or an input gone
   }
