@@ -29,7 +29,10 @@ await stageMain(async () => {
   const { safeRunTask } = await import(dist('batch/unitTask.js'));
   const plan = await planAnalyze({ input: dir, outDir: join(tmpdir(), 'spherecov-bench-worker-start'), percentilesPct: [0, 10, 50, 90, 100], thresholds: [10, 20, 25], pdf, force: true });
   const tasks = groupTasks(plan).slice(0, n);
-  const workerFile = join(repoDir, 'dist', 'batch', 'worker.js');
+  // The worker the CLI starts: the bundle's while it is current (src/cli/bundleStamp.ts).
+  const { bundleIsCurrent } = await import(dist('cli/bundleStamp.js'));
+  const bundled = bundleIsCurrent(join(repoDir, 'dist', 'bundle'));
+  const workerFile = bundled ? join(repoDir, 'dist', 'bundle', 'worker.js') : join(repoDir, 'dist', 'batch', 'worker.js');
   const inProcess = async () => {
     const c0 = cpuMs();
     for (const t of tasks) await safeRunTask(t);
@@ -56,5 +59,5 @@ await stageMain(async () => {
     pairs.push({ workerMs: w, warmMs: m });
   }
   // The worker's extra CPU over a warm main thread on the same tasks.
-  return { mode: pdf ? 'pdf' : 'plain', tasks: tasks.length, startS: median(pairs.map((p) => p.workerMs - p.warmMs)) / 1000, pairs };
+  return { mode: pdf ? 'pdf' : 'plain', worker: bundled ? 'dist/bundle' : 'dist/batch', tasks: tasks.length, startS: median(pairs.map((p) => p.workerMs - p.warmMs)) / 1000, pairs };
 });
