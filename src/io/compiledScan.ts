@@ -48,19 +48,21 @@ const compiled = new Map<string, LineScanner>();
  * shared by every file of that layout: straight-line code for the row's fields in order, so
  * the per-field dispatch of a general loop is gone and V8 optimizes one small loop per layout.
  * Only integers (field kinds, the delimiter's char code, slot numbers) enter the generated
- * source, never text from a file.
+ * source, never text from a file. A scanner that may halt after a row (`halts`: the range
+ * worker's first pass) is compiled apart, so the one that reads the bulk of a file sees a single
+ * sink and V8 inlines its row().
  *
  * Numbers: up to 15 significant digits and a decimal exponent within ±22 are computed as m·10^e
  * or m/10^−e, both exact operands, so the single rounding gives the correctly rounded double,
  * the same as Number(text) (IEEE 754 §4.3 correct rounding of ×, ÷); anything else returns the
  * line to the text routine.
  */
-export function lineScanner(kinds: Uint8Array, slots: Int32Array, delimiter: string, decimalComma: boolean): LineScanner {
+export function lineScanner(kinds: Uint8Array, slots: Int32Array, delimiter: string, decimalComma: boolean, halts: boolean): LineScanner {
   const delim = delimiter.charCodeAt(0);
-  const key = `${Array.from(kinds).join('')}|${Array.from(slots).join(',')}|${delim}|${decimalComma ? 1 : 0}`;
+  const key = `${Array.from(kinds).join('')}|${Array.from(slots).join(',')}|${delim}|${decimalComma ? 1 : 0}|${halts ? 1 : 0}`;
   let scan = compiled.get(key);
   if (scan === undefined) {
-    const source = scannerSource(kinds, slots, delim, decimalComma);
+    const source = scannerSource(kinds, slots, delim, decimalComma, halts);
     // eslint-disable-next-line @typescript-eslint/no-implied-eval -- integers only (see above)
     scan = new Function('POW10', 'newKey', source)(POW10, newKey) as LineScanner;
     compiled.set(key, scan);
@@ -69,7 +71,7 @@ export function lineScanner(kinds: Uint8Array, slots: Int32Array, delimiter: str
 }
 
 /** The body of a scanner factory: `return function scanLines(b, i, stop, s) {…}`. */
-function scannerSource(kinds: Uint8Array, slots: Int32Array, delim: number, dc: boolean): string {
+function scannerSource(kinds: Uint8Array, slots: Int32Array, delim: number, dc: boolean, halts: boolean): string {
   const n = kinds.length;
   const parts: string[] = [];
   for (let f = 0; f < n; f++) {
@@ -96,7 +98,7 @@ function scannerSource(kinds: Uint8Array, slots: Int32Array, delim: number, dc: 
     sink.row(line, nums, keyIds, loc);
     line++;
     i = p + 1;
-    if (halt !== null && halt.now) break;
+    ${halts ? 'if (halt.now) break;' : ''}
   }
   s.line = line;
   return i;

@@ -58,7 +58,7 @@ export async function fastTokenize(
     end: () => lazy().end(),
     rowText: () => lazy().rowText(),
   };
-  const scanLines = lineScanner(t.fields.kinds, t.fields.slots, t.delimiter, t.decimalComma);
+  const scanLines = lineScanner(t.fields.kinds, t.fields.slots, t.delimiter, t.decimalComma, s.halt !== null);
   const halt = s.halt;
 
   // Double buffering: the next chunk is read (thread pool) while this one is parsed; a line cut
