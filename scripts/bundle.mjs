@@ -21,6 +21,7 @@ const bundleDir = path.join(dist, 'bundle');
 const ENTRIES = {
   main: 'cli/main.js',
   signals: 'cli/signals.js',
+  earlyThreads: 'earlyThreads.js',
   worker: 'batch/worker.js',
   rangeWorker: 'io/rangeWorker.js',
   insightWorker: 'batch/insightWorker.js',

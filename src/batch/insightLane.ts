@@ -18,6 +18,7 @@
 import { Worker } from 'node:worker_threads';
 import { statSync } from 'node:fs';
 import { compiledWorker } from '../compiledWorker.js';
+import { takeEarlyThread } from '../earlyWorkers.js';
 import type { InsightRequest, Insights } from './insights.js';
 
 /**
@@ -70,7 +71,7 @@ export class InsightLane {
     const script = compiledWorker(import.meta.url, 'insightWorker.js');
     if (script === null || filesBytes(files) < LANE_MIN_BYTES) return null;
     try {
-      return new InsightLane(new Worker(script));
+      return new InsightLane(takeEarlyThread(script) ?? new Worker(script));
     } catch {
       return null;
     }

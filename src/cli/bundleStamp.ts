@@ -58,12 +58,17 @@ export function bundleIsCurrent(bundleDir: string): boolean {
 }
 
 /**
- * The signal-handler module and the CLI module the launcher loads: both from dist/bundle when it
- * is current, else both from dist/cli (one module instance of signals.js either way, the one the
- * CLI's run watches).
+ * The signal-handler module, the early-threads module (src/earlyThreads.ts) and the CLI module the
+ * launcher loads: all from dist/bundle when it is current, else from dist/cli and dist/ (one
+ * module instance of each either way, the one the CLI's run uses).
  */
-export function cliModules(): { signals: string; main: string } {
+export function cliModules(): { signals: string; early: string; main: string } {
   const bundle = new URL('../bundle/', import.meta.url);
-  const dir = bundleIsCurrent(fileURLToPath(bundle)) ? bundle : new URL('./', import.meta.url);
-  return { signals: new URL('signals.js', dir).href, main: new URL('main.js', dir).href };
+  const current = bundleIsCurrent(fileURLToPath(bundle));
+  const dir = current ? bundle : new URL('./', import.meta.url);
+  return {
+    signals: new URL('signals.js', dir).href,
+    early: new URL(current ? 'earlyThreads.js' : '../earlyThreads.js', dir).href,
+    main: new URL('main.js', dir).href,
+  };
 }

@@ -109,10 +109,16 @@ export function replyBuffers(reply: RangeReply): ArrayBuffer[] {
   return [...out];
 }
 
-if (parentPort !== null && workerData !== null && typeof workerData === 'object' && 'split' in workerData) {
+if (parentPort !== null) {
   const port = parentPort;
-  readRange(workerData as RangeJob).then(
-    (reply) => port.postMessage(reply, replyBuffers(reply)),
-    (e: unknown) => port.postMessage({ ok: false, why: e instanceof Error ? e.message : String(e) } satisfies RangeReply),
-  );
+  const run = (job: RangeJob): void => {
+    readRange(job).then(
+      (reply) => port.postMessage(reply, replyBuffers(reply)),
+      (e: unknown) => port.postMessage({ ok: false, why: e instanceof Error ? e.message : String(e) } satisfies RangeReply),
+    );
+  };
+  // The job comes with the worker (workerData), or later by message when the worker was started
+  // early (src/earlyThreads.ts).
+  if (workerData !== null && typeof workerData === 'object' && 'split' in workerData) run(workerData as RangeJob);
+  else port.once('message', run);
 }

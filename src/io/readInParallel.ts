@@ -2,6 +2,7 @@ import type { Hash } from 'node:crypto';
 import type { FileHandle } from 'node:fs/promises';
 import { Worker } from 'node:worker_threads';
 import { compiledWorker } from '../compiledWorker.js';
+import { takeEarlyThread } from '../earlyWorkers.js';
 import { fastTokenize, hashRange } from './fastTokenizer.js';
 import type { LayoutSink, LongPlan, PlanFacts } from './layouts/layoutTypes.js';
 import { LongSink } from './layouts/longSink.js';
@@ -71,7 +72,9 @@ async function findSplit(fh: FileHandle, dataStart: number, size: number, share:
 
 /** Start the worker on [split, end); its reply, or null when it failed to run. */
 function startWorker(script: string, job: RangeJob): { reply: Promise<RangeReply | null>; stop: () => Promise<number> } {
-  const w = new Worker(script, { workerData: job });
+  const early = takeEarlyThread(script);
+  const w = early ?? new Worker(script, { workerData: job });
+  if (early !== null) early.postMessage(job);
   const reply = new Promise<RangeReply | null>((resolve) => {
     w.once('message', (m: RangeReply) => resolve(m));
     w.once('error', () => resolve(null));

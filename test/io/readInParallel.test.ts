@@ -196,3 +196,18 @@ describe('the read worker loads only what it needs (issue 18)', () => {
     expect(seen.size).toBeLessThanOrEqual(20);
   });
 });
+
+describe('the second reading thread started early (src/earlyThreads.ts)', () => {
+  it('a worker started without a job reads the part it is sent by message, as one started with it', async () => {
+    type EarlyApi = { offerEarlyThread: (script: string, w: import('node:worker_threads').Worker) => void; takeEarlyThread: (script: string) => unknown };
+    const early = (await import(pathToFileURL(path.join(ROOT, 'dist', 'earlyWorkers.js')).href)) as EarlyApi;
+    const { Worker } = await import('node:worker_threads');
+    const script = path.join(ROOT, 'dist', 'io', 'rangeWorker.js');
+    const beams = Array.from({ length: 6 }, (_v, i) => [String(i)]);
+    const f = write('early.csv', `theta_deg,phi_deg,beam,eirp_dbm\n${longRows(beams, 15).join('\n')}\n`);
+    early.offerEarlyThread(script, new Worker(script, { workerData: null }));
+    expect(await same(f, 0.5)).toBe('merged');
+    // The read took the offered worker: nothing is left to take.
+    expect(early.takeEarlyThread(script)).toBeNull();
+  });
+});

@@ -1,0 +1,78 @@
+/**
+ * Worker threads started by bin/spherecov.js before the CLI's modules load, for an `analyze` of
+ * large files: the second reading thread (src/io/rangeWorker.ts) and the insight lane
+ * (src/batch/insightWorker.ts). A worker thread takes 100–150 ms from `new Worker` to running
+ * code (Node's bootstrap and its module graph), and the main thread spends about as long loading
+ * the CLI while the second core idles; started here, the workers are ready when the read begins
+ * instead of starting then and competing with it. Whoever would start such a worker takes the
+ * early one instead (takeEarlyThread, src/earlyWorkers.ts) and sends its job by message; one that nobody takes (a
+ * run that decided on one thread, a small file after all) is unreferenced and never keeps the
+ * process alive. Only from the bundle (dist/bundle), where the workers lie beside this module.
+ *
+ * The guess is cheap and may be wrong either way: it stats the command line's existing paths
+ * (a folder two levels deep, at most EARLY_SCAN_ENTRIES entries) and starts a worker only when
+ * one file reaches the size at which the run would start it (PARALLEL_MIN_BYTES, LANE_MIN_BYTES);
+ * results never depend on it.
+ */
+import { readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { Worker } from 'node:worker_threads';
+import { compiledWorker } from './compiledWorker.js';
+import { PARALLEL_MIN_BYTES } from './io/readInParallel.js';
+import { LANE_MIN_BYTES } from './batch/insightLane.js';
+import { hasEarlyThread, offerEarlyThread } from './earlyWorkers.js';
+
+/** Directory entries the size guess looks at, at most (a large build folder is not walked whole). */
+export const EARLY_SCAN_ENTRIES = 2000;
+
+
+
+/**
+ * Start the early workers an `analyze` command line suggests (none for any other command, with
+ * --jobs 1, or when this module does not run from the bundle).
+ */
+export function startEarlyThreads(argv: readonly string[]): void {
+  const plan = earlyPlan(argv);
+  if (plan.range) start('rangeWorker.js');
+  if (plan.lane) start('insightWorker.js');
+}
+
+/** Which early workers a command line suggests: the second reading thread, the insight lane. */
+export function earlyPlan(argv: readonly string[]): { range: boolean; lane: boolean } {
+  if (argv[0] !== 'analyze' || jobsIsOne(argv)) return { range: false, lane: false };
+  const largest = largestFile(argv.slice(1).filter((a) => !a.startsWith('-')));
+  return { range: largest >= PARALLEL_MIN_BYTES, lane: largest >= LANE_MIN_BYTES && !argv.includes('--core-only') };
+}
+
+function start(name: string): void {
+  const script = compiledWorker(import.meta.url, name);
+  if (script === null || hasEarlyThread(script)) return;
+  try {
+    offerEarlyThread(script, new Worker(script, { workerData: null }));
+  } catch {
+    // The run starts its own worker (or reads on one thread), as without this module.
+  }
+}
+
+function jobsIsOne(argv: readonly string[]): boolean {
+  const i = argv.indexOf('--jobs');
+  return argv.includes('--jobs=1') || (i >= 0 && argv[i + 1] === '1');
+}
+
+/** Size of the largest file among `paths` and the files up to two folder levels below them. */
+function largestFile(paths: string[]): number {
+  let largest = 0;
+  let budget = EARLY_SCAN_ENTRIES;
+  const visit = (p: string, depth: number): void => {
+    if (budget-- <= 0) return;
+    try {
+      const st = statSync(p);
+      if (st.isFile()) largest = Math.max(largest, st.size);
+      else if (st.isDirectory() && depth < 2) for (const name of readdirSync(p)) visit(path.join(p, name), depth + 1);
+    } catch {
+      // Not a path (an option's value) or unreadable: the run reports what matters.
+    }
+  };
+  for (const p of paths) visit(p, 0);
+  return largest;
+}
