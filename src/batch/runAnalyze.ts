@@ -215,20 +215,17 @@ function collidingGroups(outputs: TaskOutput[]): string[][] {
 }
 
 /** Errors to stderr, the verdict table (or results.json with --json) to stdout, and the exit code. */
-function tellUser(run: Run, assembled: AssembledResults, written: { pdfNames: string[]; json: string }): { results: ResultsFile; exitCode: 0 | 1 | 2 } {
-  const { opts, output, reference } = run.plan;
+function tellUser(run: Run, assembled: AssembledResults, written: { files: string[]; json: string }): { results: ResultsFile; exitCode: 0 | 1 | 2 } {
+  const { opts, reference } = run.plan;
   const { results, referenceProblem } = assembled;
-  const { pdfNames, json } = written;
+  const { files, json } = written;
   run.progress.clear();
   for (const e of results.errors) run.io.stderr(`spherecov: ${formatError(e)}\n`);
   // A --reference that only the files' contents could name, and they did not: a usage error.
   const referenceMissing = reference.afterReading && referenceProblem !== null;
   if (referenceMissing) run.io.stderr(`spherecov: ${referenceProblem}\n`);
   if (opts.json) run.io.stdout(json);
-  else if (!opts.quiet) {
-    const written = ['results.json', 'summary.csv', 'build-stats.csv', ...(output.pdf ? ['summary.pdf', ...pdfNames] : [])];
-    run.io.stdout(consoleTable(results, written, opts.outDir));
-  }
+  else if (!opts.quiet) run.io.stdout(consoleTable(results, files, opts.outDir));
   return { results, exitCode: referenceMissing ? 2 : exitCode(results, opts.failOn ?? []) };
 }
 

@@ -27,9 +27,10 @@ export interface OutputRun {
 
 /**
  * Write every output; results.json last.
- * @returns the unit PDFs' names and the text of results.json (for --json)
+ * @returns the files written, in the order the console names them (results.json, the CSVs, the
+ *   PDFs, viewer.html), and the text of results.json (for --json)
  */
-export async function writeOutputs(run: OutputRun, assembled: AssembledResults, referencePatterns: ReferencePattern[] | undefined): Promise<{ pdfNames: string[]; json: string }> {
+export async function writeOutputs(run: OutputRun, assembled: AssembledResults, referencePatterns: ReferencePattern[] | undefined): Promise<{ files: string[]; json: string }> {
   const { results } = assembled;
   const { output, limitSet, metrics } = run.plan;
   const write = async (name: string, data: string | Uint8Array): Promise<void> => {
@@ -56,7 +57,8 @@ export async function writeOutputs(run: OutputRun, assembled: AssembledResults, 
   // results.json last: its presence (with this run's generatedAt) marks a finished run.
   await write('results.json', json);
   await run.writer.finish();
-  return { pdfNames, json };
+  const files = ['results.json', 'summary.csv', 'build-stats.csv', ...(output.pdf ? ['summary.pdf', ...pdfNames] : []), ...(output.viewer ? ['viewer.html'] : [])];
+  return { files, json };
 }
 
 /** File stem of each unit's PDF: unit, frequency, and the quantity of a receive report whose unit was also measured transmitting. */

@@ -6,7 +6,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { ensureBuilt, ROOT } from './buildOnce.js';
@@ -74,7 +74,10 @@ describe('a build with an unreadable unit (fixtures/cli/unreadable: U-02 has an 
     expect(r.stdout).toContain('3 unit(s) in the build: 2 passed, 0 failed, 0 not judged, 1 could not be read or analyzed.');
     expect(r.stdout).toContain('Yield: 2 of 3 (66.7 %) units in the build passed; 2 of 2 (100.0 %) judged units passed.');
     expect(r.stdout).toContain("U-02 not analyzed: U-02/U-02_beam1_28GHz.csv:5:8: eirp_dbm: found 'n/a', expected a number");
-    expect(r.stdout).toContain('Wrote results.json, summary.csv, build-stats.csv, summary.pdf, U-01_28GHz.pdf, U-03_28GHz.pdf in ');
+    expect(r.stdout).toContain('Wrote results.json, summary.csv, build-stats.csv, summary.pdf, U-01_28GHz.pdf, U-03_28GHz.pdf, viewer.html in ');
+    // The line names exactly the files the run left in the output folder (besides its own manifest).
+    const named = (/^Wrote (.*) in /m.exec(r.stdout) as RegExpExecArray)[1].split(', ').sort();
+    expect(readdirSync(out).filter((f) => !f.startsWith('.')).sort()).toEqual(named);
   });
 
   it('summary.pdf shows the unit as ERROR with its location, and the yield against the build', async () => {

@@ -45,6 +45,9 @@ describe('README', () => {
     expect(r.stdout).toMatch(/^RV28-P1-004\s+28\.000 GHz\s+FAIL\s/m);
     // The closing line names every file written.
     expect(r.stdout).toMatch(/^Wrote results\.json, summary\.csv, build-stats\.csv, summary\.pdf, RV28-P1-001_28GHz\.pdf, .* in reports\/demo\/$/m);
+    // …and the README quotes that line as the demo prints it.
+    const wrote = (/^Wrote .*$/m.exec(r.stdout) as RegExpExecArray)[0];
+    expect(README).toContain(`    ${wrote}\n`);
     // The README shows the same table: header and every unit's verdict.
     const rows = r.stdout.split('\n').filter((l) => /^(unit\s|RV28-)/.test(l));
     expect(rows.length).toBeGreaterThan(6);
