@@ -4,6 +4,7 @@ import { KEY_MEMO, lineScanner, type ScanState } from './compiledScan.js';
 import type { RowLocator } from './rowSink.js';
 import { splitLocator } from './rowSink.js';
 import { processTextRow, type TokenContext } from './textRow.js';
+import { wasmReader } from './wasm/wasmScanner.js';
 
 const CHUNK = 1 << 20;
 const NEWLINE = Buffer.from('\n');
@@ -58,12 +59,15 @@ export async function fastTokenize(
     end: () => lazy().end(),
     rowText: () => lazy().rowText(),
   };
-  const scanLines = lineScanner(t.fields.kinds, t.fields.slots, t.delimiter, t.decimalComma, s.halt !== null);
+  // The WebAssembly scanner where there is WebAssembly (no JIT warm-up; its chunk buffers are in
+  // its memory), else the JS one; both follow compiledScan.ts's rules and LineScanner contract.
+  const wasm = wasmReader(t.fields, t.delimiter, t.decimalComma, chunkBytes, s.halt !== null);
+  const scanLines = wasm?.scan ?? lineScanner(t.fields.kinds, t.fields.slots, t.delimiter, t.decimalComma, s.halt !== null);
   const halt = s.halt;
 
   // Double buffering: the next chunk is read (thread pool) while this one is parsed; a line cut
   // by a chunk boundary is stitched from the kept tail and the next chunk's first line.
-  const bufs = [Buffer.allocUnsafe(chunkBytes), Buffer.allocUnsafe(chunkBytes)];
+  const bufs = wasm?.bufs ?? [Buffer.allocUnsafe(chunkBytes), Buffer.allocUnsafe(chunkBytes)];
   let which = 0;
   const readAt = (buf: Buffer, pos: number) => fh.read(buf, 0, Math.max(0, Math.min(chunkBytes, end - pos)), pos);
   let pending = readAt(bufs[0], filePos);
@@ -116,8 +120,13 @@ export async function fastTokenize(
         tail = Buffer.concat([tail, view]);
         continue;
       }
-      // The cut line with its newline (one added after a last line without one).
-      const stitched = Buffer.concat([tail, eof ? NEWLINE : view.subarray(0, nl + 1)]);
+      // The cut line with its newline (one added after a last line without one), in the wasm
+      // memory when it fits, so the wasm scanner takes it too.
+      let stitched: Buffer = Buffer.concat([tail, eof ? NEWLINE : view.subarray(0, nl + 1)]);
+      if (wasm !== null && stitched.length <= wasm.stitch.length) {
+        stitched.copy(wasm.stitch);
+        stitched = wasm.stitch.subarray(0, stitched.length);
+      }
       tail = null;
       if (!lines(stitched, 0, stitched.length)) return { outcome: 'quote', line: s.line };
       i = eof ? 0 : nl + 1;

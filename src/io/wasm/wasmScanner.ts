@@ -1,0 +1,146 @@
+import { KEY_MEMO, lineScanner, type LineScanner, type ScanState } from '../compiledScan.js';
+import type { FieldPlan } from '../fieldPlan.js';
+import { SCAN_WASM_BASE64 } from './scanWasm.js';
+
+/** The few WebAssembly JS-API members used here (the project's lib and @types/node do not declare them). */
+interface WasmApi {
+  Module: new (bytes: Uint8Array) => object;
+  Memory: new (d: { initial: number; maximum: number }) => { buffer: ArrayBuffer };
+  Instance: new (m: object, imports: object) => { exports: Record<string, unknown> };
+}
+interface ScanExports {
+  configure(...args: number[]): number;
+  scan(b: number, i: number, stop: number): number;
+  __heap_base: { value: number };
+}
+
+/** Rows one scan() call may write before JS hands them on (the output area's size). */
+const CAPACITY = 4096;
+/** Why scan() returned (scan.c); the fourth, FULL (1), means: hand the rows on and call again. */
+const END = 0, SLOW = 2, NEWKEY = 3;
+const PAGE = 65536;
+
+let module: object | null | undefined;
+let heapBase = 0;
+
+/** The compiled module, or null where WebAssembly is missing (e.g. node --jitless) or refuses it. */
+function scanModule(): object | null {
+  if (module === undefined) {
+    const api = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
+    try {
+      if (api === undefined) return (module = null);
+      module = new api.Module(Buffer.from(SCAN_WASM_BASE64, 'base64'));
+      // Where the module's own data and stack end (a constant of the build): the reader's areas follow.
+      heapBase = (new api.Instance(module, { env: { memory: new api.Memory({ initial: 1, maximum: 1 }) } }).exports as unknown as ScanExports).__heap_base.value;
+    } catch {
+      module = null;
+    }
+  }
+  return module;
+}
+
+/**
+ * A reader's WebAssembly line scanner and its memory: the two chunk buffers and the stitch area
+ * live in that memory, so a chunk is parsed where it was read, without a copy. The memory never
+ * grows, so the Buffers over it stay valid.
+ */
+export interface WasmReader {
+  /** The chunk buffers (fastTokenize reads into them). */
+  bufs: [Buffer, Buffer];
+  /** Where a line cut by a chunk boundary is copied to be scanned; longer ones go to the JS scanner. */
+  stitch: Buffer;
+  /** A LineScanner (same contract as compiledScan.ts's): wasm over this memory, else the JS scanner. */
+  scan: LineScanner;
+}
+
+/**
+ * A WasmReader for one fastTokenize call (its own instance and memory: about 2 chunks plus
+ * ~150 KiB), or null when WebAssembly is not available, so the caller keeps the JS scanner.
+ * `js` is the JS scanner for the same layout: it reads what the wasm one does not take in
+ * memory (lines longer than the stitch area, keys longer than KEY_MEMO bytes).
+ */
+export function wasmReader(fields: FieldPlan, delimiter: string, decimalComma: boolean, chunkBytes: number, halts: boolean): WasmReader | null {
+  const mod = scanModule();
+  if (mod === null) return null;
+  const api = (globalThis as { WebAssembly?: WasmApi }).WebAssembly as WasmApi;
+  const n = fields.kinds.length, nn = fields.numCount, nk = fields.keyCount;
+  // Layout after the module's own data and stack (__heap_base): 8-aligned areas.
+  const sizes = { kinds: n, slots: 4 * n, memo: nk * KEY_MEMO, memoLen: 4 * nk, memoId: 4 * nk, nums: 8 * nn * CAPACITY, keys: 4 * nk * CAPACITY, start: 4 * CAPACITY, end: 4 * CAPACITY, buf0: chunkBytes, buf1: chunkBytes, stitch: chunkBytes };
+  let at = heapBase;
+  const addr = {} as Record<keyof typeof sizes, number>;
+  for (const [k, size] of Object.entries(sizes) as [keyof typeof sizes, number][]) {
+    at = (at + 7) & ~7;
+    addr[k] = at;
+    at += size;
+  }
+  const pages = Math.ceil(at / PAGE);
+  const memory = new api.Memory({ initial: pages, maximum: pages });
+  const x = new api.Instance(mod, { env: { memory } }).exports as unknown as ScanExports;
+  const mem = memory.buffer;
+  const u8 = new Uint8Array(mem);
+  const i32 = new Int32Array(mem);
+  const f64 = new Float64Array(mem);
+  u8.set(fields.kinds, addr.kinds);
+  i32.set(fields.slots, addr.slots >> 2);
+  i32.fill(-1, addr.memoLen >> 2, (addr.memoLen >> 2) + nk);
+  const res = x.configure(n, addr.kinds, addr.slots, delimiter.charCodeAt(0), decimalComma ? 1 : 0, nn, nk, addr.memo, KEY_MEMO, addr.memoLen, addr.memoId, CAPACITY, addr.nums, addr.keys, addr.start, addr.end) >> 2;
+  const js = lineScanner(fields.kinds, fields.slots, delimiter, decimalComma, halts);
+  const numsAt = addr.nums >> 3, keysAt = addr.keys >> 2, startAt = addr.start >> 2, endAt = addr.end >> 2, memoLenAt = addr.memoLen >> 2, memoIdAt = addr.memoId >> 2;
+
+  /**
+   * A key that differs from its slot's memo (compiledScan.ts newKey, which the JS scanner calls
+   * at the same point of the same line): interned trimmed, written to the wasm memo when it fits;
+   * false when it is blank or too long to memo (the caller then leaves the line to the JS scanner).
+   */
+  const newKey = (b: Buffer, from: number, to: number, s: ScanState, slot: number): boolean => {
+    const text = b.toString('utf8', from, to).trim();
+    if (text === '' || to - from > KEY_MEMO) return false;
+    const id = s.keys.intern(slot, text);
+    u8.set(b.subarray(from, to), addr.memo + slot * KEY_MEMO);
+    i32[memoLenAt + slot] = to - from;
+    i32[memoIdAt + slot] = id;
+    return true;
+  };
+
+  const scan: LineScanner = (b, i, stop, s) => {
+    if (b.buffer !== mem) return js(b, i, stop, s);
+    const nums = s.nums, keyIds = s.keyIds, sink = s.sink, loc = s.loc, halt = s.halt;
+    let line = s.line;
+    for (;;) {
+      const why = x.scan(b.byteOffset, i, stop);
+      const rows = i32[res + 2];
+      const at = i32[res + 1];
+      for (let r = 0; r < rows; r++) {
+        const nb = numsAt + r * nn, kb = keysAt + r * nk;
+        for (let k = 0; k < nn; k++) nums[k] = f64[nb + k];
+        for (let k = 0; k < nk; k++) keyIds[k] = i32[kb + k];
+        s.rowBuf = b; s.rowStart = i32[startAt + r]; s.rowEnd = i32[endAt + r]; s.rowChanged = true;
+        sink.row(line, nums, keyIds, loc);
+        line++;
+        if (halt !== null && halt.now) {
+          s.line = line;
+          return r + 1 < rows ? i32[startAt + r + 1] : at;
+        }
+      }
+      i = at;
+      if (why === END || why === SLOW) break;
+      if (why === NEWKEY) {
+        const slot = i32[res + 3], from = i32[res + 4], to = i32[res + 5];
+        if (!newKey(b, from, to, s, slot)) {
+          // Blank (the text routine reports it) or longer than the memo: this line is the JS scanner's.
+          s.line = line;
+          const nl = b.indexOf(10, i);
+          const j = js(b, i, nl + 1, s);
+          line = s.line;
+          if (j <= nl || (halt !== null && halt.now)) return j;
+          i = j;
+        }
+      }
+      // FULL: hand on and go on.
+    }
+    s.line = line;
+    return i;
+  };
+  const view = (k: 'buf0' | 'buf1' | 'stitch') => Buffer.from(mem, addr[k], sizes[k]);
+  return { bufs: [view('buf0'), view('buf1')], stitch: view('stitch'), scan };
+}
