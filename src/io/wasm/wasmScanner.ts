@@ -64,8 +64,9 @@ export function wasmReader(fields: FieldPlan, delimiter: string, decimalComma: b
   if (mod === null) return null;
   const api = (globalThis as { WebAssembly?: WasmApi }).WebAssembly as WasmApi;
   const n = fields.kinds.length, nn = fields.numCount, nk = fields.keyCount;
-  // Layout after the module's own data and stack (__heap_base): 8-aligned areas.
-  const sizes = { kinds: n, slots: 4 * n, memo: nk * KEY_MEMO, memoLen: 4 * nk, memoId: 4 * nk, nums: 8 * nn * CAPACITY, keys: 4 * nk * CAPACITY, start: 4 * CAPACITY, end: 4 * CAPACITY, buf0: chunkBytes, buf1: chunkBytes, stitch: chunkBytes };
+  // Layout after the module's own data and stack (__heap_base): 8-aligned areas; the spare bytes
+  // at the end are read, never used, by scan.c's 8-byte loads past a buffer's last line.
+  const sizes = { kinds: n, slots: 4 * n, memo: nk * KEY_MEMO, memoLen: 4 * nk, memoId: 4 * nk, nums: 8 * nn * CAPACITY, keys: 4 * nk * CAPACITY, start: 4 * CAPACITY, end: 4 * CAPACITY, buf0: chunkBytes, buf1: chunkBytes, stitch: chunkBytes, spare: 16 };
   let at = heapBase;
   const addr = {} as Record<keyof typeof sizes, number>;
   for (const [k, size] of Object.entries(sizes) as [keyof typeof sizes, number][]) {
@@ -102,45 +103,74 @@ export function wasmReader(fields: FieldPlan, delimiter: string, decimalComma: b
     return true;
   };
 
+  const deliver = rowDeliverer(nn, nk, halts);
   const scan: LineScanner = (b, i, stop, s) => {
     if (b.buffer !== mem) return js(b, i, stop, s);
-    const nums = s.nums, keyIds = s.keyIds, sink = s.sink, loc = s.loc, halt = s.halt;
-    let line = s.line;
+    const halt = s.halt;
     for (;;) {
       const why = x.scan(b.byteOffset, i, stop);
       const rows = i32[res + 2];
       const at = i32[res + 1];
-      for (let r = 0; r < rows; r++) {
-        const nb = numsAt + r * nn, kb = keysAt + r * nk;
-        for (let k = 0; k < nn; k++) nums[k] = f64[nb + k];
-        for (let k = 0; k < nk; k++) keyIds[k] = i32[kb + k];
-        s.rowBuf = b; s.rowStart = i32[startAt + r]; s.rowEnd = i32[endAt + r]; s.rowChanged = true;
-        sink.row(line, nums, keyIds, loc);
-        line++;
-        if (halt !== null && halt.now) {
-          s.line = line;
-          return r + 1 < rows ? i32[startAt + r + 1] : at;
-        }
-      }
+      const handed = deliver(rows, b, s, f64, i32, numsAt, keysAt, startAt, endAt);
+      if (handed < rows) return i32[startAt + handed];
+      if (halt !== null && halt.now) return at;
       i = at;
       if (why === END || why === SLOW) break;
       if (why === NEWKEY) {
         const slot = i32[res + 3], from = i32[res + 4], to = i32[res + 5];
         if (!newKey(b, from, to, s, slot)) {
           // Blank (the text routine reports it) or longer than the memo: this line is the JS scanner's.
-          s.line = line;
           const nl = b.indexOf(10, i);
           const j = js(b, i, nl + 1, s);
-          line = s.line;
           if (j <= nl || (halt !== null && halt.now)) return j;
           i = j;
         }
       }
       // FULL: hand on and go on.
     }
-    s.line = line;
     return i;
   };
   const view = (k: 'buf0' | 'buf1' | 'stitch') => Buffer.from(mem, addr[k], sizes[k]);
   return { bufs: [view('buf0'), view('buf1')], stitch: view('stitch'), scan };
+}
+
+/** Hands `rows` parsed rows to the sink; returns how many (fewer when the sink halted the read). */
+type RowDeliverer = (rows: number, b: Buffer, s: ScanState, f64: Float64Array, i32: Int32Array, numsAt: number, keysAt: number, startAt: number, endAt: number) => number;
+
+const deliverers = new Map<string, RowDeliverer>();
+
+/**
+ * The loop that copies each parsed row from the wasm output area into the row arrays and calls
+ * sink.row, compiled once per (numbers, keys, halts) like compiledScan.ts's scanners and for the
+ * same reason: straight-line copies, and a sink.row call site that sees one sink in a run, so
+ * V8 inlines it (a shared loop measured ~25 ns a row, as much as the wasm parse). Only integers
+ * enter the source.
+ */
+function rowDeliverer(nn: number, nk: number, halts: boolean): RowDeliverer {
+  const key = `${nn}|${nk}|${halts ? 1 : 0}`;
+  let d = deliverers.get(key);
+  if (d === undefined) {
+    const copy = [
+      ...Array.from({ length: nn }, (_, k) => `nums[${k}] = f64[numsAt + ${k}];`),
+      ...Array.from({ length: nk }, (_, k) => `keyIds[${k}] = i32[keysAt + ${k}];`),
+    ].join(' ');
+    // eslint-disable-next-line @typescript-eslint/no-implied-eval -- integers only (see above)
+    d = new Function(`return function deliverRows(rows, b, s, f64, i32, numsAt, keysAt, startAt, endAt) {
+  const nums = s.nums, keyIds = s.keyIds, sink = s.sink, loc = s.loc${halts ? ', halt = s.halt' : ''};
+  let line = s.line, r = 0;
+  s.rowBuf = b;
+  while (r < rows) {
+    ${copy}
+    numsAt += ${nn}; keysAt += ${nk};
+    s.rowStart = i32[startAt + r]; s.rowEnd = i32[endAt + r]; s.rowChanged = true;
+    sink.row(line, nums, keyIds, loc);
+    line++; r++;
+    ${halts ? 'if (halt.now) break;' : ''}
+  }
+  s.line = line;
+  return r;
+};`)() as RowDeliverer;
+    deliverers.set(key, d);
+  }
+  return d;
 }
