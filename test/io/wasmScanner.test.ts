@@ -8,9 +8,11 @@ import { lineScanner, type LineScanner, type ScanState } from '../../src/io/comp
 import { addField, fieldPlan, KEY, NUM, SKIP, type FieldPlan } from '../../src/io/fieldPlan.js';
 import { KeyTable } from '../../src/io/keyTable.js';
 import type { RowLocator } from '../../src/io/rowSink.js';
+import { readExportFile } from '../../src/io/readExportFile.js';
 import { wasmReader } from '../../src/io/wasm/wasmScanner.js';
 
 const ROOT = path.resolve(import.meta.dirname, '..', '..');
+const FIXTURES = path.join(ROOT, 'fixtures');
 
 /** Both tools of scripts/build-wasm.sh, or null: the rebuild check then skips (CI needs no C compiler). */
 function tools(): string | null {
@@ -165,5 +167,28 @@ describe('the WebAssembly scanner does what the JS scanner does (compiledScan.ts
       }),
       { seed: 11, numRuns: 400 },
     );
+  });
+});
+
+describe('without WebAssembly the fast path reads with the JS scanner', () => {
+  it('node --jitless (no WebAssembly object) reads fixtures/io/long.csv and a bad fixture as with WebAssembly (runs dist/)', async () => {
+    // dist/, like test/io/readInParallel.test.ts: a child Node cannot run the .ts sources.
+    const files = [path.join(FIXTURES, 'io', 'long.csv'), path.join(FIXTURES, 'bad', 'non_numeric.csv')];
+    const script = `const { readExportFile } = await import(${JSON.stringify(path.join(ROOT, 'dist', 'io', 'readExportFile.js'))});
+      const out = [];
+      for (const f of ${JSON.stringify(files)}) {
+        const r = await readExportFile(f, { inputRoot: ${JSON.stringify(FIXTURES)}, parser: 'fast', chunkBytes: 64 });
+        out.push({ sha256: r.sha256, errors: r.errors, beams: r.beams.map((b) => [b.beam, Array.from(b.values)]) });
+      }
+      console.log(JSON.stringify({ wasm: typeof WebAssembly, out }));`;
+    const child = JSON.parse(execFileSync(process.execPath, ['--jitless', '--input-type=module', '-e', script], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'] })) as { wasm: string; out: unknown[] };
+    expect(child.wasm).toBe('undefined');
+    const here = [];
+    for (const f of files) {
+      const r = await readExportFile(f, { inputRoot: FIXTURES, parser: 'fast', chunkBytes: 64 });
+      here.push({ sha256: r.sha256, errors: r.errors, beams: r.beams.map((b) => [b.beam, Array.from(b.values)]) });
+    }
+    expect(JSON.parse(JSON.stringify(here))).toEqual(child.out);
+    expect((here[1] as { errors: unknown[] }).errors.length).toBeGreaterThan(0);
   });
 });
