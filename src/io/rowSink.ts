@@ -1,3 +1,5 @@
+import type { RowBlock } from './rowBlock.js';
+
 /** Where a tokenizer's accepted row goes; the locator gives field text and column lazily (error paths). */
 export interface RowLocator {
   /** Field text as written (unquoted). */
@@ -12,6 +14,11 @@ export interface RowLocator {
 
 export interface RowSink {
   row(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void;
+  /**
+   * Optional: consecutive rows in one call, with exactly the effect of row() on each in order.
+   * The WebAssembly fast path uses it when present and nobody asks to halt after a row.
+   */
+  rowBlock?(block: RowBlock): void;
 }
 
 /** Locator over a row split at a delimiter without quotes: column = 1 + characters before the field. */

@@ -63,6 +63,40 @@ export class SampleAccumulator {
     this.n = n + 1;
   }
 
+  /**
+   * push() of `rows` rows laid out from src[at] on, `stride` numbers a row: θ, φ, the value
+   * (θ normalized with + 0, as the per-row path does). The same arrays, and the same switch from
+   * the template's angles to own angles at the first sample that leaves them.
+   */
+  pushRows(src: Float64Array, at: number, stride: number, rows: number): void {
+    let n = this.n;
+    while (n + rows > this.values.length) this.grow();
+    const values = this.values;
+    let r = 0;
+    let o = at;
+    if (this.thetaDeg === null) {
+      const t = this.template as SampleAccumulator;
+      const tt = t.thetaDeg as Float64Array;
+      const tp = t.phiDeg as Float64Array;
+      const tn = t.n;
+      for (; r < rows; r++, o += stride) {
+        if (n >= tn || tt[n] !== src[o] + 0 || tp[n] !== src[o + 1]) break;
+        values[n++] = src[o + 2];
+      }
+      this.n = n;
+      if (r === rows) return;
+      this.materialize();
+    }
+    const th = this.thetaDeg as Float64Array;
+    const ph = this.phiDeg as Float64Array;
+    for (; r < rows; r++, o += stride) {
+      th[n] = src[o] + 0;
+      ph[n] = src[o + 1];
+      values[n++] = src[o + 2];
+    }
+    this.n = n;
+  }
+
   private grow(): void {
     const cap = this.values.length * 2;
     const g = (a: Float64Array, shared = false): Float64Array => {

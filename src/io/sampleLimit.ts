@@ -1,4 +1,5 @@
 import { ErrorList, inputError } from './inputError.js';
+import type { RowBlock } from './rowBlock.js';
 import type { RowLocator, RowSink } from './rowSink.js';
 
 /**
@@ -17,6 +18,8 @@ export const MAX_SAMPLES_PER_FILE = 100_000_000;
 export class SampleLimit implements RowSink {
   private samples = 0;
   private tripped = false;
+  /** Present when the inner sink takes blocks: a block within the limit passes on whole. */
+  readonly rowBlock?: (block: RowBlock) => void;
 
   constructor(
     private readonly inner: RowSink,
@@ -24,7 +27,26 @@ export class SampleLimit implements RowSink {
     private readonly max: number,
     private readonly file: string,
     private readonly errors: ErrorList,
-  ) {}
+  ) {
+    if (typeof inner.rowBlock === 'function') this.rowBlock = (block) => this.block(block);
+  }
+
+  private block(block: RowBlock): void {
+    if (this.tripped) return;
+    const add = block.count * this.perRow;
+    if (this.samples + add <= this.max) {
+      this.samples += add;
+      (this.inner.rowBlock as (block: RowBlock) => void).call(this.inner, block);
+      return;
+    }
+    // The block that crosses the limit: row by row, so the error names the first row over it.
+    const nums = new Float64Array(block.numStride);
+    const keys = new Int32Array(block.keyStride);
+    for (let r = 0; r < block.count && !this.tripped; r++) {
+      block.copyRow(r, nums, keys);
+      this.row(block.line + r, nums, keys, block.locate(r));
+    }
+  }
 
   /** Would `samples` more (another thread's part of the file, readInParallel.ts) stay within the limit? */
   fits(samples: number): boolean {

@@ -5,6 +5,7 @@ import type { DropoutLog } from './dropoutLog.js';
 import { RowAngles } from './rowAngles.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { KeyTable } from '../keyTable.js';
+import type { RowBlock } from '../rowBlock.js';
 import type { RowLocator, RowSink } from '../rowSink.js';
 import { SampleAccumulator, type AccumulatorState } from '../sampleAccumulator.js';
 
@@ -145,6 +146,54 @@ export class LongSink implements RowSink {
       }
     }
     this.anyRow(line, nums, keys, loc);
+  }
+
+  /** Scratch row for the rows of a block that take the general path (anyRow). */
+  private rowNums = new Float64Array(0);
+  private rowKeys = new Int32Array(0);
+
+  /**
+   * A block of rows, with row()'s effect on each: runs of plain rows continuing the last group
+   * (row()'s checks) go to its accumulator in one call, any other row to anyRow.
+   */
+  rowBlock(b: RowBlock): void {
+    const nums = b.nums;
+    const keys = b.keys;
+    const ns = b.numStride;
+    const ks = b.keyStride;
+    const count = b.count;
+    const uk = this.plan.unitKey;
+    const bk = this.plan.beamKey;
+    const thLo = this.thLo, thHi = this.thHi, phLo = this.phLo, phHi = this.phHi, vLo = this.vLo, vHi = this.vHi;
+    let r = 0;
+    while (r < count) {
+      const g0 = this.last;
+      if (g0 !== null) {
+        const uid = g0.unitId;
+        const bid = g0.beamId;
+        let e = r;
+        for (; e < count; e++) {
+          const o = b.numsAt + e * ns;
+          const th = nums[o];
+          const ph = nums[o + 1];
+          const v = nums[o + 2];
+          if (!(th >= thLo && th <= thHi && ph >= phLo && ph <= phHi && v >= vLo && v <= vHi)) break;
+          const q = b.keysAt + e * ks;
+          if (uid !== (uk >= 0 ? keys[q + uk] : -1) || bid !== (bk >= 0 ? keys[q + bk] : -1)) break;
+        }
+        if (e > r) {
+          g0.acc.pushRows(nums, b.numsAt + r * ns, ns, e - r);
+          this.rows += e - r;
+          r = e;
+          continue;
+        }
+      }
+      if (this.rowNums.length !== ns) this.rowNums = new Float64Array(ns);
+      if (this.rowKeys.length !== ks) this.rowKeys = new Int32Array(ks);
+      b.copyRow(r, this.rowNums, this.rowKeys);
+      this.anyRow(b.line + r, this.rowNums, this.rowKeys, b.locate(r));
+      r++;
+    }
   }
 
   private anyRow(line: number, nums: Float64Array, keys: Int32Array, loc: RowLocator): void {

@@ -1,6 +1,7 @@
 import { KEY_MEMO, lineScanner, type LineScanner, type ScanState } from '../compiledScan.js';
 import type { FieldPlan } from '../fieldPlan.js';
 import { SCAN_WASM_BASE64 } from './scanWasm.js';
+import { RowBlock } from '../rowBlock.js';
 
 /** The few WebAssembly JS-API members used here (the project's lib and @types/node do not declare them). */
 interface WasmApi {
@@ -107,11 +108,26 @@ export function wasmReader(fields: FieldPlan, delimiter: string, decimalComma: b
   const scan: LineScanner = (b, i, stop, s) => {
     if (b.buffer !== mem) return js(b, i, stop, s);
     const halt = s.halt;
+    // A sink that takes blocks gets each batch of parsed rows in one call, read straight from the
+    // output area (no copy a row); a run that may halt after a row goes row by row.
+    const block = halt === null && typeof s.sink.rowBlock === 'function' ? new RowBlock(f64, nn, i32, nk, i32, delimiter) : null;
     for (;;) {
       const why = x.scan(b.byteOffset, i, stop);
       const rows = i32[res + 2];
       const at = i32[res + 1];
-      const handed = deliver(rows, b, s, f64, i32, numsAt, keysAt, startAt, endAt);
+      let handed = rows;
+      if (block === null) handed = deliver(rows, b, s, f64, i32, numsAt, keysAt, startAt, endAt);
+      else if (rows > 0) {
+        block.count = rows;
+        block.line = s.line;
+        block.numsAt = numsAt;
+        block.keysAt = keysAt;
+        block.startsAt = startAt;
+        block.endsAt = endAt;
+        block.buf = b;
+        (s.sink.rowBlock as (b: RowBlock) => void).call(s.sink, block);
+        s.line += rows;
+      }
       if (handed < rows) return i32[startAt + handed];
       if (halt !== null && halt.now) return at;
       i = at;
