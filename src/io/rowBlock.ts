@@ -1,13 +1,11 @@
-import { splitLocator, type RowLocator } from './rowSink.js';
+import { splitLocator, type RowBlock, type RowLocator } from './rowSink.js';
 
 /**
- * Consecutive data rows parsed by the fast path, handed to a sink in one call
- * (RowSink.rowBlock) instead of one call a row: row r (0 ≤ r < count) lies on line `line + r`,
- * its numbers at nums[numsAt + r·numStride + slot], its keys at keys[keysAt + r·keyStride + slot],
- * its text at buf[starts[startsAt + r], ends[endsAt + r]). Everything is valid only during the
- * call (the arrays are the WebAssembly scanner's output area), so a sink keeps values, not views.
+ * The RowBlock (src/io/rowSink.ts) over the WebAssembly scanner's output area, reused for every
+ * batch of a read: the scanner sets where this batch's rows lie (row r's text at
+ * buf[bounds[startsAt + r], bounds[endsAt + r])) and hands it to the sink.
  */
-export class RowBlock {
+export class OutputRows implements RowBlock {
   count = 0;
   line = 0;
   numsAt = 0;

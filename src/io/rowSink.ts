@@ -1,5 +1,3 @@
-import type { RowBlock } from './rowBlock.js';
-
 /** Where a tokenizer's accepted row goes; the locator gives field text and column lazily (error paths). */
 export interface RowLocator {
   /** Field text as written (unquoted). */
@@ -10,6 +8,27 @@ export interface RowLocator {
   end(): number;
   /** The row as written. */
   rowText(): string;
+}
+
+/**
+ * Consecutive data rows parsed by the fast path, handed to a sink in one call (RowSink.rowBlock):
+ * row r (0 ≤ r < count) lies on line `line + r`, its numbers at nums[numsAt + r·numStride + slot],
+ * its keys at keys[keysAt + r·keyStride + slot]. Valid only during the call (the arrays are the
+ * WebAssembly scanner's output area): a sink keeps values, not views. Made by src/io/rowBlock.ts.
+ */
+export interface RowBlock {
+  readonly count: number;
+  readonly line: number;
+  readonly nums: Float64Array;
+  readonly numsAt: number;
+  readonly numStride: number;
+  readonly keys: Int32Array;
+  readonly keysAt: number;
+  readonly keyStride: number;
+  /** Row r's numbers and keys copied into the per-row interface's arrays. */
+  copyRow(r: number, nums: Float64Array, keys: Int32Array): void;
+  /** Row r's locator, valid until the next call (split only when asked: error paths). */
+  locate(r: number): RowLocator;
 }
 
 export interface RowSink {

@@ -1,6 +1,5 @@
 import { ErrorList, inputError } from './inputError.js';
-import type { RowBlock } from './rowBlock.js';
-import type { RowLocator, RowSink } from './rowSink.js';
+import type { RowBlock, RowLocator, RowSink } from './rowSink.js';
 
 /**
  * Most samples (rows × value columns) one file may hold: 10⁸ samples are 800 MB of float64

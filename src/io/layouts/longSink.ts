@@ -5,8 +5,7 @@ import type { DropoutLog } from './dropoutLog.js';
 import { RowAngles } from './rowAngles.js';
 import { ErrorList, inputError } from '../inputError.js';
 import type { KeyTable } from '../keyTable.js';
-import type { RowBlock } from '../rowBlock.js';
-import type { RowLocator, RowSink } from '../rowSink.js';
+import type { RowBlock, RowLocator, RowSink } from '../rowSink.js';
 import { SampleAccumulator, type AccumulatorState } from '../sampleAccumulator.js';
 
 

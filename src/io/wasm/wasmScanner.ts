@@ -1,7 +1,8 @@
 import { KEY_MEMO, lineScanner, type LineScanner, type ScanState } from '../compiledScan.js';
 import type { FieldPlan } from '../fieldPlan.js';
 import { SCAN_WASM_BASE64 } from './scanWasm.js';
-import { RowBlock } from '../rowBlock.js';
+import { OutputRows } from '../rowBlock.js';
+import type { RowBlock } from '../rowSink.js';
 
 /** The few WebAssembly JS-API members used here (the project's lib and @types/node do not declare them). */
 interface WasmApi {
@@ -110,7 +111,7 @@ export function wasmReader(fields: FieldPlan, delimiter: string, decimalComma: b
     const halt = s.halt;
     // A sink that takes blocks gets each batch of parsed rows in one call, read straight from the
     // output area (no copy a row); a run that may halt after a row goes row by row.
-    const block = halt === null && typeof s.sink.rowBlock === 'function' ? new RowBlock(f64, nn, i32, nk, i32, delimiter) : null;
+    const block = halt === null && typeof s.sink.rowBlock === 'function' ? new OutputRows(f64, nn, i32, nk, i32, delimiter) : null;
     for (;;) {
       const why = x.scan(b.byteOffset, i, stop);
       const rows = i32[res + 2];
