@@ -21,6 +21,7 @@ import { compiledWorker } from './compiledWorker.js';
 import { PARALLEL_MIN_BYTES } from './io/readInParallel.js';
 import { LANE_MIN_BYTES } from './batch/insightLane.js';
 import { hasEarlyThread, offerEarlyThread } from './earlyWorkers.js';
+import { OPTIONS, type OptionSpec } from './cli/options.js';
 
 /** Directory entries the size guess looks at, at most (a large build folder is not walked whole). */
 export const EARLY_SCAN_ENTRIES = 2000;
@@ -54,9 +55,13 @@ function start(name: string): void {
   }
 }
 
+const JOBS = OPTIONS.find((o) => o.name === 'jobs') as OptionSpec;
+
+/** `--jobs 1` in any spelling commander takes: --jobs 1, --jobs=1, -j 1, -j1 (the short flag from cli/options.ts). */
 function jobsIsOne(argv: readonly string[]): boolean {
-  const i = argv.indexOf('--jobs');
-  return argv.includes('--jobs=1') || (i >= 0 && argv[i + 1] === '1');
+  const long = `--${JOBS.name}`;
+  const short = JOBS.short === undefined ? null : `-${JOBS.short}`;
+  return argv.some((a, i) => a === `${long}=1` || (short !== null && a === `${short}1`) || ((a === long || a === short) && argv[i + 1] === '1'));
 }
 
 /** Size of the largest file among `paths` and the files up to two folder levels below them. */

@@ -35,6 +35,9 @@ describe('earlyPlan', () => {
     expect(earlyPlan(['inspect', big])).toEqual({ range: false, lane: false });
     expect(earlyPlan(['analyze', big, '--jobs', '1'])).toEqual({ range: false, lane: false });
     expect(earlyPlan(['analyze', big, '--jobs=1'])).toEqual({ range: false, lane: false });
+    expect(earlyPlan(['analyze', '-j', '1', big])).toEqual({ range: false, lane: false });
+    expect(earlyPlan(['analyze', big, '-j1'])).toEqual({ range: false, lane: false });
+    expect(earlyPlan(['analyze', big, '-j', '2'])).toEqual({ range: true, lane: true });
     expect(earlyPlan(['analyze', path.join(dir, 'nowhere')])).toEqual({ range: false, lane: false });
     expect(earlyPlan(['analyze', big, '--core-only'])).toEqual({ range: true, lane: false });
   });
