@@ -1,8 +1,7 @@
 import type { FileHandle } from 'node:fs/promises';
 import type { Hash } from 'node:crypto';
 import { KEY_MEMO, lineScanner, type ScanState } from './compiledScan.js';
-import type { RowLocator } from './rowSink.js';
-import { splitLocator } from './rowSink.js';
+import { RowBytesLocator, splitLocator, type RowLocator } from './rowSink.js';
 import { processTextRow, type TokenContext } from './textRow.js';
 import { wasmReader } from './wasm/wasmScanner.js';
 
@@ -11,14 +10,11 @@ const NEWLINE = Buffer.from('\n');
 
 /**
  * Streaming byte-level reader for plain numeric rows: reads the file in 1 MiB chunks into two
- * alternating buffers (the next read overlaps parsing), splits lines with memchr-speed `indexOf`, parses numbers from the bytes, and
- * hands every row it does not fully understand (spaces, NaN, exotic numbers, wrong field count)
- * to the shared text routine, so results equal the general path's exactly.
- *
- * Numbers: up to 15 significant digits and a decimal exponent within ±22 are computed as
- * m·10^e or m/10^−e, both exact operands, so the single rounding gives the correctly rounded
- * double, the same as Number(text) (IEEE 754 §4.3 correct rounding of ×, ÷); anything else
- * goes through Number(text).
+ * alternating buffers (the next read overlaps parsing) and hands each chunk's whole lines to a
+ * line scanner (the WebAssembly one where there is WebAssembly, else the JS one; the number
+ * rule and what counts as plain are compiledScan.ts's); every line a scanner does not fully
+ * understand (spaces, NaN, exotic numbers, wrong field count) goes to the shared text routine,
+ * so results equal the general path's exactly.
  *
  * Memory: the chunk buffer plus the sink's arrays; the text is never held whole. Hashes every
  * byte it reads into `hash`. Ends 'quote' (having consumed nothing irrevocable but the sink's rows)
@@ -44,20 +40,20 @@ export async function fastTokenize(
     memoLen: new Int32Array(keyCount).fill(-1), memoId: new Int32Array(keyCount).fill(-1),
     rowBuf: Buffer.alloc(0), rowStart: 0, rowEnd: 0, rowChanged: false,
   };
-  // The row handed to the sink, split lazily (only error paths ask).
-  let cached: RowLocator | null = null;
-  const lazy = (): RowLocator => {
-    if (s.rowChanged || cached === null) {
-      cached = splitLocator(s.rowBuf.toString('utf8', s.rowStart, s.rowEnd).split(t.delimiter), t.delimiter);
+  // The row handed to the sink (the scanners set where it lies), split only when asked.
+  const rowLoc = new RowBytesLocator(t.delimiter);
+  const current = (): RowLocator => {
+    if (s.rowChanged) {
+      rowLoc.at(s.rowBuf, s.rowStart, s.rowEnd);
       s.rowChanged = false;
     }
-    return cached;
+    return rowLoc;
   };
   s.loc = {
-    text: (f: number) => lazy().text(f),
-    col: (f: number) => lazy().col(f),
-    end: () => lazy().end(),
-    rowText: () => lazy().rowText(),
+    text: (f: number) => current().text(f),
+    col: (f: number) => current().col(f),
+    end: () => current().end(),
+    rowText: () => current().rowText(),
   };
   // The WebAssembly scanner where there is WebAssembly (no JIT warm-up; its chunk buffers are in
   // its memory), else the JS one; both follow compiledScan.ts's rules and LineScanner contract.

@@ -1,38 +1,32 @@
-import { splitLocator, type RowBlock, type RowLocator } from './rowSink.js';
+import { RowBytesLocator, type RowBlock, type RowLocator } from './rowSink.js';
 
 /**
- * The RowBlock (src/io/rowSink.ts) over the WebAssembly scanner's output area, reused for every
- * batch of a read: the scanner sets where this batch's rows lie (row r's text at
- * buf[bounds[startsAt + r], bounds[endsAt + r])) and hands it to the sink.
+ * The RowBlock (src/io/rowSink.ts) over the WebAssembly scanner's output area, one for a whole
+ * read: the areas' places are fixed; each batch sets how many rows, their first line and the
+ * buffer their text lies in (row r's text at buf[bounds[startsAt + r], bounds[endsAt + r])).
  */
 export class OutputRows implements RowBlock {
   count = 0;
   line = 0;
-  numsAt = 0;
-  keysAt = 0;
-  startsAt = 0;
-  endsAt = 0;
   buf: Buffer = Buffer.alloc(0);
-  private row = -1;
-  private split: RowLocator | null = null;
-  private readonly lazy: RowLocator = {
-    text: (f: number) => this.fields().text(f),
-    col: (f: number) => this.fields().col(f),
-    end: () => this.fields().end(),
-    rowText: () => this.fields().rowText(),
-  };
+  private readonly loc: RowBytesLocator;
 
   constructor(
     readonly nums: Float64Array,
+    readonly numsAt: number,
     readonly numStride: number,
     readonly keys: Int32Array,
+    readonly keysAt: number,
     readonly keyStride: number,
-    /** Row starts and ends (in `buf`); the same array may hold both at different offsets. */
-    readonly bounds: Int32Array,
-    private readonly delimiter: string,
-  ) {}
+    /** Row starts and ends (in `buf`): starts from startsAt on, ends from endsAt on. */
+    private readonly bounds: Int32Array,
+    private readonly startsAt: number,
+    private readonly endsAt: number,
+    delimiter: string,
+  ) {
+    this.loc = new RowBytesLocator(delimiter);
+  }
 
-  /** Row r's numbers and keys copied into the per-row interface's arrays. */
   copyRow(r: number, nums: Float64Array, keys: Int32Array): void {
     const n0 = this.numsAt + r * this.numStride;
     const k0 = this.keysAt + r * this.keyStride;
@@ -40,22 +34,7 @@ export class OutputRows implements RowBlock {
     for (let k = 0; k < this.keyStride; k++) keys[k] = this.keys[k0 + k];
   }
 
-  /**
-   * Row r's locator, split only when asked (error paths): one object, rebound on every call, so
-   * it is valid until the next call, like the per-row interface's.
-   */
   locate(r: number): RowLocator {
-    this.row = r;
-    this.split = null;
-    return this.lazy;
-  }
-
-  private fields(): RowLocator {
-    if (this.split === null) {
-      const r = this.row;
-      const text = this.buf.toString('utf8', this.bounds[this.startsAt + r], this.bounds[this.endsAt + r]);
-      this.split = splitLocator(text.split(this.delimiter), this.delimiter);
-    }
-    return this.split;
+    return this.loc.at(this.buf, this.bounds[this.startsAt + r], this.bounds[this.endsAt + r]);
   }
 }

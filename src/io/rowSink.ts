@@ -40,6 +40,49 @@ export interface RowSink {
   rowBlock?(block: RowBlock): void;
 }
 
+/**
+ * A RowLocator over the bytes of one row (no quotes), split at the delimiter only when asked
+ * (error paths); at() points it at another row and returns it, so one object serves a whole read.
+ */
+export class RowBytesLocator implements RowLocator {
+  private buf: Buffer = Buffer.alloc(0);
+  private from = 0;
+  private to = 0;
+  private split: RowLocator | null = null;
+
+  constructor(private readonly delimiter: string) {}
+
+  /** The row at buf[from, to) (without its line break). */
+  at(buf: Buffer, from: number, to: number): this {
+    this.buf = buf;
+    this.from = from;
+    this.to = to;
+    this.split = null;
+    return this;
+  }
+
+  text(field: number): string {
+    return this.fields().text(field);
+  }
+
+  col(field: number): number {
+    return this.fields().col(field);
+  }
+
+  end(): number {
+    return this.fields().end();
+  }
+
+  rowText(): string {
+    return this.fields().rowText();
+  }
+
+  private fields(): RowLocator {
+    this.split ??= splitLocator(this.buf.toString('utf8', this.from, this.to).split(this.delimiter), this.delimiter);
+    return this.split;
+  }
+}
+
 /** Locator over a row split at a delimiter without quotes: column = 1 + characters before the field. */
 export function splitLocator(fields: string[], delimiter: string): RowLocator {
   return {

@@ -106,25 +106,22 @@ export function wasmReader(fields: FieldPlan, delimiter: string, decimalComma: b
   };
 
   const deliver = rowDeliverer(nn, nk, halts);
+  // A sink that takes blocks gets each batch of parsed rows in one call, read straight from the
+  // output area (no copy a row); a read that may halt after a row goes row by row.
+  const block = halts ? null : new OutputRows(f64, numsAt, nn, i32, keysAt, nk, i32, startAt, endAt, delimiter);
   const scan: LineScanner = (b, i, stop, s) => {
     if (b.buffer !== mem) return js(b, i, stop, s);
     const halt = s.halt;
-    // A sink that takes blocks gets each batch of parsed rows in one call, read straight from the
-    // output area (no copy a row); a run that may halt after a row goes row by row.
-    const block = halt === null && typeof s.sink.rowBlock === 'function' ? new OutputRows(f64, nn, i32, nk, i32, delimiter) : null;
+    const takesBlocks = block !== null && typeof s.sink.rowBlock === 'function';
     for (;;) {
       const why = x.scan(b.byteOffset, i, stop);
       const rows = i32[res + 2];
       const at = i32[res + 1];
       let handed = rows;
-      if (block === null) handed = deliver(rows, b, s, f64, i32, numsAt, keysAt, startAt, endAt);
+      if (!takesBlocks) handed = deliver(rows, b, s, f64, i32, numsAt, keysAt, startAt, endAt);
       else if (rows > 0) {
         block.count = rows;
         block.line = s.line;
-        block.numsAt = numsAt;
-        block.keysAt = keysAt;
-        block.startsAt = startAt;
-        block.endsAt = endAt;
         block.buf = b;
         (s.sink.rowBlock as (b: RowBlock) => void).call(s.sink, block);
         s.line += rows;
