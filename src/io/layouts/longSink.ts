@@ -136,15 +136,25 @@ export class LongSink implements RowSink {
     const ph = nums[1];
     const v = nums[2];
     const g0 = this.last;
-    if (g0 !== null && th >= this.thLo && th <= this.thHi && ph >= this.phLo && ph <= this.phHi && v >= this.vLo && v <= this.vHi) {
-      const p = this.plan;
-      if (g0.unitId === (p.unitKey >= 0 ? keys[p.unitKey] : -1) && g0.beamId === (p.beamKey >= 0 ? keys[p.beamKey] : -1)) {
-        g0.acc.push(th + 0, ph, v); // + 0: θ = −0 is +0, as RowAngles' clamp gives
-        this.rows++;
-        return;
-      }
+    if (g0 !== null && this.continues(g0, nums, 0, keys, 0)) {
+      g0.acc.push(th + 0, ph, v); // + 0: θ = −0 is +0, as RowAngles' clamp gives
+      this.rows++;
+      return;
     }
     this.anyRow(line, nums, keys, loc);
+  }
+
+  /**
+   * Whether the row with θ, φ, value at nums[o…o+2] and its keys from keys[q] is plain (inside
+   * the pass-through ranges) and continues group `g` (same unit and beam): then it only needs a push.
+   */
+  private continues(g: Group, nums: Float64Array, o: number, keys: Int32Array, q: number): boolean {
+    const th = nums[o];
+    const ph = nums[o + 1];
+    const v = nums[o + 2];
+    if (!(th >= this.thLo && th <= this.thHi && ph >= this.phLo && ph <= this.phHi && v >= this.vLo && v <= this.vHi)) return false;
+    const p = this.plan;
+    return g.unitId === (p.unitKey >= 0 ? keys[q + p.unitKey] : -1) && g.beamId === (p.beamKey >= 0 ? keys[q + p.beamKey] : -1);
   }
 
   /** Scratch row for the rows of a block that take the general path (anyRow). */
@@ -153,7 +163,7 @@ export class LongSink implements RowSink {
 
   /**
    * A block of rows, with row()'s effect on each: runs of plain rows continuing the last group
-   * (row()'s checks) go to its accumulator in one call, any other row to anyRow.
+   * (continues(), as in row()) go to its accumulator in one call, any other row to anyRow.
    */
   rowBlock(b: RowBlock): void {
     const nums = b.nums;
@@ -161,25 +171,12 @@ export class LongSink implements RowSink {
     const ns = b.numStride;
     const ks = b.keyStride;
     const count = b.count;
-    const uk = this.plan.unitKey;
-    const bk = this.plan.beamKey;
-    const thLo = this.thLo, thHi = this.thHi, phLo = this.phLo, phHi = this.phHi, vLo = this.vLo, vHi = this.vHi;
     let r = 0;
     while (r < count) {
       const g0 = this.last;
       if (g0 !== null) {
-        const uid = g0.unitId;
-        const bid = g0.beamId;
         let e = r;
-        for (; e < count; e++) {
-          const o = b.numsAt + e * ns;
-          const th = nums[o];
-          const ph = nums[o + 1];
-          const v = nums[o + 2];
-          if (!(th >= thLo && th <= thHi && ph >= phLo && ph <= phHi && v >= vLo && v <= vHi)) break;
-          const q = b.keysAt + e * ks;
-          if (uid !== (uk >= 0 ? keys[q + uk] : -1) || bid !== (bk >= 0 ? keys[q + bk] : -1)) break;
-        }
+        while (e < count && this.continues(g0, nums, b.numsAt + e * ns, keys, b.keysAt + e * ks)) e++;
         if (e > r) {
           g0.acc.pushRows(nums, b.numsAt + r * ns, ns, e - r);
           this.rows += e - r;
