@@ -11,6 +11,6 @@ const { installSignalHandlers } = await import(modules.signals);
 installSignalHandlers();
 // A large analyze gets its worker threads started now, while the CLI loads (src/earlyThreads.ts).
 const { startEarlyThreads } = await import(modules.early);
-startEarlyThreads(process.argv.slice(2));
+await startEarlyThreads(process.argv.slice(2));
 const { main } = await import(modules.main);
 await main(process.argv.slice(2));

@@ -18,8 +18,6 @@ import { readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { compiledWorker } from './compiledWorker.js';
-import { PARALLEL_MIN_BYTES } from './io/readInParallel.js';
-import { LANE_MIN_BYTES } from './batch/insightLane.js';
 import { hasEarlyThread, offerEarlyThread } from './earlyWorkers.js';
 import { OPTIONS, type OptionSpec } from './cli/options.js';
 
@@ -32,16 +30,21 @@ export const EARLY_SCAN_ENTRIES = 2000;
  * Start the early workers an `analyze` command line suggests (none for any other command, with
  * --jobs 1, or when this module does not run from the bundle).
  */
-export function startEarlyThreads(argv: readonly string[]): void {
-  const plan = earlyPlan(argv);
+export async function startEarlyThreads(argv: readonly string[]): Promise<void> {
+  const plan = await earlyPlan(argv);
   if (plan.range) start('rangeWorker.js');
   if (plan.lane) start('insightWorker.js');
 }
 
-/** Which early workers a command line suggests: the second reading thread, the insight lane. */
-export function earlyPlan(argv: readonly string[]): { range: boolean; lane: boolean } {
+/**
+ * Which early workers a command line suggests: the second reading thread, the insight lane. The
+ * size thresholds' modules (the reader's, the lane's) load only for an analyze that may start
+ * one, so other commands (--version, inspect, limits) do not load them at start-up.
+ */
+export async function earlyPlan(argv: readonly string[]): Promise<{ range: boolean; lane: boolean }> {
   if (argv[0] !== 'analyze' || jobsIsOne(argv)) return { range: false, lane: false };
   const largest = largestFile(argv.slice(1).filter((a) => !a.startsWith('-')));
+  const [{ PARALLEL_MIN_BYTES }, { LANE_MIN_BYTES }] = await Promise.all([import('./io/readInParallel.js'), import('./batch/insightLane.js')]);
   return { range: largest >= PARALLEL_MIN_BYTES, lane: largest >= LANE_MIN_BYTES && !argv.includes('--core-only') };
 }
 

@@ -24,28 +24,28 @@ describe('earlyPlan', () => {
   const mid = sized('mid/pattern.csv', LANE_MIN_BYTES);
   const small = sized('small/pattern.csv', LANE_MIN_BYTES - 1);
 
-  it('a large file (given, or two folder levels down) starts both; a mid-size one the lane only', () => {
-    expect(earlyPlan(['analyze', big])).toEqual({ range: true, lane: true });
-    expect(earlyPlan(['analyze', path.join(dir, 'big'), '--out', path.join(dir, 'out')])).toEqual({ range: true, lane: true });
-    expect(earlyPlan(['analyze', '--no-pdf', mid])).toEqual({ range: false, lane: true });
-    expect(earlyPlan(['analyze', small])).toEqual({ range: false, lane: false });
+  it('a large file (given, or two folder levels down) starts both; a mid-size one the lane only', async () => {
+    expect(await earlyPlan(['analyze', big])).toEqual({ range: true, lane: true });
+    expect(await earlyPlan(['analyze', path.join(dir, 'big'), '--out', path.join(dir, 'out')])).toEqual({ range: true, lane: true });
+    expect(await earlyPlan(['analyze', '--no-pdf', mid])).toEqual({ range: false, lane: true });
+    expect(await earlyPlan(['analyze', small])).toEqual({ range: false, lane: false });
   });
 
-  it('none for other commands, --jobs 1, a missing path; no lane with --core-only', () => {
-    expect(earlyPlan(['inspect', big])).toEqual({ range: false, lane: false });
-    expect(earlyPlan(['analyze', big, '--jobs', '1'])).toEqual({ range: false, lane: false });
-    expect(earlyPlan(['analyze', big, '--jobs=1'])).toEqual({ range: false, lane: false });
-    expect(earlyPlan(['analyze', '-j', '1', big])).toEqual({ range: false, lane: false });
-    expect(earlyPlan(['analyze', big, '-j1'])).toEqual({ range: false, lane: false });
-    expect(earlyPlan(['analyze', big, '-j', '2'])).toEqual({ range: true, lane: true });
-    expect(earlyPlan(['analyze', path.join(dir, 'nowhere')])).toEqual({ range: false, lane: false });
-    expect(earlyPlan(['analyze', big, '--core-only'])).toEqual({ range: true, lane: false });
+  it('none for other commands, --jobs 1, a missing path; no lane with --core-only', async () => {
+    expect(await earlyPlan(['inspect', big])).toEqual({ range: false, lane: false });
+    expect(await earlyPlan(['analyze', big, '--jobs', '1'])).toEqual({ range: false, lane: false });
+    expect(await earlyPlan(['analyze', big, '--jobs=1'])).toEqual({ range: false, lane: false });
+    expect(await earlyPlan(['analyze', '-j', '1', big])).toEqual({ range: false, lane: false });
+    expect(await earlyPlan(['analyze', big, '-j1'])).toEqual({ range: false, lane: false });
+    expect(await earlyPlan(['analyze', big, '-j', '2'])).toEqual({ range: true, lane: true });
+    expect(await earlyPlan(['analyze', path.join(dir, 'nowhere')])).toEqual({ range: false, lane: false });
+    expect(await earlyPlan(['analyze', big, '--core-only'])).toEqual({ range: true, lane: false });
   });
 
-  it('looks at no more than EARLY_SCAN_ENTRIES paths', () => {
+  it('looks at no more than EARLY_SCAN_ENTRIES paths', async () => {
     const many = path.join(dir, 'many');
     for (let i = 0; i < EARLY_SCAN_ENTRIES + 5; i++) sized(`many/f${String(i).padStart(5, '0')}.csv`, 1);
     sized('many/zzzz-last.csv', PARALLEL_MIN_BYTES);
-    expect(earlyPlan(['analyze', many]).range).toBe(false);
+    expect((await earlyPlan(['analyze', many])).range).toBe(false);
   });
 });
