@@ -136,7 +136,7 @@ export class LongSink implements RowSink {
     const ph = nums[1];
     const v = nums[2];
     const g0 = this.last;
-    if (g0 !== null && this.continues(g0, nums, 0, keys, 0)) {
+    if (g0 !== null && this.continuing(g0, nums, 0, 0, keys, 0, 0, 1) === 1) {
       g0.acc.push(th + 0, ph, v); // + 0: θ = −0 is +0, as RowAngles' clamp gives
       this.rows++;
       return;
@@ -145,16 +145,24 @@ export class LongSink implements RowSink {
   }
 
   /**
-   * Whether the row with θ, φ, value at nums[o…o+2] and its keys from keys[q] is plain (inside
-   * the pass-through ranges) and continues group `g` (same unit and beam): then it only needs a push.
+   * How many rows, from the one with θ, φ, value at nums[o…o+2] and its keys from keys[q] on
+   * (`ns` numbers and `ks` keys a row, at most `rows`), are plain (inside the pass-through ranges)
+   * and continue group `g` (same unit and beam): each of them only needs a push. The one rule for
+   * row() (one row) and rowBlock(); the ranges and keys are read once, outside the loop.
    */
-  private continues(g: Group, nums: Float64Array, o: number, keys: Int32Array, q: number): boolean {
-    const th = nums[o];
-    const ph = nums[o + 1];
-    const v = nums[o + 2];
-    if (!(th >= this.thLo && th <= this.thHi && ph >= this.phLo && ph <= this.phHi && v >= this.vLo && v <= this.vHi)) return false;
-    const p = this.plan;
-    return g.unitId === (p.unitKey >= 0 ? keys[q + p.unitKey] : -1) && g.beamId === (p.beamKey >= 0 ? keys[q + p.beamKey] : -1);
+  private continuing(g: Group, nums: Float64Array, o: number, ns: number, keys: Int32Array, q: number, ks: number, rows: number): number {
+    const thLo = this.thLo, thHi = this.thHi, phLo = this.phLo, phHi = this.phHi, vLo = this.vLo, vHi = this.vHi;
+    const uk = this.plan.unitKey, bk = this.plan.beamKey;
+    const unitId = g.unitId, beamId = g.beamId;
+    let r = 0;
+    for (; r < rows; r++, o += ns, q += ks) {
+      const th = nums[o];
+      const ph = nums[o + 1];
+      const v = nums[o + 2];
+      if (!(th >= thLo && th <= thHi && ph >= phLo && ph <= phHi && v >= vLo && v <= vHi)) break;
+      if (unitId !== (uk >= 0 ? keys[q + uk] : -1) || beamId !== (bk >= 0 ? keys[q + bk] : -1)) break;
+    }
+    return r;
   }
 
   /** Scratch row for the rows of a block that take the general path (anyRow). */
@@ -163,7 +171,7 @@ export class LongSink implements RowSink {
 
   /**
    * A block of rows, with row()'s effect on each: runs of plain rows continuing the last group
-   * (continues(), as in row()) go to its accumulator in one call, any other row to anyRow.
+   * (continuing(), as in row()) go to its accumulator in one call, any other row to anyRow.
    */
   rowBlock(b: RowBlock): void {
     const nums = b.nums;
@@ -175,8 +183,7 @@ export class LongSink implements RowSink {
     while (r < count) {
       const g0 = this.last;
       if (g0 !== null) {
-        let e = r;
-        while (e < count && this.continues(g0, nums, b.numsAt + e * ns, keys, b.keysAt + e * ks)) e++;
+        const e = r + this.continuing(g0, nums, b.numsAt + r * ns, ns, keys, b.keysAt + r * ks, ks, count - r);
         if (e > r) {
           g0.acc.pushRows(nums, b.numsAt + r * ns, ns, e - r);
           this.rows += e - r;
