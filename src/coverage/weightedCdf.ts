@@ -16,11 +16,12 @@ export interface WeightedCdf {
 /**
  * Solid-angle-weighted CDF: F(v) = Σ w_i [x_i ≤ v] / 4π (Eq. 1; DESIGN.md "CDF").
  *
- * One sort of a Float64Array copy of the values (native numeric sort, the only sort of the
- * measure stage); ties collapse into one step; each point's weight is added to its value's
- * step found by binary search, and the steps are accumulated with a Neumaier running sum.
- * Zero weights are allowed (they add nothing).
- * Cost O(n log n), four typed arrays.
+ * Values with two decimals (the usual export) are ranked without a sort (latticeSteps); others
+ * by one sort of a Float64Array copy of the values (native numeric sort) and a binary search
+ * per point. Either way ties collapse into one step, each point's weight is added to its value's
+ * step in point order, and the steps are accumulated with a Neumaier running sum, so both routes
+ * give the same bits. Zero weights are allowed (they add nothing).
+ * Cost O(n) for two-decimal values, else O(n log n); four or five typed arrays.
  * @throws RangeError when the lengths differ or a value is NaN.
  * @example weightedCdf([3, 1, 3], [1, 2, 1]) // values [1, 3], cumulativeSr [2, 4]
  */
@@ -46,17 +47,28 @@ export function rankedCdf(values: ArrayLike<number>, weightSr: ArrayLike<number>
   return sortedSteps(values, weightSr, true) as RankedCdf;
 }
 
-/** weightedCdf's work, with the step index of each value kept when asked (rankedCdf). */
-function sortedSteps(values: ArrayLike<number>, weightSr: ArrayLike<number>, keepSteps: boolean): WeightedCdf | RankedCdf {
+/**
+ * weightedCdf by its sort route alone, whatever the values: the route for values off the
+ * two-decimal lattice, and the independent oracle the lattice route is tested against
+ * (test/coverage/weightedCdf.test.ts). Same definition, same bits; O(n log n).
+ * @example sortedCdf([3, 1, 3], [1, 2, 1]) // values [1, 3], cumulativeSr [2, 4]
+ */
+export function sortedCdf(values: ArrayLike<number>, weightSr: ArrayLike<number>): WeightedCdf {
+  return sortedSteps(values, weightSr, false, false);
+}
+
+/** weightedCdf's work, with the step index of each value kept when asked (rankedCdf); the lattice route unless `allowLattice` is false. */
+function sortedSteps(values: ArrayLike<number>, weightSr: ArrayLike<number>, keepSteps: boolean, allowLattice = true): WeightedCdf | RankedCdf {
   const n = values.length;
   if (weightSr.length !== n) throw new RangeError(`weightedCdf: ${n} values but ${weightSr.length} weights`);
-  const lattice = keepSteps ? latticeSteps(values) : null;
+  const lattice = allowLattice ? latticeSteps(values) : null;
   if (lattice !== null) {
     const { distinct, stepOf } = lattice;
     const stepSr = new Float64Array(distinct.length);
     const stepComp = new Float64Array(distinct.length);
     for (let i = 0; i < n; i++) neumaierAddAt(stepSr, stepComp, stepOf[i], weightSr[i]);
-    return { ...accumulate(distinct, stepSr, stepComp, null), stepOf };
+    const cdf = accumulate(distinct, stepSr, stepComp, null);
+    return keepSteps ? { ...cdf, stepOf } : cdf;
   }
   const sorted = Float64Array.from(values).sort();
   if (n > 0 && Number.isNaN(sorted[n - 1])) throw new RangeError('weightedCdf: NaN value');
@@ -83,9 +95,10 @@ function sortedSteps(values: ArrayLike<number>, weightSr: ArrayLike<number>, kee
  * has 64,442 values but about a thousand distinct ones): the values on that lattice are counted
  * by k, the few others (merged pole or seam samples) sorted apart and merged in by value. The
  * same distinct values in the same order as sorting all of them, so the same CDF bit for bit.
- * Null (the caller sorts) for an empty pattern, a NaN or −0 (sorting keeps −0 apart from +0's
- * lattice point), ±∞, |v| beyond 1e10, a lattice span over 2n + 1024 steps, or more than n/4
- * values off it.
+ * −0 (an export's "-0.00") shares +0's lattice point, as it shares +0's step when sorted, and
+ * that step's value is then −0, the one sorting puts first (TypedArray sort orders −0 before +0).
+ * Null (the caller sorts) for an empty pattern, a NaN, ±∞, |v| beyond 1e10, a lattice span
+ * over 2n + 1024 steps, or more than n/4 values off it.
  * Cost O(n + span), n log n only for the values off the lattice.
  */
 function latticeSteps(values: ArrayLike<number>): { distinct: Float64Array; stepOf: Int32Array } | null {
@@ -94,9 +107,11 @@ function latticeSteps(values: ArrayLike<number>): { distinct: Float64Array; step
   let kMin = Infinity;
   let kMax = -Infinity;
   let off = 0;
+  let negativeZero = false;
   for (let i = 0; i < n; i++) {
     const v = values[i];
-    if (!(v - v === 0) || (v === 0 && 1 / v < 0)) return null;
+    if (!(v - v === 0)) return null;
+    if (v === 0 && 1 / v < 0) negativeZero = true;
     // ⌊100·v + 0.5⌋ (never −0, which makes an optimized loop bail out) is k for every v = k/100.
     const k = Math.floor(v * 100 + 0.5);
     if (k / 100 !== v) { off++; continue; }
@@ -129,7 +144,7 @@ function latticeSteps(values: ArrayLike<number>): { distinct: Float64Array; step
   let j = 0;
   for (let k = 0; k < span; k++) {
     if (slot[k] !== 0) continue;
-    const v = (k + kMin) / 100;
+    const v = k + kMin === 0 && negativeZero ? -0 : (k + kMin) / 100;
     while (j < oc && others[j] < v) { otherStep[j] = d; distinct[d++] = others[j++]; }
     slot[k] = d;
     distinct[d++] = v;
