@@ -60,6 +60,14 @@ describe('lazyPackage (issue 18: packages load when used)', () => {
       if (r.beams.length === 0) throw new Error('no beams read');
     `);
     for (const p of ['yaml', 'zod', 'd3-geo-voronoi', 'papaparse']) expect(used.has(p), p).toBe(true);
+    // Planning a run that writes PDFs, without a job file, needs neither yaml nor zod: the report
+    // defaults are a constant (src/report/settings.ts).
+    const planned = run(`
+      const { planAnalyze } = await import(${JSON.stringify(path.join(ROOT, 'dist', 'batch', 'analyzePlan.js'))});
+      const plan = await planAnalyze({ input: ${JSON.stringify(path.join(ROOT, 'fixtures', 'cli', 'pass'))}, outDir: (await import('node:os')).tmpdir() + '/spherecov-lazy-plan', percentilesPct: [50], thresholds: [10], pdf: true, force: true });
+      if (!plan.output.report || plan.output.report.title !== 'Spherical coverage report') throw new Error('no report settings planned');
+    `);
+    for (const p of ['yaml', 'zod']) expect(planned.has(p), `planning with PDFs: ${p}`).toBe(false);
     // The insight lane's worker (src/batch/insightWorker.ts) loads no package at all.
     const lane = run(`await import(${JSON.stringify(path.join(ROOT, 'dist', 'batch', 'insightWorker.js'))});`);
     expect([...lane]).toEqual([]);

@@ -15,7 +15,7 @@ import { metricLists } from '../limits/metricNeeds.js';
 import { mergeLimitSets } from '../limits/mergeLimitSets.js';
 import { validateExtraChecks } from '../limits/validateLimitSet.js';
 import type { UncertaintySpec } from '../analysis/uncertainty/uncertaintySpec.js';
-import { loadReportSettings, ReportSettingsError } from '../report/settings.js';
+import { reportSettingsFromChecked, type ReportSettingsOverrides } from '../report/settings.js';
 import type { ReportSettings } from '../report/reportTypes.js';
 import { resolveQuantity } from '../quantity.js';
 import { readTrustedBytes, resolveNamed, TrustedFileError } from '../io/trustedFile.js';
@@ -217,16 +217,13 @@ function planOutput(opts: AnalyzeOptions, outDir: string, job: JobSpec | null): 
   const pageSize = opts.pageSize ?? 'a4';
   let report: ReportSettings | null = null;
   if (pdf) {
-    try {
-      report = loadReportSettings({
-        ...((job?.report ?? {}) as Record<string, unknown>),
-        pageSize: pageSize === 'letter' ? 'Letter' : 'A4',
-        creationDate: generatedAt,
-      });
-    } catch (e) {
-      if (e instanceof ReportSettingsError) throw new RunError(e.message);
-      throw e;
-    }
+    // The job file's block was validated when the job file was read, the page size and date are
+    // built here: merged without loading the settings schema (reportSettingsFromChecked).
+    report = reportSettingsFromChecked({
+      ...((job?.report ?? {}) as ReportSettingsOverrides),
+      pageSize: pageSize === 'letter' ? 'Letter' : 'A4',
+      creationDate: generatedAt,
+    });
     if (report.logo) report = { ...report, logo: logoDataUrl(report.logo, job ? path.dirname(job.source) : process.cwd()) };
   }
   return { outDir, generatedAt, pdf, viewer: opts.viewer ?? pdf, pageSize, report };
