@@ -248,13 +248,31 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
  * large enough) while this thread measures the rest; the same result (computeInsights either
  * way), computed here when the lane fails.
  */
-async function measureUnitOnLanes(m: Measurement, input: MeasureOptions, lane: InsightLane | null): Promise<{ result: UnitResult; tsp: TotalScanPattern }> {
+async function measureUnitOnLanes(m: Measurement, input: MeasureOptions & Pick<TaskInput, 'report'>, lane: InsightLane | null): Promise<{ result: UnitResult; tsp: TotalScanPattern }> {
   const choices = unitChoices(m, input);
   const request = insightRequest(m, input, choices);
   const sent = lane && request && InsightLane.worthIt(request) ? lane.request(request) : null;
   const core = measureCore(m, input, choices);
+  // Waiting for the lane, this thread would idle: the report modules (pdfkit and its fonts, about
+  // 0.1 s) load meanwhile, when the unit's PDF will need them anyway.
+  if (sent && input.report) void reportModules().catch(() => undefined);
   const insights = request ? ((sent ? await sent : null) ?? computeInsights(request, core.computed.tsp)) : null;
   return { result: unitResult(m, input, choices, core, insights), tsp: core.computed.tsp };
+}
+
+let reportModulesLoading: Promise<[typeof import('../report/unitReport.js'), typeof import('../report/thumbnail.js'), typeof import('../report/cdfCurve.js')]> | null = null;
+
+/**
+ * The report modules (pdfkit, fonts), loaded once per thread and only when PDFs are wanted, so
+ * --no-pdf stays lean: on the first unit's PDF (renderUnit), or earlier while this thread waits
+ * for the insight lane (measureUnitOnLanes).
+ */
+function reportModules(): NonNullable<typeof reportModulesLoading> {
+  return (reportModulesLoading ??= Promise.all([
+    import('../report/unitReport.js'),
+    import('../report/thumbnail.js'),
+    import('../report/cdfCurve.js'),
+  ]));
 }
 
 /** The report outputs of one measured unit: PDF, summary thumbnail and CDF curve (none with --no-pdf). */
@@ -268,12 +286,7 @@ export async function renderUnit(
   jointMaps?: JointMaps,
 ): Promise<UnitOutput> {
   if (!input.report) return { result, thumbnail: null, cdf: null, pdf: null };
-  // The report modules (pdfkit, fonts) load only when PDFs are wanted: --no-pdf stays lean.
-  const [{ renderUnitPdf }, { unitMapThumbnail }, { cdfCurve }] = await Promise.all([
-    import('../report/unitReport.js'),
-    import('../report/thumbnail.js'),
-    import('../report/cdfCurve.js'),
-  ]);
+  const [{ renderUnitPdf }, { unitMapThumbnail }, { cdfCurve }] = await reportModules();
   // One CDF curve per unit serves its PDF and the build summary's overlay.
   const cdf = cdfCurve(tsp.values, m.grid.weightSr, m.quantity);
   const buf = await renderUnitPdf(
