@@ -21,8 +21,8 @@ const FOUR_PI = 4 * Math.PI;
  * The steps come from the core's weightedCdf (one step per distinct value, compensated sums);
  * downsampled to ≤ maxPoints by keeping the first step reaching each of maxPoints evenly spaced
  * fraction levels (so the curve keeps its vertical resolution), plus both end points.
- * Cost: O(n log n) (the sort inside weightedCdf; the plot needs this view only, the judged
- * percentiles come from src/coverage).
+ * Cost: O(n) for values with two decimals, else O(n log n) (weightedCdf's routes; the plot
+ * needs this view only, the judged percentiles come from src/coverage).
  * @example cdfCurve(Float64Array.of(1, 2), Float64Array.of(2 * Math.PI, 2 * Math.PI)).fractions // → [0.5, 1]
  */
 export function cdfCurve(values: ArrayLike<number>, weightSr: ArrayLike<number>, quantity: Quantity = 'eirp', maxPoints = 400): CdfCurve {
