@@ -20,6 +20,7 @@ import { statSync } from 'node:fs';
 import { compiledWorker } from '../compiledWorker.js';
 import { takeEarlyThread } from '../earlyWorkers.js';
 import type { InsightRequest, Insights } from './insights.js';
+import type { PackedBeams } from '../report/viewerPack.js';
 
 /**
  * Files of a group below this size (bytes) never start the lane. The lane is decided before the
@@ -47,19 +48,37 @@ function filesBytes(files: string[]): number {
   return total;
 }
 
-interface Reply { id: number; ok: boolean; insights?: Insights; message?: string }
+/** The worker's replies: the insights first, then (when asked) the viewer's packed beams. */
+type Reply = { id: number; ok: boolean; insights?: Insights; message?: string } | { id: number; pack: PackedBeams | null };
+
+/** What one request gives: the insights, and the packed beams when they were asked for (else null at once). */
+export interface LaneAnswer {
+  insights: Promise<Insights | null>;
+  pack: Promise<PackedBeams | null>;
+}
+
+interface Pending {
+  insights: ((r: Insights | null) => void) | null;
+  pack: ((r: PackedBeams | null) => void) | null;
+}
 
 export class InsightLane {
   private next = 0;
-  private readonly pending = new Map<number, (r: Insights | null) => void>();
+  private readonly pending = new Map<number, Pending>();
   private dead = false;
 
   private constructor(private readonly worker: Worker) {
     worker.unref(); // an idle lane never keeps the process alive; a pending request does (request/settle)
-    worker.on('message', (r: Reply) => this.settle(r.id, r.ok && r.insights ? r.insights : null));
+    worker.on('message', (r: Reply) => {
+      if ('pack' in r) this.settle(r.id, 'pack', r.pack);
+      else this.settle(r.id, 'insights', r.ok && r.insights ? r.insights : null);
+    });
     const fail = () => {
       this.dead = true;
-      for (const id of [...this.pending.keys()]) this.settle(id, null);
+      for (const id of [...this.pending.keys()]) {
+        this.settle(id, 'insights', null);
+        this.settle(id, 'pack', null);
+      }
     };
     worker.on('error', fail);
     worker.on('exit', fail);
@@ -82,19 +101,27 @@ export class InsightLane {
     return q.beams.length * q.grid.weightSr.length >= LANE_MIN_WORK;
   }
 
-  /** The insights computed on the lane's thread; null when the lane failed (compute them here). */
-  request(q: InsightRequest): Promise<Insights | null> {
-    if (this.dead) return Promise.resolve(null);
+  /**
+   * The insights computed on the lane's thread; null when the lane failed (compute them here).
+   * With `pack`, the lane then packs the beams for viewer.html too (packBeams, the same bytes as
+   * on this thread), while this thread goes on with the unit's PDF; null when that failed.
+   */
+  request(q: InsightRequest, opts: { pack?: boolean } = {}): LaneAnswer {
+    const pack = opts.pack === true;
+    if (this.dead) return { insights: Promise.resolve(null), pack: Promise.resolve(null) };
     const id = this.next++;
-    return new Promise((resolve) => {
-      this.pending.set(id, resolve);
-      this.worker.ref();
-      try {
-        this.worker.postMessage({ id, request: { ...q, beams: sharedBeams(q.beams) } });
-      } catch {
-        this.settle(id, null);
-      }
-    });
+    const entry: Pending = { insights: null, pack: null };
+    const insights = new Promise<Insights | null>((resolve) => { entry.insights = resolve; });
+    const packed = pack ? new Promise<PackedBeams | null>((resolve) => { entry.pack = resolve; }) : Promise.resolve(null);
+    this.pending.set(id, entry);
+    this.worker.ref();
+    try {
+      this.worker.postMessage({ id, request: { ...q, beams: sharedBeams(q.beams) }, pack });
+    } catch {
+      this.settle(id, 'insights', null);
+      this.settle(id, 'pack', null);
+    }
+    return { insights, pack: packed };
   }
 
   /** Stop the thread (the task is done with it). */
@@ -103,12 +130,14 @@ export class InsightLane {
     void this.worker.terminate();
   }
 
-  private settle(id: number, r: Insights | null): void {
-    const resolve = this.pending.get(id);
-    if (!resolve) return;
-    this.pending.delete(id);
-    if (this.pending.size === 0) this.worker.unref();
+  private settle<K extends keyof Pending>(id: number, part: K, r: Parameters<NonNullable<Pending[K]>>[0]): void {
+    const entry = this.pending.get(id);
+    const resolve = entry?.[part] as ((v: typeof r) => void) | null | undefined;
+    if (!entry || !resolve) return;
+    entry[part] = null;
     resolve(r);
+    if (entry.insights === null && entry.pack === null) this.pending.delete(id);
+    if (this.pending.size === 0) this.worker.unref();
   }
 }
 

@@ -30,6 +30,7 @@ import { gridCountWarnings } from '../analysis/gridAdequacy/gridCountWarnings.js
 import { applyJointChecks, type JointMaps } from './jointChecks.js';
 import { measurePlan, planPolarizations, type ComponentTsp, type EisPolarizationView, type MeasuredUnit } from './polarizationUnits.js';
 import type { ViewerUnit } from '../viewer/viewerData.js';
+import type { PackedBeams } from '../report/viewerPack.js';
 import { analysisThreshold, impliedChoices, limitSetFor, percentileLimit } from '../limits/impliedChoices.js';
 
 export interface TaskInput {
@@ -248,17 +249,22 @@ export function measureUnit(m: Measurement, input: MeasureOptions): { result: Un
  * large enough) while this thread measures the rest; the same result (computeInsights either
  * way), computed here when the lane fails.
  */
-async function measureUnitOnLanes(m: Measurement, input: MeasureOptions & Pick<TaskInput, 'report'>, lane: InsightLane | null): Promise<{ result: UnitResult; tsp: TotalScanPattern }> {
+async function measureUnitOnLanes(m: Measurement, input: MeasureOptions & Pick<TaskInput, 'report' | 'viewer'>, lane: InsightLane | null): Promise<{ result: UnitResult; tsp: TotalScanPattern }> {
   const choices = unitChoices(m, input);
   const request = insightRequest(m, input, choices);
-  const sent = lane && request && InsightLane.worthIt(request) ? lane.request(request) : null;
+  const sent = lane && request && InsightLane.worthIt(request) ? lane.request(request, { pack: input.viewer === true }) : null;
+  // The lane packs the beams for viewer.html after the insights, while this thread draws the PDF.
+  if (sent && input.viewer) lanePacks.set(m, sent.pack);
   const core = measureCore(m, input, choices);
   // Waiting for the lane, this thread would idle: the report modules (pdfkit and its fonts, about
   // 0.1 s) load meanwhile, when the unit's PDF will need them anyway.
   if (sent && input.report) void reportModules().catch(() => undefined);
-  const insights = request ? ((sent ? await sent : null) ?? computeInsights(request, core.computed.tsp)) : null;
+  const insights = request ? ((sent ? await sent.insights : null) ?? computeInsights(request, core.computed.tsp)) : null;
   return { result: unitResult(m, input, choices, core, insights), tsp: core.computed.tsp };
 }
+
+/** Beams packed for viewer.html on the insight lane (measureUnitOnLanes), by measurement; null: pack them here. */
+const lanePacks = new WeakMap<Measurement, Promise<PackedBeams | null>>();
 
 let reportModulesLoading: Promise<[typeof import('../report/unitReport.js'), typeof import('../report/thumbnail.js'), typeof import('../report/cdfCurve.js')]> | null = null;
 
@@ -375,7 +381,8 @@ async function unitOutput(mu: MeasuredUnit, input: TaskInput, read: GroupRead, j
   const out = await renderUnit(m, result, tsp, input, delta, componentTsps, jointMaps);
   if (input.viewer) {
     const { packViewerUnit } = await import('../report/viewerPack.js');
-    out.viewer = packViewerUnit(m, result, `${m.unit}@${m.frequencyHz ?? '-'}`);
+    const lanePack = lanePacks.get(m);
+    out.viewer = packViewerUnit(m, result, `${m.unit}@${m.frequencyHz ?? '-'}`, (lanePack ? await lanePack : null) ?? undefined);
   }
   return out;
 }

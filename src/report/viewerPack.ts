@@ -79,20 +79,39 @@ function zigzag16(q: Int32Array): Uint16Array {
   return out;
 }
 
-/** The viewer's entry for one measured unit (its results.json entry without the long curve). */
-export function packViewerUnit(m: Measurement, result: UnitResult, key: string): ViewerUnit {
-  const { packed, nonFinite } = packValues(m.beams.map((b) => b.values), m.grid.thetaDeg.length);
+/** A measurement's grid and beams as the viewer stores them: packViewerUnit's work, a pure function of the grid and the beam values. */
+export interface PackedBeams {
+  grid: PackedGrid;
+  beams: PackedArray;
+  nonFinite: ViewerUnit['nonFinite'];
+}
+
+/**
+ * Pack a grid and its beams (packValues, packGrid). Pure: the insight lane's thread packs a
+ * large unit with this while the main thread draws its PDF (src/batch/insightWorker.ts), with
+ * the same bytes as here.
+ */
+export function packBeams(grid: SphereGrid, beams: Float64Array[]): PackedBeams {
+  const { packed, nonFinite } = packValues(beams, grid.thetaDeg.length);
+  return { grid: packGrid(grid), beams: packed, nonFinite };
+}
+
+/**
+ * The viewer's entry for one measured unit (its results.json entry without the long curve).
+ * `packed`: packBeams of this measurement when it was made elsewhere (the insight lane).
+ */
+export function packViewerUnit(m: Measurement, result: UnitResult, key: string, packed: PackedBeams = packBeams(m.grid, m.beams.map((b) => b.values))): ViewerUnit {
   return {
     key,
     unit: m.unit,
     frequencyHz: m.frequencyHz,
     quantity: m.quantity,
     valueUnit: m.valueUnit,
-    grid: packGrid(m.grid),
+    grid: packed.grid,
     beamIds: m.beams.map((b) => b.id),
-    beams: packed,
+    beams: packed.beams,
     quantumDb: QUANTUM_DB,
-    nonFinite,
+    nonFinite: packed.nonFinite,
     result: { ...result, tsp: { ...result.tsp, curve: [] } },
   };
 }

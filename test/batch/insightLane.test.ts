@@ -13,6 +13,7 @@ import { writeBigExport } from '../reliability/bigExport.js';
 import { computeInsights, type InsightRequest } from '../../src/batch/insights.js';
 import { LANE_MIN_BYTES, LANE_MIN_WORK } from '../../src/batch/insightLane.js';
 import { fullGrid, gaussianBeam } from '../analysis/fixtures.js';
+import { packBeams } from '../../src/report/viewerPack.js';
 
 type LaneModule = typeof import('../../src/batch/insightLane.js');
 
@@ -43,17 +44,30 @@ describe('InsightLane (compiled worker)', () => {
     const q = request();
     const want = computeInsights(q);
     expect(want.holes.length).toBeGreaterThan(0); // the case exercises every part
-    expect(await lane?.request(q)).toEqual(want);
-    expect(await lane?.request({ ...q, levelPct: 90, threshold: null })).toEqual(computeInsights({ ...q, levelPct: 90, threshold: null }));
+    expect(await lane?.request(q).insights).toEqual(want);
+    expect(await lane?.request({ ...q, levelPct: 90, threshold: null }).insights).toEqual(computeInsights({ ...q, levelPct: 90, threshold: null }));
     lane?.close();
+  });
+
+  it('packs the beams for the viewer as this thread does, after the insights, when asked', async () => {
+    const lane = compiled.InsightLane.open(1, [bigFile]);
+    const q = request();
+    const answer = lane?.request(q, { pack: true });
+    expect(await answer?.insights).toEqual(computeInsights(q));
+    const packed = await answer?.pack;
+    expect(packed).not.toBeNull();
+    expect(packed).toEqual(packBeams(q.grid, q.beams));
+    expect(await lane?.request(q).pack).toBeNull(); // not asked for
+    lane?.close();
+    expect(await lane?.request(q, { pack: true }).pack).toBeNull(); // a closed lane: packed on the main thread
   });
 
   it('gives null (the caller computes here) when the worker fails or is closed', async () => {
     const lane = compiled.InsightLane.open(1, [bigFile]);
     const q = request();
-    expect(await lane?.request({ ...q, ids: q.ids.slice(1) })).toBeNull(); // findHoles throws in the worker
+    expect(await lane?.request({ ...q, ids: q.ids.slice(1) }).insights).toBeNull(); // findHoles throws in the worker
     lane?.close();
-    expect(await lane?.request(q)).toBeNull();
+    expect(await lane?.request(q).insights).toBeNull();
   });
 
   it('is not started without a spare thread or for small files', () => {
@@ -67,17 +81,23 @@ describe('InsightLane (compiled worker)', () => {
 });
 
 describe('analyze with a spare thread', () => {
+  const run = (jobs: string, pdf: boolean) => {
+    const out = path.join(dir, `out-${jobs}-${pdf ? 'pdf' : 'nopdf'}`);
+    const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', path.join(dir, 'in'), '--out', out,
+      ...(pdf ? [] : ['--no-pdf']), '--quiet', '--jobs', jobs, '--coverage-thresholds', '24,10', '--creation-date', '2026-01-01T00:00:00Z'], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    return out;
+  };
+
   it('writes the same results.json as --jobs 1', () => {
-    const run = (jobs: string) => {
-      const out = path.join(dir, `out-${jobs}`);
-      const r = spawnSync(process.execPath, [path.join(ROOT, 'bin', 'spherecov.js'), 'analyze', path.join(dir, 'in'), '--out', out,
-        '--no-pdf', '--quiet', '--jobs', jobs, '--coverage-thresholds', '24,10', '--creation-date', '2026-01-01T00:00:00Z'], { cwd: ROOT, encoding: 'utf8' });
-      expect(r.stderr).toBe('');
-      expect(r.status).toBe(0);
-      return readFileSync(path.join(out, 'results.json'), 'utf8');
-    };
-    const one = run('1');
+    const one = readFileSync(path.join(run('1', false), 'results.json'), 'utf8');
     expect(JSON.parse(one).units[0].holes.length).toBeGreaterThan(0);
-    expect(run('2')).toBe(one);
+    expect(readFileSync(path.join(run('2', false), 'results.json'), 'utf8')).toBe(one);
   }, 120_000);
+
+  it('writes the same viewer.html as --jobs 1 (the lane packs the beams)', () => {
+    const one = readFileSync(path.join(run('1', true), 'viewer.html'), 'utf8');
+    expect(readFileSync(path.join(run('2', true), 'viewer.html'), 'utf8')).toBe(one);
+  }, 180_000);
 });
