@@ -108,7 +108,11 @@ let cliOnLong = null;
 if (wants(o, 'floor') || wants(o, 'read') || wants(o, 'cli')) {
   const w = { floor: () => floorRun(long.path) };
   if (wants(o, 'read') && have.read) w.read = () => stageRun('stage-read.mjs', [long.path]);
-  if (wants(o, 'cli') && have.cli) w.cli = () => cliRun(long.path, 'long', ['--no-pdf']);
+  if (wants(o, 'cli') && have.cli) {
+    w.cli = () => cliRun(long.path, 'long', ['--no-pdf']);
+    // As a user runs it by default: the unit PDF, the build summary and viewer.html as well.
+    w.cliPdf = () => cliRun(long.path, 'long-pdf', []);
+  }
   log(`floor${w.read ? ' / read' : ''}${w.cli ? ' / cli' : ''} on ${sizeNote}: ${o.reps} rep(s) …`);
   const res = await alternate(o.reps, w);
   raw.long = res;
@@ -148,6 +152,13 @@ if (wants(o, 'floor') || wants(o, 'read') || wants(o, 'cli')) {
       rows.push(row('cli', 'peak RSS', rssMiB(res.cli), { target: { op: '<=', limit: 150 }, unit: 'MiB', digits: 1 }));
       rows.push(row('cli', 'CPU time (user + system)', cpuS(res.cli), { unit: 's' }));
       res.cli.slice(0, -1).forEach(keep);
+      if (failure(res.cliPdf)) rows.push(row('cli', 'analyze <file> with PDFs and viewer.html', null, { note: `failed: ${failure(res.cliPdf)}` }));
+      else {
+        rows.push(row('cli', 'analyze <file> with PDFs and viewer.html (the default), wall', median(walls(res.cliPdf)), { unit: 's' }));
+        rows.push(row('cli', 'with PDFs and viewer.html / --no-pdf (paired)', pairedRatio(walls(res.cliPdf), walls(res.cli)), { digits: 2 }));
+        rows.push(row('cli', 'with PDFs and viewer.html, peak RSS', rssMiB(res.cliPdf), { unit: 'MiB', digits: 1 }));
+        res.cliPdf.forEach(keep);
+      }
     }
   }
   if (wants(o, 'cli') && have.read && have.measure) {
