@@ -20,6 +20,8 @@ import { Worker } from 'node:worker_threads';
 import { compiledWorker } from './compiledWorker.js';
 import { hasEarlyThread, offerEarlyThread } from './earlyWorkers.js';
 import { OPTIONS, type OptionSpec } from './cli/options.js';
+// The first CPU readings, taken as the program starts (src/cpuClock.ts programStart).
+import './cpuClock.js';
 
 /** Directory entries the size guess looks at, at most (a large build folder is not walked whole). */
 export const EARLY_SCAN_ENTRIES = 2000;

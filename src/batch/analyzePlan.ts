@@ -29,7 +29,8 @@ import { checkReference } from './referenceCheck.js';
 import type { TaskInput } from './unitTask.js';
 import { TOOL_VERSION } from './version.js';
 import { lazyPackage } from '../lazyPackage.js';
-import { coresFreeOfOthers, coreToSpare, cpuTimes, ownCpuMs } from './pool.js';
+import { coresFreeOfOthers, coreToSpare } from './pool.js';
+import { cpuTimes, ownCpuMs, programStart } from '../cpuClock.js';
 
 /** pngjs checks a report logo only (src/lazyPackage.ts). */
 const pngjs = lazyPackage<typeof import('pngjs')>('pngjs');
@@ -135,18 +136,15 @@ export function taskFor(plan: AnalyzePlan, key: string, files: string[], referen
   };
 }
 
-/** The machine's and this process's CPU times when this module loaded: the start of the window readThreads judges over. */
-const cpuAtLoad = cpuTimes();
-const ownAtLoad = ownCpuMs();
 
 /**
  * Threads one file read may use (src/io/readInParallel.ts): 2 while the groups leave a core
  * free (fewer groups than cores, e.g. one large export) and other processes left a core to spare
- * since the program loaded (coresFreeOfOthers, judged by the pool's coreToSpare), else 1, so the reader never competes
+ * since the program started (programStart, src/cpuClock.ts; coresFreeOfOthers, judged by the pool's coreToSpare), else 1, so the reader never competes
  * with the task pool's own lanes or other processes: on a busy 2-core machine (load 6) a second
  * reading thread cost 0.15–0.25 s more CPU and made the read slower; always 1 with --jobs 1.
  */
-export function readThreads(jobs: number | 'auto', groups: number, freeCores = coresFreeOfOthers(cpuAtLoad, cpuTimes(), ownAtLoad, ownCpuMs(), cpuList().length)): number {
+export function readThreads(jobs: number | 'auto', groups: number, freeCores = coresFreeOfOthers(programStart.cpu, cpuTimes(), programStart.ownMs, ownCpuMs(), cpuList().length)): number {
   const cores = jobs === 'auto' ? availableParallelism() : Math.min(Math.floor(jobs) || 1, availableParallelism());
   return cores >= 2 && groups < cores && coreToSpare(freeCores) ? 2 : 1;
 }

@@ -20,6 +20,9 @@
 import { Worker } from 'node:worker_threads';
 import { availableParallelism, cpus, loadavg } from 'node:os';
 import { compiledWorker } from '../compiledWorker.js';
+import { cpuTimes, type CpuTimes } from '../cpuClock.js';
+
+export { cpuTimes, ownCpuMs, type CpuTimes } from '../cpuClock.js';
 import { safeRunTask, type TaskInput, type TaskOutput } from './unitTask.js';
 
 export interface PoolHooks {
@@ -121,18 +124,6 @@ export function coreToSpare(idleCores: number): boolean {
   return idleCores >= 0.5;
 }
 
-/** Idle and total CPU time summed over the machine's cores (os.cpus(), ms). */
-export interface CpuTimes { idleMs: number; totalMs: number }
-
-export function cpuTimes(): CpuTimes {
-  let idleMs = 0, totalMs = 0;
-  for (const c of cpus()) {
-    idleMs += c.times.idle;
-    totalMs += c.times.user + c.times.nice + c.times.sys + c.times.idle + c.times.irq;
-  }
-  return { idleMs, totalMs };
-}
-
 /**
  * Idle cores between two readings: idle share of all CPU time × core count (2 cores, one busy
  * with this run and the other idle → 1). No time passed (or a platform reporting none) → the
@@ -142,12 +133,6 @@ export function cpuIdleCores(from: CpuTimes, to: CpuTimes, cores: number): numbe
   const total = to.totalMs - from.totalMs;
   if (!(total > 0)) return Math.max(0, cores - 1);
   return ((to.idleMs - from.idleMs) / total) * cores;
-}
-
-/** CPU time of this whole process (every thread: main, workers, V8's compiler and GC threads), ms. */
-export function ownCpuMs(): number {
-  const u = process.cpuUsage();
-  return (u.user + u.system) / 1000;
 }
 
 /**
