@@ -3,7 +3,9 @@
  * smallest subset: insights.ts) while the main thread computes the metrics, the grid adequacy
  * and the verdict. A run analyzes one group on the main thread and leaves the other cores idle
  * whenever the pool starts no worker (one group, or 'auto' before its workers pay off); the
- * optional analysis of a 64-beam 1° unit is about as long as the rest of its measuring.
+ * optional analysis of a 64-beam 1° unit is about as long as the rest of its measuring. When the
+ * run writes viewer.html, the lane then packs the unit's beams for it (viewerPack.ts packBeams)
+ * while the main thread draws the unit's PDF.
  *
  * The worker is started before the group's files are read (its start-up overlaps the read) and
  * only when the task may use a spare thread (TaskInput.spareThreads, from the plan: the rule of
@@ -11,7 +13,7 @@
  * files are large (LANE_MIN_BYTES); after assembly a measurement
  * smaller than LANE_MIN_WORK is analyzed on the main thread anyway. The beams travel in shared
  * memory (one copy, or none when they already live there); the answer is plain data.
- * Same results by construction (one function, insights.ts, on the same arrays); any failure of
+ * Same results by construction (one function, insights.ts or packBeams, on the same arrays); any failure of
  * the worker (an exception, a thread that dies or cannot start) gives `null` and the caller
  * computes on the main thread.
  */
