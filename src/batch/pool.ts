@@ -10,8 +10,9 @@
  * - at once, before any task, when the tasks write PDFs and are enough that even at the cheapest
  *   PDF (PDF_TASK_MIN_MS) their work is more than WORTH_IT times a worker's start-up: the
  *   worker's start-up then overlaps the main thread's first tasks instead of following them;
- * - else after each main-thread task (from the third on), when the work left (tasks left × the
- *   main thread's fastest task, in CPU time) is more than WORTH_IT times a worker's start-up.
+ * - else after each main-thread task (from the MIN_MAIN_TASKS-th on), when the work left (tasks
+ *   left × the main thread's fastest task, in CPU time) is more than WORTH_IT times a worker's
+ *   start-up.
  * So a build that one thread finishes sooner never pays for workers.
  * Tasks are handed out one at a time from a shared counter (the next free lane takes the next
  * task); each worker holds up to two tasks, so it does not sit idle while the main thread is busy
@@ -34,6 +35,17 @@ export interface PoolHooks {
 
 export class TaskFailure extends Error {}
 
+
+/**
+ * Main-thread tasks before 'auto' judges the work left from the fastest of them. The first tasks
+ * pay JIT warm-up, and their CPU time (the whole process's: V8's compiler threads included)
+ * overstates a warm task: on the 20-unit bench build without PDFs the fastest of the first three
+ * took 43–65 ms of CPU, of the first five 17–23 ms (5 runs, 2026-12-02). Judged after three, a
+ * slower moment of this machine tipped the 20-unit build into starting a worker that could not
+ * pay off (bench: default --jobs / --jobs 1 up to 1.14); after five the estimate is near a warm
+ * task. A build large enough for workers starts them two tasks later, a fraction of a second.
+ */
+const MIN_MAIN_TASKS = 5;
 
 /** Tasks a worker holds at once (one running, one waiting) while enough work is left. */
 const WORKER_DEPTH = 2;
@@ -186,7 +198,7 @@ export class TaskPool {
     const cpuAtStart = cpuTimes();
     // 'auto': after each main-thread task, is the work left worth the workers' start-up?
     const afterMainTask = (fastestMs: number, mainDone: number) => {
-      if (auto && this.workers.length === 0 && !q.stopped() && mainDone >= 3 &&
+      if (auto && this.workers.length === 0 && !q.stopped() && mainDone >= MIN_MAIN_TASKS &&
         workersPayOff(q.left(), fastestMs, startMs) && coreToSpare(cpuIdleCores(cpuAtStart, cpuTimes(), cpus().length))) startWorkers();
     };
     if (!auto || workersPayOffAtStart(tasks.length, pdf, startMs, this.machineLoad())) startWorkers();
@@ -252,8 +264,9 @@ class TaskQueue {
 
 /**
  * The main thread's lane. `afterTask` gets the fastest task's CPU time so far (taskWithCpu) and
- * how many tasks this lane finished: the first ones also pay JIT warm-up, 3–5× a warm task on the
- * bench build, which would overstate the work left, so the decision to start workers waits.
+ * how many tasks this lane finished: the first ones also pay JIT warm-up, 2–4× a warm task on the
+ * bench build, which would overstate the work left, so the decision to start workers waits
+ * (MIN_MAIN_TASKS).
  */
 async function mainLane(q: TaskQueue, afterTask: (fastestMs: number, done: number) => void): Promise<void> {
   let fastestMs = Infinity, done = 0;
