@@ -136,7 +136,6 @@ export function taskFor(plan: AnalyzePlan, key: string, files: string[], referen
   };
 }
 
-
 /**
  * Threads one file read may use (src/io/readInParallel.ts): 2 while the groups leave a core
  * free (fewer groups than cores, e.g. one large export) and other processes left a core to spare

@@ -22,8 +22,6 @@ import { Worker } from 'node:worker_threads';
 import { availableParallelism, cpus, loadavg } from 'node:os';
 import { compiledWorker } from '../compiledWorker.js';
 import { cpuTimes, type CpuTimes } from '../cpuClock.js';
-
-export { cpuTimes, ownCpuMs, type CpuTimes } from '../cpuClock.js';
 import { safeRunTask, type TaskInput, type TaskOutput } from './unitTask.js';
 
 export interface PoolHooks {

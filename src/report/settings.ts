@@ -43,21 +43,17 @@ export const DEFAULT_REPORT_SETTINGS: Readonly<ReportSettings> = Object.freeze({
   }),
 });
 
-/** The defaults with `value` over them key by key (`sections` section by section; undefined keys ignored). */
-function overDefaults(value: ReportSettingsOverrides): ReportSettings {
-  const given = Object.fromEntries(Object.entries(value).filter(([, v]) => v !== undefined)) as ReportSettingsOverrides;
-  const base = DEFAULT_REPORT_SETTINGS;
-  return { ...base, ...given, sections: { ...base.sections, ...(given.sections ?? {}) } } as ReportSettings;
-}
-
 /**
  * Report settings from overrides that were checked already: a job file's `report:` block
- * (validated by the same schema when the job file was read) and values the caller built as
- * ReportSettings types them (the CLI's page size, a parsed creation date). Merged like
- * loadReportSettings, without loading the schema.
+ * (validated by the same schema when the job file was read), values the caller built as
+ * ReportSettings types them (the CLI's page size, a parsed creation date), or loadReportSettings'
+ * validated value. The defaults with them on top key by key (`sections` section by section;
+ * undefined keys ignored), without loading the schema.
  */
 export function reportSettingsFromChecked(overrides: ReportSettingsOverrides): ReportSettings {
-  return overDefaults(overrides);
+  const given = Object.fromEntries(Object.entries(overrides).filter(([, v]) => v !== undefined)) as ReportSettingsOverrides;
+  const base = DEFAULT_REPORT_SETTINGS;
+  return { ...base, ...given, sections: { ...base.sections, ...(given.sections ?? {}) } } as ReportSettings;
 }
 
 /**
@@ -74,5 +70,5 @@ export function loadReportSettings(overrides: ReportSettingsOverrides = {}): Rep
   // Settings given in code are named in code's spelling (pageSize), as the caller wrote them.
   const inCode = (m: string, key = '') => m.replace(`${key}:`, `${key.split('.').map(internalKey).join('.')}:`);
   if (!value) throw new ReportSettingsError(errors.map((e) => inCode(e.message, e.columnName)).join('; '));
-  return overDefaults(value as ReportSettingsOverrides);
+  return reportSettingsFromChecked(value as ReportSettingsOverrides);
 }

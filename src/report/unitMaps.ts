@@ -30,9 +30,7 @@ export const beamColor = (b: number): Rgb => CATEGORICAL[b % CATEGORICAL.length]
 
 /** Per grid point: the colour-table entry of its value, or −1 when the value is not finite. */
 function pointColors(values: ArrayLike<number>, entry: (v: number) => number): Int16Array {
-  const out = new Int16Array(values.length);
-  for (let p = 0; p < values.length; p++) out[p] = Number.isFinite(values[p]) ? entry(values[p]) : -1;
-  return out;
+  return mapPoints(new Int16Array(values.length), values, (v) => (Number.isFinite(v) ? entry(v) : -1));
 }
 
 /**

@@ -1,6 +1,7 @@
 // The default --jobs ('auto') starts workers only when the work left outweighs their start-up.
 import { describe, expect, it } from 'vitest';
-import { coreToSpare, cpuIdleCores, cpuTimes, workersPayOff, workersPayOffAtStart } from '../../src/batch/pool.js';
+import { coreToSpare, cpuIdleCores, workersPayOff, workersPayOffAtStart } from '../../src/batch/pool.js';
+import { cpuTimes } from '../../src/cpuClock.js';
 import { parseJobs } from '../../src/cli/parse.js';
 
 describe("--jobs 'auto'", () => {
