@@ -8,9 +8,12 @@
  * group starts; that group must end before the split. Anything unusual (an error, a dropout, a
  * quote, the first group not ending before the split) ends it with `ok: false`, and the main
  * thread reads that part itself, so results and errors are those of one pass by construction.
+ * After an ok answer it hashes the whole file for the main thread (HashReply).
  *
  * Loads only the reader's own small modules (no package): it starts in tens of milliseconds.
  */
+import { createHash } from 'node:crypto';
+import { closeSync, openSync, readSync } from 'node:fs';
 import { open } from 'node:fs/promises';
 import { parentPort, workerData } from 'node:worker_threads';
 import { fastTokenize } from './fastTokenizer.js';
@@ -22,6 +25,9 @@ import { LongSink, type LongParts } from './layouts/longSink.js';
 import type { RowLocator, RowSink } from './rowSink.js';
 import { SampleLimit } from './sampleLimit.js';
 import type { TokenContext } from './textRow.js';
+
+/** Bytes a read of hashFile takes. */
+const HASH_CHUNK = 4 << 20;
 
 /** What the main thread tells the worker (structured clone). */
 export interface RangeJob {
@@ -41,12 +47,22 @@ export interface RangeJob {
   chunkBytes?: number;
   /** Values in shared memory, as the main thread's sink keeps them (SinkContext.sharedValues). */
   sharedValues: boolean;
+  /** After an ok part, also hash the whole file (HashReply). */
+  hash: boolean;
 }
 
 /** The worker's answer: its groups (lines counted from 0 at the split), or why it gave up. */
 export type RangeReply =
   | { ok: true; parts: LongParts; samples: number }
   | { ok: false; why: string };
+
+/**
+ * The worker's second message, after an ok RangeReply: the SHA-256 (hex) of the whole file, read
+ * again from its first byte, or null when that read failed (the main thread then hashes it).
+ */
+export interface HashReply {
+  sha256: string | null;
+}
 
 function tokenContext(job: RangeJob, keys: KeyTable, errors: ErrorList, sink: RowSink): TokenContext {
   const f = job.plan.fields;
@@ -55,6 +71,22 @@ function tokenContext(job: RangeJob, keys: KeyTable, errors: ErrorList, sink: Ro
     nums: new Float64Array(Math.max(1, f.numCount)), keyIds: new Int32Array(Math.max(1, f.keyCount)),
     dropoutTokens: job.dropoutTokens === null ? null : new Set(job.dropoutTokens),
   };
+}
+
+/**
+ * SHA-256 (hex) of the whole file at `path`, read with blocking reads: this thread has nothing
+ * else to do, and 64 asynchronous 1 MiB reads cost more in thread hops than the hashing saves.
+ */
+function hashFile(path: string, chunkBytes = HASH_CHUNK): string {
+  const fd = openSync(path, 'r');
+  try {
+    const hash = createHash('sha256');
+    const buf = Buffer.allocUnsafe(chunkBytes);
+    for (let n; (n = readSync(fd, buf, 0, chunkBytes, null)) > 0;) hash.update(buf.subarray(0, n));
+    return hash.digest('hex');
+  } finally {
+    closeSync(fd);
+  }
 }
 
 /** Read the worker's part of the file. */
@@ -111,14 +143,22 @@ export function replyBuffers(reply: RangeReply): ArrayBuffer[] {
 
 if (parentPort !== null) {
   const port = parentPort;
-  const run = (job: RangeJob): void => {
-    readRange(job).then(
-      (reply) => port.postMessage(reply, replyBuffers(reply)),
-      (e: unknown) => port.postMessage({ ok: false, why: e instanceof Error ? e.message : String(e) } satisfies RangeReply),
-    );
+  // The parts go first, so the main thread merges them while this thread hashes the file: the
+  // hash is then off the main thread's path (issue 18).
+  const run = async (job: RangeJob): Promise<void> => {
+    const reply = await readRange(job).catch((e: unknown): RangeReply => ({ ok: false, why: e instanceof Error ? e.message : String(e) }));
+    port.postMessage(reply, replyBuffers(reply));
+    if (!reply.ok || !job.hash) return;
+    let sha256: string | null = null;
+    try {
+      sha256 = hashFile(job.path);
+    } catch {
+      // The main thread hashes the file itself.
+    }
+    port.postMessage({ sha256 } satisfies HashReply);
   };
   // The job comes with the worker (workerData), or later by message when the worker was started
   // early (src/earlyThreads.ts).
-  if (workerData !== null && typeof workerData === 'object' && 'split' in workerData) run(workerData as RangeJob);
-  else port.once('message', run);
+  if (workerData !== null && typeof workerData === 'object' && 'split' in workerData) void run(workerData as RangeJob);
+  else port.once('message', (job: RangeJob) => void run(job));
 }

@@ -102,15 +102,14 @@ export async function readExportFile(absPath: string, ctx: ReadContext): Promise
         nums: new Float64Array(Math.max(1, plan.fields.numCount)), keyIds: new Int32Array(Math.max(1, plan.fields.keyCount)), dropoutTokens,
       };
       if (useFast) {
-        const hash = createHash('sha256');
         const outcome = await readFast({
-          fh: fh!, absPath, file, size, dataStart: sniff.dataByteStart, startLine: sniff.headerLine + 1, t, hash, sink, limited, plan,
+          fh: fh!, absPath, file, size, dataStart: sniff.dataByteStart, startLine: sniff.headerLine + 1, t, sink, limited, plan,
           dropoutTokens: dropoutTokens === null ? null : [...dropoutTokens], threads: ctx.readThreads ?? 1,
           minBytes: ctx.parallelMinBytes ?? PARALLEL_MIN_BYTES, share: ctx.parallelShare ?? MAIN_SHARE, onOutcome: ctx.onParallel,
-          maxSamples, chunkBytes: ctx.chunkBytes,
+          maxSamples, chunkBytes: ctx.chunkBytes, workerHashes: ctx.workerHashes ?? true,
         });
         if (outcome === 'quote') return null;
-        return { errors, keys, sink, dropouts, sha: hash.digest('hex') };
+        return { errors, keys, sink, dropouts, sha: outcome.sha256 };
       }
       const bytes = await readFile(absPath);
       const text = bytes.toString('utf8', sniff.bom ? 3 : 0);

@@ -89,6 +89,8 @@ export interface ReadContext {
   parallelShare?: number;
   /** Told whether a read ran on one thread, on two, or fell back to one after starting two (tests, benchmark). */
   onParallel?: (how: 'single' | 'merged' | 'fallback', why?: string) => void;
+  /** On two threads, the worker hashes the file after its part (default true); false: this thread does (tests). */
+  workerHashes?: boolean;
 }
 
 /** One beam of one unit (at one frequency) as found in one file, before grid building. */

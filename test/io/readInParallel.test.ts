@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -70,6 +71,19 @@ async function same(file: string, share: number, extra: Partial<ReadContext> = {
 const SHARES = [0.4, 0.5, 0.77];
 
 describe('reading one file on two threads (issue 18)', () => {
+  it('the sha256 is the whole file\'s whether the worker hashes it (default) or this thread does', async () => {
+    const beams = Array.from({ length: 5 }, (_v, i) => [String(i)]);
+    const text = `theta_deg,phi_deg,beam,eirp_dbm\n${longRows(beams, 15).join('\n')}\n`;
+    const f = write('hashed.csv', text);
+    const expected = createHash('sha256').update(text).digest('hex'); // node:crypto over the bytes written
+    for (const workerHashes of [true, false]) {
+      let how = 'none';
+      const r = await read(f, { inputRoot: dir, readThreads: 2, parallelMinBytes: 0, parallelShare: 0.5, workerHashes, onParallel: (h) => void (how = h) });
+      expect(how).toBe('merged');
+      expect(r.sha256).toBe(expected);
+    }
+  });
+
   it('beam-major file, split inside a beam at several points: merged, identical', async () => {
     const beams = Array.from({ length: 6 }, (_v, i) => [String(i)]);
     const f = write('b6.csv', `theta_deg,phi_deg,beam,eirp_dbm\n${longRows(beams, 15).join('\n')}\n`);
