@@ -1,15 +1,22 @@
 #!/usr/bin/env node
-// Bundles the compiled CLI (dist/cli/main.js), its signal handlers and the three worker entries
-// into dist/bundle/ with esbuild, after `tsc`: start-up loads a few dozen files instead of ~170
-// modules, in every process and worker thread. dist/bundle sits at the depth of dist/<dir>/, so
-// the modules' `new URL('../../templates/…', import.meta.url)` and the workers found beside the
-// calling module (src/compiledWorker.ts) resolve as they do from dist/<dir>/. Code splitting keeps
-// one copy of each shared module (signals.js is an entry and main's own instance) and keeps the
-// lazy `await import()`s lazy (a chunk each). Packages stay external (they load lazily already).
-// The stamp written last (src/cli/bundleStamp.ts) lets bin/spherecov.js ignore a bundle older
-// than the tsc output it was made from.
+// Bundles the compiled CLI and the three worker entries into dist/bundle/ with esbuild, after
+// `tsc`, as CommonJS, one file each (<name>.code.js): start-up loads one file instead of ~170
+// modules, in every process and worker thread. Each entry <name>.js is a two-line file that runs
+// its code file through src/cli/codeCache.ts (bundled as codeCache.js) with V8's code cache,
+// written beside it by a warm-up run at the end of this step (one analyze as a user runs it, on a
+// generated export large enough for the second reading thread and the insight lane). dist/bundle
+// sits at the depth of dist/<dir>/, and `import.meta.url` becomes each code file's own URL, so the
+// modules' `new URL('../../templates/…', import.meta.url)` and the workers found beside the
+// calling module (src/compiledWorker.ts) resolve as they do from dist/<dir>/. Lazy `await
+// import()`s of our own modules become lazily evaluated parts of the same file. Packages stay
+// external (they load lazily already). The stamp written before the warm-up
+// (src/cli/bundleStamp.ts) lets bin/spherecov.js ignore a bundle older than the tsc output it was
+// made from.
+import { spawnSync } from 'node:child_process';
 import { build } from 'esbuild';
-import { existsSync, renameSync, rmSync } from 'node:fs';
+import { createWriteStream, existsSync, mkdirSync, mkdtempSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { once } from 'node:events';
+import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -19,13 +26,13 @@ const bundleDir = path.join(dist, 'bundle');
 // Entry name = file name in dist/bundle: the worker names are the ones their callers pass to
 // compiledWorker() (test/cli/bundle.test.ts checks that every one is here).
 const ENTRIES = {
-  main: 'cli/main.js',
-  signals: 'cli/signals.js',
-  earlyThreads: 'earlyThreads.js',
+  main: 'cli/bundleEntry.js',
   worker: 'batch/worker.js',
   rangeWorker: 'io/rangeWorker.js',
   insightWorker: 'batch/insightWorker.js',
 };
+/** `import.meta.url` in the CommonJS output: the code file's own URL. */
+const MODULE_URL = '__spherecovModuleUrl';
 
 if (!existsSync(path.join(dist, 'cli', 'bundleStamp.js'))) {
   process.stderr.write('bundle: dist/ is not built; run `tsc -p tsconfig.json` first\n');
@@ -38,21 +45,30 @@ const tmpDir = `${bundleDir}.${process.pid}.tmp`;
 rmSync(tmpDir, { recursive: true, force: true });
 const startedMs = Date.now();
 const out = await build({
-  entryPoints: Object.fromEntries(Object.entries(ENTRIES).map(([name, p]) => [name, path.join(dist, p)])),
+  entryPoints: {
+    ...Object.fromEntries(Object.entries(ENTRIES).map(([name, p]) => [`${name}.code`, path.join(dist, p)])),
+    codeCache: path.join(dist, 'cli', 'codeCache.js'),
+  },
   outdir: tmpDir,
   entryNames: '[name]',
   bundle: true,
-  splitting: true,
-  format: 'esm',
+  format: 'cjs',
   platform: 'node',
   target: 'node20',
   packages: 'external',
-  // Chained to tsc's maps, so --enable-source-maps points into src/*.ts.
+  define: { 'import.meta.url': MODULE_URL },
+  banner: { js: `const ${MODULE_URL} = require('node:url').pathToFileURL(__filename).href;` },
+  // Chained to tsc's maps (src/*.ts positions for a debugger reading the bundle).
   sourcemap: 'linked',
   metafile: true,
   absWorkingDir: root,
   logLevel: 'warning',
 });
+writeFileSync(path.join(tmpDir, 'package.json'), '{ "type": "commonjs" }\n');
+for (const name of Object.keys(ENTRIES)) {
+  writeFileSync(path.join(tmpDir, `${name}.js`), `// Written by scripts/bundle.mjs: ${name}.code.js with V8's code cache (src/cli/codeCache.ts).
+module.exports = require('./codeCache.js').loadWithCodeCache(require('node:path').join(__dirname, '${name}.code.js'));\n`);
+}
 const inputs = Object.keys(out.metafile.inputs).map((p) => path.resolve(root, p));
 writeBundleStamp(tmpDir, inputs, startedMs);
 
@@ -66,3 +82,51 @@ try {
   rmSync(tmpDir, { recursive: true, force: true });
 }
 rmSync(oldDir, { recursive: true, force: true });
+
+await warmUp();
+
+/**
+ * The code caches, written by runs with SPHERECOV_CODE_CACHE_WRITE=1 (each thread writes the
+ * caches of the files it loaded): first a build of four small units on two threads (the task
+ * pool's worker), then one analyze as a user runs it (unit PDF, summary PDF, viewer.html) on a
+ * generated long export of 40 beams on a 1° grid (~40 MB: above the sizes at which the second
+ * reading thread and the insight lane start), whose main-thread cache is the one kept. A failure
+ * leaves no cache, never a broken bundle.
+ */
+async function warmUp() {
+  const work = mkdtempSync(path.join(tmpdir(), 'spherecov-warm-up-'));
+  try {
+    for (let u = 1; u <= 4; u++) {
+      mkdirSync(path.join(work, 'build', `U-${u}`), { recursive: true });
+      await writeExport(path.join(work, 'build', `U-${u}`, 'beams.csv'), 16, 5, u);
+    }
+    await writeExport(path.join(work, 'large.csv'), 40, 1, 7);
+    for (const args of [[path.join(work, 'build'), '--jobs', '2'], [path.join(work, 'large.csv')]]) {
+      const r = spawnSync(process.execPath, [path.join(root, 'bin', 'spherecov.js'), 'analyze', ...args, '--out', path.join(work, 'out'), '--force'], {
+        cwd: root, encoding: 'utf8', env: { ...process.env, SPHERECOV_CODE_CACHE_WRITE: '1' },
+      });
+      if (r.status !== 0) process.stderr.write(`bundle: a warm-up run failed (exit ${r.status}); the bundle may run without some code caches\n${r.stderr}`);
+    }
+  } finally {
+    rmSync(work, { recursive: true, force: true });
+  }
+}
+
+/** A long export of `beams` beams on a `stepDeg` θ/φ grid, values with two decimals (a small LCG from `seed`). */
+async function writeExport(file, beams, stepDeg, seed) {
+  const out = createWriteStream(file);
+  out.write('theta_deg,phi_deg,beam,eirp_dbm\n');
+  let s = seed;
+  for (let b = 0; b < beams; b++) {
+    const lines = [];
+    for (let t = 0; t <= 180; t += stepDeg) {
+      for (let p = 0; p < 360; p += stepDeg) {
+        s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+        lines.push(`${t},${p},${b},${(10 + 20 * Math.cos(((t - b * 4) * Math.PI) / 180) ** 2 + s / 2 ** 32).toFixed(2)}`);
+      }
+    }
+    if (!out.write(`${lines.join('\n')}\n`)) await once(out, 'drain');
+  }
+  out.end();
+  await once(out, 'finish');
+}

@@ -1,10 +1,11 @@
 /**
  * Which build of the CLI bin/spherecov.js loads. scripts/bundle.mjs bundles the tsc output
- * (dist/cli/main.js, dist/cli/signals.js and the three worker entries) with esbuild into
- * dist/bundle/: a few dozen files instead of ~170 modules, which is most of a process's or a
- * worker thread's start-up. The bundle is used only while it was made from the dist/ files that
- * are there now; after a bare `tsc` (or `tsc --watch` rewriting one file) the launcher runs
- * dist/cli as tsc wrote it, so a developer never runs a stale bundle.
+ * (the CLI with its signal handlers, and the three worker entries) with esbuild into
+ * dist/bundle/: one CommonJS file each instead of ~170 modules, loaded with V8's code cache
+ * (codeCache.ts), which is most of a process's or a worker thread's start-up. The bundle is used
+ * only while it was made from the dist/ files that are there now; after a bare `tsc` (or
+ * `tsc --watch` rewriting one file) the launcher runs dist/cli as tsc wrote it, so a developer
+ * never runs a stale bundle.
  *
  * Node's built-ins only: bin/spherecov.js imports this before anything else.
  */
@@ -58,17 +59,18 @@ export function bundleIsCurrent(bundleDir: string): boolean {
 }
 
 /**
- * The signal-handler module, the early-threads module (src/earlyThreads.ts) and the CLI module the
- * launcher loads: all from dist/bundle when it is current, else from dist/cli and dist/ (one
- * module instance of each either way, the one the CLI's run uses).
+ * What the launcher loads: `bundle`, the bundled CLI (dist/bundle/main.js, CommonJS, required:
+ * it installs the interrupt handlers as it loads and exports startEarlyThreads and main) when it
+ * is current, else null; and the unbundled modules of dist/cli and dist/ as tsc wrote them (the
+ * signal-handler module, the early-threads module, the CLI), loaded one after the other.
  */
-export function cliModules(): { signals: string; early: string; main: string } {
+export function cliModules(): { bundle: string | null; signals: string; early: string; main: string } {
   const bundle = new URL('../bundle/', import.meta.url);
   const current = bundleIsCurrent(fileURLToPath(bundle));
-  const dir = current ? bundle : new URL('./', import.meta.url);
   return {
-    signals: new URL('signals.js', dir).href,
-    early: new URL(current ? 'earlyThreads.js' : '../earlyThreads.js', dir).href,
-    main: new URL('main.js', dir).href,
+    bundle: current ? fileURLToPath(new URL('main.js', bundle)) : null,
+    signals: new URL('signals.js', import.meta.url).href,
+    early: new URL('../earlyThreads.js', import.meta.url).href,
+    main: new URL('main.js', import.meta.url).href,
   };
 }
