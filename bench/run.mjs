@@ -17,6 +17,8 @@ import { renderTable, row } from './lib/table.mjs';
 
 const bench = (f) => join(repoDir, 'bench', f);
 const PEER = '/work/shared/bench/peer.py';
+/** Set in this environment, it makes every Node process and worker thread read a certificate bundle as it starts. */
+const CA_TAX = process.env.NODE_EXTRA_CA_CERTS ? 'NODE_EXTRA_CA_CERTS' : null;
 const MIB = 1024;
 const log = (s) => process.stderr.write(`[bench] ${s}\n`);
 
@@ -83,10 +85,10 @@ const stageRun = async (script, args) => {
   return { ...r, result: line ? JSON.parse(line) : { error: r.stderr.trim().split('\n').slice(-3).join(' | ') || `exit ${r.code}` } };
 };
 const ANALYZE_ARGS = ['--percentiles', '0,10,50,90,100', '--coverage-thresholds', '10,20,25'];
-const cliRun = async (input, name, extra) => {
+const cliRun = async (input, name, extra, unset = []) => {
   const out = join(runsDir, name);
   rmSync(out, { recursive: true, force: true });
-  const r = await runMeasured('node', [join(repoDir, 'bin/spherecov.js'), 'analyze', input, '--out', out, ...ANALYZE_ARGS, ...extra], { cwd: repoDir });
+  const r = await runMeasured('node', [join(repoDir, 'bin/spherecov.js'), 'analyze', input, '--out', out, ...ANALYZE_ARGS, ...extra], { cwd: repoDir, unset });
   const resultsPath = join(out, 'results.json');
   const ok = (r.code === 0 || r.code === 1) && existsSync(resultsPath);
   return { ...r, ok, out, resultsPath, why: ok ? '' : `exit ${r.code ?? r.signal}: ${r.stderr.trim().split('\n').slice(0, 2).join(' | ')}` };
@@ -337,6 +339,10 @@ if (wants(o, 'peer')) {
       },
       cli: () => cliRun(long.path, 'long-peer', ['--no-pdf']),
       core: () => cliRun(long.path, 'long-peer-core', ['--no-pdf', '--core-only']),
+      // Node reads NODE_EXTRA_CA_CERTS's certificates as every process and worker thread starts
+      // (this sandbox sets it: ~50 ms a process, ~15 ms a worker, measured): the same run without
+      // it, as on a machine that does not set it (informative; the rows above keep it).
+      ...(CA_TAX ? { cliBare: () => cliRun(long.path, 'long-peer-bare', ['--no-pdf'], [CA_TAX]) } : {}),
     });
     raw.peer = res;
     const why = failure(res.peer) || failure(res.cli) || failure(res.core);
@@ -347,6 +353,9 @@ if (wants(o, 'peer')) {
       rows.push(row('peer', 'pandas peer, peak RSS', rssMiB(res.peer), { unit: 'MiB', digits: 1 }));
       rows.push(row('peer', 'analyze --no-pdf / peer (paired)', ratio, { target: { op: '<=', limit: 0.45 }, digits: 3 }));
       rows.push(row('peer', 'analyze --no-pdf --core-only (no holes, removal, subset) / peer (paired)', pairedRatio(walls(res.core), walls(res.peer)), { target: { op: '<=', limit: 0.35 }, digits: 3 }));
+      if (res.cliBare && !failure(res.cliBare)) {
+        rows.push(row('peer', `analyze --no-pdf / peer, ${CA_TAX} unset (informative: the environment's Node start-up cost removed)`, pairedRatio(walls(res.cliBare), walls(res.peer)), { digits: 3 }));
+      }
       res.core.forEach(keep);
       const peerJson = JSON.parse(res.peer.at(-1).stdout);
       const results = JSON.parse(readFileSync(res.cli.at(-1).resultsPath, 'utf8'));
@@ -366,6 +375,18 @@ if (wants(o, 'peer')) {
 
 // ---- report ----
 raw.loadEnd = loadavg()[0];
+// What the environment's NODE_EXTRA_CA_CERTS costs every Node process as it starts (time to the
+// first line of JavaScript, with and without it; medians of 5).
+if (CA_TAX) {
+  const firstLine = (unset) => {
+    const env = { ...process.env };
+    for (const n of unset) delete env[n];
+    const r = spawnSync(process.execPath, ['-e', 'process.stdout.write(String(performance.now()))'], { env, encoding: 'utf8' });
+    return Number(r.stdout);
+  };
+  const ms = (unset) => median(Array.from({ length: 5 }, () => firstLine(unset)));
+  raw.caTax = { withMs: ms([]), withoutMs: ms([CA_TAX]) };
+}
 const busy = Math.max(raw.loadStart, raw.loadEnd) > cpus().length;
 const header = [
   `spherecov benchmark — ${raw.startedAt}`,
@@ -373,6 +394,7 @@ const header = [
   `data: ${generator}; long export ${sizeNote}; peak RSS via process.resourceUsage().maxRSS / getrusage in the child`,
   `load average (1 min) at start ${raw.loadStart.toFixed(2)}, at end ${raw.loadEnd.toFixed(2)} on ${cpus().length} cores`,
   busy ? 'BUSY MACHINE: other processes competed for the cores during this run; wall times and the --jobs ratio are inflated — re-run on a quiet machine before trusting a miss' : '',
+  raw.caTax ? `${CA_TAX} is set here: Node reaches its first line of JavaScript after ${raw.caTax.withMs.toFixed(0)} ms instead of ${raw.caTax.withoutMs.toFixed(0)} ms (every process; worker threads pay part of it too) — the spherecov rows include it, the peer does not pay it` : '',
   o.quick ? 'QUICK RUN: smaller files, one repetition — the targets are for the full-size files, so these statuses are indicative only' : '',
 ].filter(Boolean);
 const text = `${header.join('\n')}\n\n${renderTable(rows)}\n${comparison ? `\n${comparison}\n` : ''}`;

@@ -15,21 +15,24 @@ let counter = 0;
 process.on('exit', () => rmSync(scratch, { recursive: true, force: true }));
 
 /**
- * Spawn `node <args>` (kind 'node') or `/usr/bin/python3 <script> <args>` (kind 'python').
+ * Spawn `node <args>` (kind 'node') or `/usr/bin/python3 <script> <args>` (kind 'python'), with
+ * `env` added to this process's environment and the variables named in `unset` removed.
  * Resolves to { wallS, maxRssKiB | null, cpuS | null, code, signal, stdout, stderr } (cpuS: user +
  * system CPU seconds of the whole child, all threads); never rejects on a
  * non-zero exit (the caller decides), rejects only when the program cannot be started.
  */
-export function runMeasured(kind, args, { cwd, env, timeoutMs = 600_000 } = {}) {
+export function runMeasured(kind, args, { cwd, env, unset = [], timeoutMs = 600_000 } = {}) {
   const rssFile = join(scratch, `rss-${process.pid}-${counter++}.json`);
   const cmd = kind === 'node' ? process.execPath : '/usr/bin/python3';
   const argv = kind === 'node' ? ['--import', preloadUrl, ...args] : [pyWrap, ...args];
   return new Promise((resolvePromise, reject) => {
     const t0 = process.hrtime.bigint();
     let t1 = null;
+    const childEnv = { ...process.env, ...env, BENCH_RSS_FILE: rssFile };
+    for (const name of unset) delete childEnv[name];
     const child = spawn(cmd, argv, {
       cwd,
-      env: { ...process.env, ...env, BENCH_RSS_FILE: rssFile },
+      env: childEnv,
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     const out = [];
