@@ -82,7 +82,9 @@ const floorRun = (file) => runMeasured('node', [bench('floor.mjs'), file]);
 const stageRun = async (script, args) => {
   const r = await runMeasured('node', [bench(script), ...args], { cwd: repoDir });
   const line = r.stdout.trim().split('\n').reverse().find((l) => l.startsWith('{'));
-  return { ...r, result: line ? JSON.parse(line) : { error: r.stderr.trim().split('\n').slice(-3).join(' | ') || `exit ${r.code}` } };
+  // A stage that died (no JSON line) keeps the head of its stderr in last-run.json (crashLog): a
+  // native crash prints its reason first and a long stack after it.
+  return { ...r, result: line ? JSON.parse(line) : { error: r.stderr.trim().split('\n').slice(0, 3).join(' | ') || `exit ${r.code ?? r.signal}`, crashLog: r.stderr.slice(0, 8000) } };
 };
 const ANALYZE_ARGS = ['--percentiles', '0,10,50,90,100', '--coverage-thresholds', '10,20,25'];
 const cliRun = async (input, name, extra, unset = []) => {
