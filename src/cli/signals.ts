@@ -41,10 +41,23 @@ function onSignal(sig: NodeJS.Signals): void {
   // stopping mid-cleanup is what would leave a lock and temporary files behind.
 }
 
-/** Install the SIGINT/SIGTERM handlers (idempotent). Kept until the process exits. */
+/**
+ * A reader that closed its end of our stdout or stderr (`spherecov analyze --help | head`, a pager
+ * quit early): Node ignores SIGPIPE, so the next write fails with EPIPE, an 'error' event that
+ * would kill the process with a stack trace. Output to that stream simply stops; the run goes on
+ * and writes its files (its console lines were only a report of them).
+ */
+function onClosedPipe(e: NodeJS.ErrnoException): void {
+  if (e.code === 'EPIPE' || e.code === 'ERR_STREAM_DESTROYED') return;
+  throw e;
+}
+
+/** Install the SIGINT/SIGTERM handlers and the closed-pipe rule (idempotent). Kept until the process exits. */
 export function installSignalHandlers(): void {
   if (installed) return;
   installed = true;
   process.on('SIGINT', onSignal);
   process.on('SIGTERM', onSignal);
+  process.stdout.on('error', onClosedPipe);
+  process.stderr.on('error', onClosedPipe);
 }
