@@ -5,9 +5,11 @@
  * tests run what an installed copy runs.
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll } from 'vitest';
 import { bundleIsCurrent } from '../../src/cli/bundleStamp.js';
 
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -33,4 +35,18 @@ export function ensureBuilt(): void {
   }
   if (!existsSync(main)) throw new Error('dist/cli/main.js was not built');
   if (!bundleIsCurrent(BUNDLE_DIR)) execFileSync(process.execPath, [path.join(ROOT, 'scripts', 'bundle.mjs')], { cwd: ROOT, stdio: 'pipe' });
+}
+
+/**
+ * For a test file that spawns the built CLI and writes into a scratch folder: builds first
+ * (ensureBuilt), makes the folder, removes it at the end. Returns the folder's path getter.
+ */
+export function builtWithScratch(prefix: string): () => string {
+  let dir = '';
+  beforeAll(() => {
+    ensureBuilt();
+    dir = mkdtempSync(path.join(tmpdir(), prefix));
+  }, 180_000);
+  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+  return () => dir;
 }

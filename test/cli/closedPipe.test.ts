@@ -1,20 +1,14 @@
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync } from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ensureBuilt, ROOT } from './buildOnce.js';
+import { describe, expect, it } from 'vitest';
+import { builtWithScratch, ROOT } from './buildOnce.js';
 
 // A reader that closes our stdout early (`spherecov analyze --help | head -2`, a pager quit
 // before the end): output stops, the run goes on (src/cli/signals.ts onClosedPipe).
 
 const BIN = path.join(ROOT, 'bin', 'spherecov.js');
-let dir: string;
-beforeAll(() => {
-  ensureBuilt();
-  dir = mkdtempSync(path.join(tmpdir(), 'spherecov-pipe-'));
-}, 180_000);
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+const scratch = builtWithScratch('spherecov-pipe-');
 
 /** Run the CLI with its stdout pipe closed by the reader at once; exit code and stderr. */
 function withClosedStdout(args: string[]): Promise<{ code: number | null; stderr: string }> {
@@ -36,10 +30,10 @@ describe('a closed stdout pipe', () => {
 
   it('analyze: the run still writes its files and exits as with a reader', async () => {
     const args = (out: string) => ['analyze', path.join(ROOT, 'fixtures', 'cli', 'pass'), '--out', out, '--no-pdf'];
-    const normal = spawnSync(process.execPath, [BIN, ...args(path.join(dir, 'a'))], { cwd: ROOT, encoding: 'utf8' });
-    const r = await withClosedStdout(args(path.join(dir, 'b')));
+    const normal = spawnSync(process.execPath, [BIN, ...args(path.join(scratch(), 'a'))], { cwd: ROOT, encoding: 'utf8' });
+    const r = await withClosedStdout(args(path.join(scratch(), 'b')));
     expect(r.stderr).not.toMatch(/EPIPE/);
     expect(r.code).toBe(normal.status);
-    expect(existsSync(path.join(dir, 'b', 'results.json'))).toBe(true);
+    expect(existsSync(path.join(scratch(), 'b', 'results.json'))).toBe(true);
   }, 60_000);
 });

@@ -1,22 +1,15 @@
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BUNDLE_DIR, ensureBuilt, ROOT } from './buildOnce.js';
+import { describe, expect, it } from 'vitest';
+import { BUNDLE_DIR, builtWithScratch, ROOT } from './buildOnce.js';
 
 // The bundle's files load with V8's code cache (src/cli/codeCache.ts, written by the warm-up runs
 // of scripts/bundle.mjs); a cache that does not belong to the source beside it is never used.
 
 const LOADER = path.join(ROOT, 'dist', 'cli', 'codeCache.js');
-let dir: string;
-
-beforeAll(() => {
-  ensureBuilt();
-  dir = mkdtempSync(path.join(tmpdir(), 'spherecov-code-cache-'));
-}, 180_000);
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+const scratch = builtWithScratch('spherecov-code-cache-');
 
 /** Load `file` through the loader in a fresh process; its `value` export and how the cache was used. */
 function load(file: string, env: Record<string, string> = {}): { value: unknown; use: string } {
@@ -50,7 +43,7 @@ describe('code cache (src/cli/codeCache.ts)', () => {
   });
 
   it('writes a cache in a warm-up run, uses it after, and refuses it for another source of the same length', () => {
-    const file = path.join(dir, 'value.cjs');
+    const file = path.join(scratch(), 'value.cjs');
     writeFileSync(file, 'exports.value = [1, 2, 3].map((x) => x * 10);\n');
     expect(load(file)).toEqual({ value: [10, 20, 30], use: 'none' });
     load(file, { SPHERECOV_CODE_CACHE_WRITE: '1' });
