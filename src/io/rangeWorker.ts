@@ -77,12 +77,12 @@ function tokenContext(job: RangeJob, keys: KeyTable, errors: ErrorList, sink: Ro
  * SHA-256 (hex) of the whole file at `path`, read with blocking reads: this thread has nothing
  * else to do, and 64 asynchronous 1 MiB reads cost more in thread hops than the hashing saves.
  */
-function hashFile(path: string, chunkBytes = HASH_CHUNK): string {
+function hashFile(path: string): string {
   const fd = openSync(path, 'r');
   try {
     const hash = createHash('sha256');
-    const buf = Buffer.allocUnsafe(chunkBytes);
-    for (let n; (n = readSync(fd, buf, 0, chunkBytes, null)) > 0;) hash.update(buf.subarray(0, n));
+    const buf = Buffer.allocUnsafe(HASH_CHUNK);
+    for (let n; (n = readSync(fd, buf, 0, HASH_CHUNK, null)) > 0;) hash.update(buf.subarray(0, n));
     return hash.digest('hex');
   } finally {
     closeSync(fd);

@@ -21,9 +21,8 @@ export const PARALLEL_MIN_BYTES = 32 << 20;
 
 /**
  * Share of the data bytes the main thread reads itself. Per-thread CPU of a two-thread read of
- * the 64-beam export at an even split (load 6–7 on 2 cores, /proc thread times; then the main
- * thread still hashed the file): main thread
- * 200–230 ms for its half, 20 ms hashing the rest, ≤ 10 ms merging; worker 300–345 ms (start-up
+ * the 64-beam export at an even split (load 6–7 on 2 cores, /proc thread times; the main thread
+ * then still hashed the file): main thread 200–230 ms for its half, 20 ms hashing the rest, ≤ 10 ms merging; worker 300–345 ms (start-up
  * ~35, re-reading the first beam ~35, its half, its own JIT warm-up). On a quiet machine the
  * worker also starts later in wall time (a --cpu-prof timeline: it read from ~0.15 s after the main
  * thread and finished ~0.12 s after it at 0.55), so the main thread takes more: whole CLI on that
@@ -110,14 +109,13 @@ async function hashHere(fh: FileHandle, chunkBytes?: number): Promise<string> {
 /**
  * Read the data rows of one file on the fast path, on two threads when that pays: a long-layout
  * file of at least `minBytes` of data, `threads` ≥ 2, and the compiled worker at hand. The main
- * thread reads [data start, split); the worker (rangeWorker.ts) reads
- * [split, end) into its own groups, which the main sink then takes over (LongSink.absorb: a beam
- * cut by the split is continued sample by sample, new beams are taken as they are, group order
- * stays first appearance, lines are offset), and then hashes the whole file while the main
- * thread merges. On anything unusual (an error or quote in either
- * part, the worker giving up, the sample limit) the main thread simply reads on from the split
- * itself, which is exactly the single pass, and hashes the file itself. 'quote': restart on the
- * general path; else the SHA-256 (hex) of the whole file.
+ * thread reads [data start, split); the worker (rangeWorker.ts) reads [split, end) into its own
+ * groups, which the main sink then takes over (LongSink.absorb: a beam cut by the split is
+ * continued sample by sample, new beams are taken as they are, group order stays first
+ * appearance, lines are offset), and then hashes the whole file while the main thread merges.
+ * On anything unusual (an error or quote in either part, the worker giving up, the sample limit)
+ * the main thread simply reads on from the split itself, which is exactly the single pass, and
+ * hashes the file itself. 'quote': restart on the general path; else the file's SHA-256 (hex).
  */
 export async function readFast(r: FastRead): Promise<{ sha256: string } | 'quote'> {
   const whole = { readFrom: 0, parseFrom: r.dataStart, end: Infinity };
