@@ -110,10 +110,11 @@ async function warmUp() {
     }
     await writeExport(path.join(work, 'large.csv'), 40, 1, 7);
     const run = (args) => {
+      // A run that hangs (a bug in the program being bundled) must not hang the build: killed after 2 min.
       const r = spawnSync(process.execPath, [path.join(root, 'bin', 'spherecov.js'), 'analyze', ...args, '--out', path.join(work, 'out'), '--force'], {
-        cwd: root, encoding: 'utf8', env: { ...process.env, SPHERECOV_CODE_CACHE_WRITE: '1' },
+        cwd: root, encoding: 'utf8', env: { ...process.env, SPHERECOV_CODE_CACHE_WRITE: '1' }, timeout: 120_000, killSignal: 'SIGKILL',
       });
-      if (r.status !== 0) process.stderr.write(`bundle: a warm-up run failed (exit ${r.status}); the bundle may run without some code caches\n${r.stderr}`);
+      if (r.status !== 0) process.stderr.write(`bundle: a warm-up run failed (${r.status === null ? `killed: ${r.signal}` : `exit ${r.status}`}); the bundle may run without some code caches\n${r.stderr}`);
     };
     run([path.join(work, 'build'), '--jobs', '2']);
     // The second reading thread and the insight lane start only when other processes leave a core
