@@ -8,16 +8,16 @@ import { createRequire } from 'node:module';
 import { cliModules } from '../dist/cli/bundleStamp.js';
 
 const modules = cliModules();
-let cli;
+const argv = process.argv.slice(2);
+// A large analyze gets its worker threads started before the command line is parsed and the
+// run planned (src/earlyThreads.ts).
 if (modules.bundle !== null) {
   // One CommonJS file, compiled from V8's code cache; it installs the interrupt handlers first.
-  cli = createRequire(import.meta.url)(modules.bundle);
+  const cli = createRequire(import.meta.url)(modules.bundle);
+  await cli.startEarlyThreads(argv);
+  await cli.main(argv);
 } else {
-  const { installSignalHandlers } = await import(modules.signals);
-  installSignalHandlers();
-  cli = { ...(await import(modules.early)), main: null };
+  (await import(modules.signals)).installSignalHandlers();
+  await (await import(modules.early)).startEarlyThreads(argv);
+  await (await import(modules.main)).main(argv);
 }
-// A large analyze gets its worker threads started now, while the CLI loads (src/earlyThreads.ts).
-await cli.startEarlyThreads(process.argv.slice(2));
-const main = cli.main ?? (await import(modules.main)).main;
-await main(process.argv.slice(2));

@@ -3,8 +3,7 @@
 // `tsc`, as CommonJS, one file each (<name>.code.js): start-up loads one file instead of ~170
 // modules, in every process and worker thread. Each entry <name>.js is a two-line file that runs
 // its code file through src/cli/codeCache.ts (bundled as codeCache.js) with V8's code cache,
-// written beside it by a warm-up run at the end of this step (one analyze as a user runs it, on a
-// generated export large enough for the second reading thread and the insight lane). dist/bundle
+// written beside it by warm-up runs at the end of this step (warmUp). dist/bundle
 // sits at the depth of dist/<dir>/, and `import.meta.url` becomes each code file's own URL, so the
 // modules' `new URL('../../templates/…', import.meta.url)` and the workers found beside the
 // calling module (src/compiledWorker.ts) resolve as they do from dist/<dir>/. Lazy `await
@@ -14,11 +13,11 @@
 // made from.
 import { spawnSync } from 'node:child_process';
 import { build } from 'esbuild';
-import { createWriteStream, existsSync, mkdirSync, mkdtempSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { once } from 'node:events';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { generate as generateExport } from '../bench/gen.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const dist = path.join(root, 'dist');
@@ -104,11 +103,12 @@ await warmUp();
 async function warmUp() {
   const work = mkdtempSync(path.join(tmpdir(), 'spherecov-warm-up-'));
   try {
+    // The benchmark's export generator (bench/gen.mjs): steered beams, two-decimal values.
     for (let u = 1; u <= 4; u++) {
       mkdirSync(path.join(work, 'build', `U-${u}`), { recursive: true });
-      await writeExport(path.join(work, 'build', `U-${u}`, 'beams.csv'), 16, 5, u);
+      await generateExport(path.join(work, 'build', `U-${u}`, 'beams.csv'), { beams: 16, step: 5, seed: u });
     }
-    await writeExport(path.join(work, 'large.csv'), 40, 1, 7);
+    await generateExport(path.join(work, 'large.csv'), { beams: 40, step: 1, seed: 7 });
     const run = (args) => {
       // A run that hangs (a bug in the program being bundled) must not hang the build: killed after 2 min.
       const r = spawnSync(process.execPath, [path.join(root, 'bin', 'spherecov.js'), 'analyze', ...args, '--out', path.join(work, 'out'), '--force'], {
@@ -119,32 +119,17 @@ async function warmUp() {
     run([path.join(work, 'build'), '--jobs', '2']);
     // The second reading thread and the insight lane start only when other processes leave a core
     // free (src/batch/analyzePlan.ts readThreads): on a busy machine, try again a little later.
-    const laneCaches = ['rangeWorker', 'insightWorker'].map((n) => path.join(bundleDir, `${n}.code.js.cache`));
-    for (let attempt = 0; attempt < 3 && (attempt === 0 || !laneCaches.every((f) => existsSync(f))); attempt++) {
-      if (attempt > 0) await new Promise((resolve) => setTimeout(resolve, 1000));
+    const laneCachesWritten = () => ['rangeWorker', 'insightWorker'].every((n) => existsSync(path.join(bundleDir, `${n}.code.js.cache`)));
+    for (let attempt = 1; ; attempt++) {
       run([path.join(work, 'large.csv')]);
+      if (laneCachesWritten()) break;
+      if (attempt === 3) {
+        process.stderr.write('bundle: the machine stayed busy; the reading thread and the insight lane run without code caches\n');
+        break;
+      }
+      await new Promise((resolve) => setTimeout(resolve, 1000));
     }
-    if (!laneCaches.every((f) => existsSync(f))) process.stderr.write('bundle: the machine stayed busy; the reading thread and the insight lane run without code caches\n');
   } finally {
     rmSync(work, { recursive: true, force: true });
   }
-}
-
-/** A long export of `beams` beams on a `stepDeg` θ/φ grid, values with two decimals (a small LCG from `seed`). */
-async function writeExport(file, beams, stepDeg, seed) {
-  const out = createWriteStream(file);
-  out.write('theta_deg,phi_deg,beam,eirp_dbm\n');
-  let s = seed;
-  for (let b = 0; b < beams; b++) {
-    const lines = [];
-    for (let t = 0; t <= 180; t += stepDeg) {
-      for (let p = 0; p < 360; p += stepDeg) {
-        s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-        lines.push(`${t},${p},${b},${(10 + 20 * Math.cos(((t - b * 4) * Math.PI) / 180) ** 2 + s / 2 ** 32).toFixed(2)}`);
-      }
-    }
-    if (!out.write(`${lines.join('\n')}\n`)) await once(out, 'drain');
-  }
-  out.end();
-  await once(out, 'finish');
 }

@@ -1,13 +1,15 @@
 /**
- * Worker threads started by bin/spherecov.js before the CLI's modules load, for an `analyze` of
- * large files: the second reading thread (src/io/rangeWorker.ts) and the insight lane
- * (src/batch/insightWorker.ts). A worker thread takes 100–150 ms from `new Worker` to running
- * code (Node's bootstrap and its module graph), and the main thread spends about as long loading
- * the CLI while the second core idles; started here, the workers are ready when the read begins
- * instead of starting then and competing with it. Whoever would start such a worker takes the
+ * Worker threads started by bin/spherecov.js before the command line is parsed and the run
+ * planned, for an `analyze` of large files: the second reading thread (src/io/rangeWorker.ts)
+ * and the insight lane (src/batch/insightWorker.ts). A worker thread takes tens of milliseconds
+ * from `new Worker` to running code (Node's bootstrap and its module graph; ~50 ms on the bench
+ * machine with the bundle's code cache), about as long as the main thread then spends parsing,
+ * planning and sniffing the file while the second core idles; started here, the workers are
+ * ready when the read begins instead of starting then and competing with it. From the bundle
+ * they start once its one file has loaded (~25 ms); from dist/ nothing starts early. Whoever would start such a worker takes the
  * early one instead (takeEarlyThread, src/earlyWorkers.ts) and sends its job by message; one that nobody takes (a
  * run that decided on one thread, a small file after all) is unreferenced and never keeps the
- * process alive. Only from the bundle (dist/bundle), where the workers lie beside this module.
+ * process alive.
  *
  * The guess is cheap and may be wrong either way: it stats the command line's existing paths
  * (a folder two levels deep, at most EARLY_SCAN_ENTRIES entries) and starts a worker only when
