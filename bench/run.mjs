@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import { parseArgs, USAGE, wants } from './lib/args.mjs';
 import { buildFolder, dataPlan, longExport, outDir, pickGenerator } from './lib/data.mjs';
 import { comparePeer, renderComparison } from './lib/compare.mjs';
-import { alternate, runMeasured } from './lib/proc.mjs';
+import { alternate, envWithout, runMeasured } from './lib/proc.mjs';
 import { cliAvailable, findExport, repoDir } from './lib/resolve.mjs';
 import { median, pairedRatio } from './lib/stats.mjs';
 import { renderTable, row } from './lib/table.mjs';
@@ -381,9 +381,7 @@ raw.loadEnd = loadavg()[0];
 // first line of JavaScript, with and without it; medians of 5).
 if (CA_TAX) {
   const firstLine = (unset) => {
-    const env = { ...process.env };
-    for (const n of unset) delete env[n];
-    const r = spawnSync(process.execPath, ['-e', 'process.stdout.write(String(performance.now()))'], { env, encoding: 'utf8' });
+    const r = spawnSync(process.execPath, ['-e', 'process.stdout.write(String(performance.now()))'], { env: envWithout(unset), encoding: 'utf8' });
     return Number(r.stdout);
   };
   const ms = (unset) => median(Array.from({ length: 5 }, () => firstLine(unset)));

@@ -14,6 +14,13 @@ const scratch = mkdtempSync(join(tmpdir(), 'spherecov-bench-rss-'));
 let counter = 0;
 process.on('exit', () => rmSync(scratch, { recursive: true, force: true }));
 
+/** This process's environment with `extra` added and the variables named in `unset` removed. */
+export function envWithout(unset, extra = {}) {
+  const env = { ...process.env, ...extra };
+  for (const name of unset) delete env[name];
+  return env;
+}
+
 /**
  * Spawn `node <args>` (kind 'node') or `/usr/bin/python3 <script> <args>` (kind 'python'), with
  * `env` added to this process's environment and the variables named in `unset` removed.
@@ -28,11 +35,9 @@ export function runMeasured(kind, args, { cwd, env, unset = [], timeoutMs = 600_
   return new Promise((resolvePromise, reject) => {
     const t0 = process.hrtime.bigint();
     let t1 = null;
-    const childEnv = { ...process.env, ...env, BENCH_RSS_FILE: rssFile };
-    for (const name of unset) delete childEnv[name];
     const child = spawn(cmd, argv, {
       cwd,
-      env: childEnv,
+      env: envWithout(unset, { ...env, BENCH_RSS_FILE: rssFile }),
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     const out = [];
